@@ -1,0 +1,2 @@
+// compare layer barrel: one export per line.
+export {};

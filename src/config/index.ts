@@ -1,0 +1,2 @@
+// config layer barrel: one export per line.
+export {};

@@ -1,0 +1,2 @@
+// cosmology layer barrel: one export per line.
+export {};

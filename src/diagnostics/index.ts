@@ -1,0 +1,2 @@
+// diagnostics layer barrel: one export per line.
+export {};

@@ -1,0 +1,2 @@
+// likelihood layer barrel: one export per line.
+export {};

@@ -1,0 +1,2 @@
+// output layer barrel: one export per line.
+export {};

@@ -1,0 +1,2 @@
+// pipeline layer barrel: one export per line.
+export {};

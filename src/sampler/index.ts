@@ -1,0 +1,2 @@
+// sampler layer barrel: one export per line.
+export {};

@@ -1,0 +1,2 @@
+// standardize layer barrel: one export per line.
+export {};

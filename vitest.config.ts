@@ -1,0 +1,13 @@
+import { defineConfig } from 'vitest/config';
+
+// Unit tests and the fast validation subset run under `npm test`.
+// Long statistical validation runs only with CANDELA_VALIDATE=1 (`npm run validate`).
+export default defineConfig({
+  test: {
+    include: ['test/**/*.test.ts'],
+    testTimeout: 120_000,
+    hookTimeout: 120_000,
+    pool: 'forks',
+    maxWorkers: 2,
+  },
+});
