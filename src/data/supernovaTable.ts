@@ -52,8 +52,12 @@ export interface SupernovaTable {
 
   /** 1-based line number in the source file, per supernova, for messages. */
   sourceLine: Int32Array;
-  /** The file the rows came from. */
+  /** The file the rows came from (for a concatenation: the names joined with ' + '). */
   sourceFile: string;
+  /** Set by concatenateTables: the files the rows came from, in order. */
+  sourceFiles?: string[];
+  /** Set by concatenateTables: per supernova, the index into `sourceFiles`. */
+  sourceFileIndex?: Int32Array;
 }
 
 /**
