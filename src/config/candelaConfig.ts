@@ -1,0 +1,212 @@
+/**
+ * The validated configuration of one candela run: what the YAML file says,
+ * with every default filled in and every path resolved. Only config/,
+ * pipeline/ and cli/ see this type; lower layers take small option objects.
+ * YAML keys are snake_case; the same settings here are camelCase, except
+ * where a key is data the user writes (column fields, parameter names).
+ * docs/configuration.md explains every setting; defaults live in defaults.ts.
+ */
+
+/** A path as written in the configuration and as resolved against the configuration file's folder. */
+export interface ResolvedPath {
+  /** Exactly as the user wrote it. */
+  written: string;
+  /** Joined to the configuration file's folder (unchanged when `written` is absolute). */
+  resolved: string;
+}
+
+/** Where a key or value sits in the configuration file (1-based). */
+export interface SourcePosition {
+  line: number;
+  column: number;
+}
+
+/** `light_curves`: peak magnitude, stretch, colour per supernova; `magnitudes`: standardized magnitudes or distance moduli. */
+export type SupernovaKind = 'light_curves' | 'magnitudes';
+
+/** Tool fields a table column can be mapped to (the keys of `columns`). */
+export type ColumnField =
+  | 'id' | 'sample' | 'z' | 'z_helio' | 'z_err'
+  | 'magnitude' | 'magnitude_err'
+  | 'm_b' | 'm_b_err' | 'x1' | 'x1_err' | 'color' | 'color_err'
+  | 'cov_m_b_x1' | 'cov_m_b_color' | 'cov_x1_color'
+  | 'host_log_mass' | 'host_log_mass_err'
+  | 'bias_correction' | 'calibrator_mu';
+
+/** The uncertainty fields (`*_err`) a `cuts.max_errors` entry may name. */
+export type ErrorField = 'z_err' | 'magnitude_err' | 'm_b_err' | 'x1_err' | 'color_err' | 'host_log_mass_err';
+
+/** The three light-curve quantities of a 3N x 3N covariance block. */
+export type LightCurveQuantity = 'm_b' | 'x1' | 'color';
+
+/** How the supernova table is split into fields and rows. */
+export interface TableOptions {
+  file: ResolvedPath;
+  delimiter: 'auto' | 'comma' | 'tab' | 'whitespace';
+  /** Lines starting with this text are comments (null: none). */
+  comment: string | null;
+  /** Whether data rows start with an unnamed running index (`auto`: detect from the header). */
+  indexColumn: 'auto' | 'yes' | 'no';
+  /** A fixed word every data row starts with, removed before splitting (null: none). */
+  rowPrefix: string | null;
+}
+
+/** One covariance file added to the statistical covariance. */
+export interface CovarianceSource {
+  file: ResolvedPath;
+  /** `magnitudes`: N x N on the magnitudes; `light_curve_parameters`: 3N x 3N on (m_b, x1, color). */
+  appliesTo: 'magnitudes' | 'light_curve_parameters';
+  /** Order of the three quantities within one supernova's block (3N only). */
+  blockOrder: LightCurveQuantity[];
+  /** `interleaved`: sn1 (a, b, c), sn2 (a, b, c) ...; `grouped`: all a, all b, all c (3N only). */
+  layout: 'interleaved' | 'grouped';
+  /** Every element is multiplied by this (dimensionless). */
+  scale: number;
+  /** Largest accepted |C_ij - C_ji| / max(|C_ij|, |C_ji|) (relative). */
+  symmetryTolerance: number;
+  /** The matrix already holds the statistical errors: the per-supernova error columns are then not added on its diagonal. */
+  includesStatistical: boolean;
+}
+
+/** Row selection applied after reading (null or empty: no cut). */
+export interface CutOptions {
+  /** Keep min <= z <= max (the `z` column). */
+  redshift: [number, number] | null;
+  /** Rows with a calibrator distance are kept whatever their redshift. */
+  keepCalibrators: boolean;
+  maxAbsX1: number | null;
+  /** mag */
+  maxAbsColor: number | null;
+  /** Largest accepted uncertainty per `*_err` field, in that field's units. */
+  maxErrors: Partial<Record<ErrorField, number>>;
+  /** Keep only these values of the `sample` column (null: all). */
+  keepSamples: string[] | null;
+  /** Identifiers to drop. */
+  dropIds: string[];
+}
+
+/** One supernova data set (several are concatenated). */
+export interface SupernovaDataSet {
+  /** Unique name used in outputs (letters, digits, `_`, `-`). */
+  label: string;
+  kind: SupernovaKind;
+  table: TableOptions;
+  /** Tool field -> column name in the file. */
+  columns: Partial<Record<ColumnField, string>>;
+  /** Sentinel values meaning "unknown", per field. */
+  missingValues: Partial<Record<ColumnField, number[]>>;
+  covariances: CovarianceSource[];
+  cuts: CutOptions;
+  /** Largest accepted |z_helio - z| (dimensionless); larger is a data error. */
+  maxRedshiftMismatch: number;
+}
+
+/** How magnitudes become distance moduli (Tripp 1998 relation and error terms). */
+export interface StandardizationOptions {
+  method: 'conventional' | 'hierarchical';
+  hostMassStep: {
+    enabled: boolean;
+    /** log10(M / M_sun) where the step happens. */
+    splitLogMass: number;
+    shape: 'sharp' | 'logistic';
+    /** Width of the logistic step, dex. */
+    widthDex: number;
+  };
+  scatter: {
+    intrinsic: 'global' | 'per_sample' | 'off';
+    /** Lensing dispersion per unit redshift, mag (0 = off). */
+    lensingPerRedshift: number;
+    /** Peculiar-velocity dispersion, km/s (0 = off). */
+    peculiarVelocityKmPerS: number;
+    /** Propagate redshift uncertainties into magnitudes. */
+    redshiftErrors: boolean;
+  };
+  /** `exact`: covariance recomputed with the sampled alpha, beta; `frozen`: computed once at `frozenAt`. */
+  alphaBetaCovariance: 'exact' | 'frozen';
+  frozenAt: { alpha: number; beta: number } | null;
+  /** `marginalize`: the magnitude offset is integrated out analytically (flat prior); `sample`: abs_mag is a parameter. */
+  offset: 'marginalize' | 'sample';
+}
+
+/** A prior density on one parameter. */
+export type PriorSpec =
+  | { kind: 'uniform'; min: number; max: number }
+  | { kind: 'gaussian'; mean: number; sd: number }
+  | { kind: 'truncated_gaussian'; mean: number; sd: number; min: number; max: number }
+  | { kind: 'log_uniform'; min: number; max: number };
+
+/** A parameter is either sampled under a prior or held fixed. */
+export type ParameterSpec = { mode: 'prior'; prior: PriorSpec } | { mode: 'fixed'; value: number };
+
+/** One cosmological model, fitted into its own run folder. */
+export interface ModelSpec {
+  /** Unique name, used as the folder name. */
+  label: string;
+  darkEnergy: 'lambda' | 'constant_w' | 'cpl';
+  curvature: 'flat' | 'free';
+  /** Include photons (T_CMB 2.7255 K) and 3.046 massless neutrino species. */
+  radiation: boolean;
+  /** Per-model replacements of entries of the global `parameters` block. */
+  parameters: Record<string, ParameterSpec>;
+}
+
+/** Quantities computed from each sample. */
+export type DerivedQuantity = 'omega_k' | 'omega_de' | 'q0' | 'z_accel' | 'age_gyr' | 'offset';
+
+/** Settings of the posterior sampler and its stopping rule. */
+export interface SamplerOptions {
+  method: 'ensemble' | 'nested';
+  walkers: number;
+  /** Independent ensembles (for R-hat between them). */
+  ensembles: number;
+  /** Stretch-move scale a > 1 (Goodman & Weare 2010). */
+  stretchScale: number;
+  /** Fraction of differential-evolution moves (ter Braak 2006), 0..1. */
+  differentialEvolutionWeight: number;
+  maxSteps: number;
+  checkEvery: number;
+  targetEss: number;
+  maxRhat: number;
+  maxMinutes: number;
+  /** Worker threads; `auto` = number of cores. */
+  workers: 'auto' | number;
+  /** Steps between checkpoints (0 = never). */
+  checkpointEvery: number;
+  nested: { livePoints: number; dlogz: number; maxIterations: number };
+}
+
+/** What to write and draw. */
+export type FigureKind = 'triangle' | 'hubble' | 'residuals' | 'trace' | 'autocorrelation';
+
+/** Output folder and figure settings. */
+export interface OutputOptions {
+  /** One subfolder per model label. */
+  dir: ResolvedPath;
+  contourPairs: 'auto' | Array<[string, string]>;
+  smoothing: { kernel: 'gaussian' | 'none'; bandwidth: 'scott' | 'silverman' | number; factor: number };
+  figures: FigureKind[];
+  png: boolean;
+}
+
+/** The whole validated configuration. */
+export interface CandelaConfig {
+  title: string;
+  /** Seed of every random stream (integer or text). */
+  seed: number | string;
+  supernovae: SupernovaDataSet[];
+  standardization: StandardizationOptions;
+  models: ModelSpec[];
+  /**
+   * Global prior or fixed value per parameter: the user's entries plus the
+   * default of every parameter some model uses (see parametersForModel).
+   */
+  parameters: Record<string, ParameterSpec>;
+  /** `auto`: the per-model default list (see derivedForModel). */
+  derived: 'auto' | DerivedQuantity[];
+  /** km/s/Mpc, used for ages and distances when h0 is not a parameter. */
+  referenceH0KmPerSPerMpc: number;
+  sampler: SamplerOptions;
+  output: OutputOptions;
+  /** The configuration file and where each key path sits in it (for messages of later stages). */
+  source: { file: ResolvedPath; positions: Record<string, SourcePosition> };
+}

@@ -1,0 +1,138 @@
+/**
+ * Every default of the configuration, in one place. docs/configuration.md
+ * lists the same values; test/config/defaults.test.ts holds the two together.
+ * A key the user leaves out takes the value here.
+ */
+import type {
+  CovarianceSource, CutOptions, DerivedQuantity, FigureKind, ModelSpec, OutputOptions, PriorSpec,
+  SamplerOptions, StandardizationOptions, TableOptions,
+} from './candelaConfig.js';
+
+/** Seed used when the file gives none (a warning says so: results are reproducible only with a stated seed). */
+export const DEFAULT_SEED = 1;
+
+/** Title used when the file gives none. */
+export const DEFAULT_TITLE = 'untitled candela run';
+
+/**
+ * Largest accepted |z_helio - z|. The CMB-dipole and peculiar-velocity
+ * corrections shift redshifts by about 0.0013 (1 + z) plus ~0.002; the largest
+ * difference in the bundled public releases is 0.0034. 0.01 catches swapped
+ * or mislabelled columns without flagging real corrections.
+ */
+export const DEFAULT_MAX_REDSHIFT_MISMATCH = 0.01;
+
+/** Table reading (`supernovae[].table`, except the required `file`). */
+export const DEFAULT_TABLE: Omit<TableOptions, 'file'> = {
+  delimiter: 'auto',
+  comment: '#',
+  indexColumn: 'auto',
+  rowPrefix: null,
+};
+
+/** One covariance entry (`supernovae[].covariances[]`, except the required `file`). */
+export const DEFAULT_COVARIANCE: Omit<CovarianceSource, 'file'> = {
+  appliesTo: 'magnitudes',
+  blockOrder: ['m_b', 'x1', 'color'],
+  layout: 'interleaved',
+  scale: 1,
+  // Relative asymmetry accepted in a covariance file: files written with ~10
+  // significant digits differ by rounding only, well below this.
+  symmetryTolerance: 1e-8,
+  includesStatistical: false,
+};
+
+/** Cuts (`supernovae[].cuts`): none by default, calibrators kept. */
+export const DEFAULT_CUTS: CutOptions = {
+  redshift: null,
+  keepCalibrators: true,
+  maxAbsX1: null,
+  maxAbsColor: null,
+  maxErrors: {},
+  keepSamples: null,
+  dropIds: [],
+};
+
+/**
+ * Standardization. Lensing 0.055 z mag: Jonsson et al. (2010). Peculiar
+ * velocity 250 km/s: common practice for low-redshift samples. Host-mass split
+ * at 10^10 M_sun: Sullivan et al. (2010).
+ */
+export const DEFAULT_STANDARDIZATION: StandardizationOptions = {
+  method: 'conventional',
+  hostMassStep: { enabled: true, splitLogMass: 10, shape: 'sharp', widthDex: 0.1 },
+  scatter: { intrinsic: 'global', lensingPerRedshift: 0.055, peculiarVelocityKmPerS: 250, redshiftErrors: true },
+  alphaBetaCovariance: 'exact',
+  frozenAt: null,
+  offset: 'marginalize',
+};
+
+/** The model fitted when `models` is absent; a listed model's missing keys take these values. */
+export const DEFAULT_MODEL: Omit<ModelSpec, 'label'> = {
+  darkEnergy: 'lambda',
+  curvature: 'flat',
+  radiation: false,
+  parameters: {},
+};
+
+/**
+ * Prior of every parameter a model uses when `parameters` does not name it.
+ * Wide and flat except the scatter terms (scale parameters: log-uniform).
+ * abs_mag spans both standardized peak magnitudes (M near -19.3) and distance
+ * moduli given with M already removed (offset near 0).
+ */
+export const DEFAULT_PRIORS: Readonly<Record<string, PriorSpec>> = {
+  omega_m: { kind: 'uniform', min: 0, max: 1 },
+  omega_de: { kind: 'uniform', min: 0, max: 2 },
+  w0: { kind: 'uniform', min: -3, max: 1 },
+  wa: { kind: 'uniform', min: -5, max: 5 },
+  h0: { kind: 'uniform', min: 50, max: 100 },
+  alpha: { kind: 'uniform', min: 0, max: 0.5 },
+  beta: { kind: 'uniform', min: 0, max: 6 },
+  abs_mag: { kind: 'uniform', min: -25, max: 5 },
+  mass_step: { kind: 'uniform', min: -0.5, max: 0.5 },
+  sigma_int: { kind: 'log_uniform', min: 0.01, max: 0.5 },
+  x1_mean: { kind: 'uniform', min: -3, max: 3 },
+  x1_width: { kind: 'log_uniform', min: 0.05, max: 5 },
+  color_mean: { kind: 'uniform', min: -0.3, max: 0.3 },
+  color_width: { kind: 'log_uniform', min: 0.01, max: 0.5 },
+};
+
+/** Values of the cosmological parameters a simpler model does not sample: a cosmological constant has w0 = -1, wa = 0. */
+export const NON_SAMPLED_DARK_ENERGY: Readonly<Record<'w0' | 'wa', number>> = { w0: -1, wa: 0 };
+
+/** H0 for ages and distances when h0 is not sampled, km/s/Mpc (`reference_h0`). */
+export const DEFAULT_REFERENCE_H0_KM_PER_S_PER_MPC = 70;
+
+/** Derived quantities when `derived` is absent: per model (see derivedForModel). */
+export const DEFAULT_DERIVED_FLAT: readonly DerivedQuantity[] = ['q0', 'z_accel', 'age_gyr'];
+export const DEFAULT_DERIVED_CURVED: readonly DerivedQuantity[] = ['omega_k', 'q0', 'z_accel', 'age_gyr'];
+
+/** Sampler. Stretch scale 2: Goodman & Weare (2010). R-hat 1.01: Vehtari et al. (2021). */
+export const DEFAULT_SAMPLER: SamplerOptions = {
+  method: 'ensemble',
+  walkers: 32,
+  ensembles: 4,
+  stretchScale: 2,
+  differentialEvolutionWeight: 0,
+  maxSteps: 50_000,
+  checkEvery: 500,
+  targetEss: 2000,
+  maxRhat: 1.01,
+  maxMinutes: 60,
+  workers: 'auto',
+  checkpointEvery: 500,
+  nested: { livePoints: 500, dlogz: 0.1, maxIterations: 200_000 },
+};
+
+/** Figures drawn when `output.figures` is absent. */
+export const DEFAULT_FIGURES: readonly FigureKind[] = ['triangle', 'hubble', 'trace'];
+
+/** Output (`output`). Bandwidth rule: Scott (1992). */
+export const DEFAULT_OUTPUT: Omit<OutputOptions, 'dir'> & { dir: string } = {
+  dir: 'out/run',
+  contourPairs: 'auto',
+  smoothing: { kernel: 'gaussian', bandwidth: 'scott', factor: 1 },
+  figures: [...DEFAULT_FIGURES],
+  png: true,
+};

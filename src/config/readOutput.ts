@@ -1,0 +1,73 @@
+/**
+ * `output`: where results go and which figures are drawn.
+ */
+import { isScalar } from 'yaml';
+import type { FigureKind, OutputOptions } from './candelaConfig.js';
+import type { ConfigReader, Located } from './configReader.js';
+import { DEFAULT_OUTPUT } from './defaults.js';
+import { resolveConfigPath } from './resolveConfigPath.js';
+
+const KEYS = ['dir', 'contour_pairs', 'smoothing', 'figures', 'png'] as const;
+const SMOOTHING_KEYS = ['kernel', 'bandwidth', 'factor'] as const;
+
+/** Every figure kind, in drawing order. */
+export const FIGURE_KINDS: readonly FigureKind[] = ['triangle', 'hubble', 'residuals', 'trace', 'autocorrelation'];
+
+/**
+ * Reads the output block, filling defaults; `dir` is resolved against the
+ * configuration file's folder. Contour pairs are read as name pairs here and
+ * checked against the models' parameters by checkCrossFieldRules.
+ * @param reader the document reader.
+ * @param at the `output` value (absent: all defaults).
+ * @example readOutput(reader, at).dir.written // 'out/run'
+ */
+export function readOutput(reader: ConfigReader, at: Located): OutputOptions {
+  const fields = reader.mapping(at, KEYS);
+  const dir = reader.text(fields?.get('dir')) ?? DEFAULT_OUTPUT.dir;
+  const options: OutputOptions = {
+    ...structuredClone(DEFAULT_OUTPUT),
+    dir: resolveConfigPath(reader.fileName, dir),
+  };
+  if (!fields) return options;
+  const pairs = fields.get('contour_pairs');
+  if (pairs?.node && isScalar(pairs.node) && typeof pairs.node.value === 'string') {
+    options.contourPairs = reader.choice(pairs, ['auto'] as const) ?? options.contourPairs;
+  } else if (pairs) {
+    options.contourPairs = readPairs(reader, pairs);
+  }
+  const smoothing = reader.mapping(fields.get('smoothing'), SMOOTHING_KEYS);
+  if (smoothing) {
+    options.smoothing.kernel = reader.choice(smoothing.get('kernel'), ['gaussian', 'none'] as const) ?? options.smoothing.kernel;
+    const bandwidth = smoothing.get('bandwidth');
+    if (bandwidth?.node && isScalar(bandwidth.node) && typeof bandwidth.node.value === 'number') {
+      options.smoothing.bandwidth = reader.number(bandwidth, { min: 0, exclusiveMin: true }) ?? options.smoothing.bandwidth;
+    } else {
+      options.smoothing.bandwidth = reader.choice(bandwidth, ['scott', 'silverman'] as const) ?? options.smoothing.bandwidth;
+    }
+    options.smoothing.factor = reader.number(smoothing.get('factor'), { min: 0, exclusiveMin: true }) ?? options.smoothing.factor;
+  }
+  const figures = reader.list(fields.get('figures'));
+  if (figures) {
+    const kinds = figures.map((item) => reader.choice(item, FIGURE_KINDS)).filter((k): k is FigureKind => k !== undefined);
+    options.figures = FIGURE_KINDS.filter((kind) => kinds.includes(kind));
+  }
+  options.png = reader.boolean(fields.get('png')) ?? options.png;
+  return options;
+}
+
+function readPairs(reader: ConfigReader, at: Located): Array<[string, string]> {
+  const pairs: Array<[string, string]> = [];
+  for (const item of reader.list(at) ?? []) {
+    const names = reader.list(item);
+    if (!names) continue;
+    if (names.length !== 2) {
+      reader.report(item, 'config.wrong_type', 'must name two parameters', {
+        expected: '[name, name]', found: `${names.length} name${names.length === 1 ? '' : 's'}`, fix: 'write e.g. [omega_m, w0]',
+      });
+      continue;
+    }
+    const [first, second] = names.map((name) => reader.text(name));
+    if (typeof first === 'string' && typeof second === 'string') pairs.push([first, second]);
+  }
+  return pairs;
+}

@@ -1,0 +1,47 @@
+import { describe, expect, it } from 'vitest';
+import { closestWord, editDistance } from '../../src/config/index.js';
+
+describe('editDistance', () => {
+  it('gives the Levenshtein (1966) distance for insertions, deletions and substitutions', () => {
+    // kitten -> sitting = 3 (k->s, e->i, +g): the standard worked example (common practice, textbook example).
+    expect(editDistance('kitten', 'sitting')).toBe(3);
+    expect(editDistance('', 'abc')).toBe(3);
+    expect(editDistance('abc', '')).toBe(3);
+    expect(editDistance('same', 'same')).toBe(0);
+  });
+
+  it('counts a swap of two neighbours as one edit (Damerau 1964)', () => {
+    expect(editDistance('ab', 'ba')).toBe(1);
+    expect(editDistance('walkres', 'walkers')).toBe(1);
+  });
+
+  it('is the restricted (optimal string alignment) form: ca -> abc is 3, not 2', () => {
+    // The classic example separating the two Damerau-Levenshtein variants (from memory:
+    // the unrestricted distance is 2 via ca -> ac -> abc, which edits a substring twice).
+    expect(editDistance('ca', 'abc')).toBe(3);
+  });
+
+  it('is symmetric', () => {
+    for (const [a, b] of [['omega_m', 'omgea_m'], ['sigma_int', 'sigma'], ['x1', 'color']]) {
+      expect(editDistance(a, b)).toBe(editDistance(b, a));
+    }
+  });
+});
+
+describe('closestWord', () => {
+  const keys = ['walkers', 'ensembles', 'stretch_scale', 'max_steps'];
+
+  it('finds typos, case and separator differences', () => {
+    expect(closestWord('walker', keys)).toBe('walkers');
+    expect(closestWord('Walkers', keys)).toBe('walkers');
+    expect(closestWord('max-steps', keys)).toBe('max_steps');
+    expect(closestWord('maxSteps', keys)).toBe('max_steps');
+    expect(closestWord('strech_scale', keys)).toBe('stretch_scale');
+  });
+
+  it('offers nothing when no candidate is close enough to be a typo', () => {
+    expect(closestWord('banana', keys)).toBeNull();
+    expect(closestWord('ab', ['xy'])).toBeNull();
+    expect(closestWord('walkers', [])).toBeNull();
+  });
+});
