@@ -1,2 +1,1 @@
-/** The tool version, written into every run's outputs. Keep in step with package.json. */
-export const VERSION = '0.1.0';
+export { VERSION } from '../pipeline/index.js';

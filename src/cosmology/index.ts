@@ -1,2 +1,27 @@
-// cosmology layer barrel: one export per line.
-export {};
+// cosmology layer barrel: one FLRW core + small dark-energy laws. One export per line.
+
+// Building a cosmology
+export { createCosmology } from './createCosmology.js';
+export type { CreateCosmologyOptions } from './createCosmology.js';
+export type { Cosmology, CosmologyOutcome, CosmologyParameters } from './cosmology.js';
+export { resolveCosmologyParameters, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES } from './resolveCosmologyParameters.js';
+export type { ResolvedCosmology } from './resolveCosmologyParameters.js';
+export { derivedCosmologyQuantities } from './derivedCosmologyQuantities.js';
+export type { DerivedCosmologyQuantities } from './derivedCosmologyQuantities.js';
+
+// Dark-energy laws
+export { darkEnergyEvolution } from './darkEnergyEvolution.js';
+export type { DarkEnergyEvolution, DarkEnergyLaw } from './darkEnergyEvolution.js';
+export { cosmologicalConstant } from './cosmologicalConstant.js';
+export { constantEquationOfState } from './constantEquationOfState.js';
+export { chevallierPolarskiLinder } from './chevallierPolarskiLinder.js';
+
+// FLRW core pieces
+export { squaredExpansionRate, decelerationParameter } from './densityBudget.js';
+export type { DensityBudget } from './densityBudget.js';
+export { radiationDensity, NEUTRINO_TO_PHOTON_PER_SPECIES } from './radiationDensity.js';
+export type { RadiationDensity } from './radiationDensity.js';
+export { transverseComovingDistance } from './transverseComovingDistance.js';
+export { findExpansionFailure, scanExpansion } from './expansionFailure.js';
+export type { ExpansionFailure, ExpansionScan } from './expansionFailure.js';
+export { accelerationRedshift, ACCELERATION_SEARCH_MAX_REDSHIFT } from './accelerationRedshift.js';

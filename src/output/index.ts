@@ -1,2 +1,96 @@
-// output layer barrel: one export per line.
-export {};
+// output layer barrel: one export per line, grouped by topic.
+
+// Posterior summaries: weighted statistics, intervals, MAP, correlations.
+export { ONE_SIGMA_MASS } from './summaries/credibleMass.js';
+export { TWO_SIGMA_MASS } from './summaries/credibleMass.js';
+export { sortSample } from './summaries/sortSample.js';
+export type { SortedSample } from './summaries/sortSample.js';
+export { weightedQuantileOfSorted } from './summaries/weightedQuantile.js';
+export { weightedQuantiles } from './summaries/weightedQuantile.js';
+export { highestDensityInterval } from './summaries/highestDensityInterval.js';
+export { highestDensityIntervalOfSorted } from './summaries/highestDensityInterval.js';
+export { kishEffectiveCount } from './summaries/kishEffectiveCount.js';
+export { weightedMoments } from './summaries/weightedMoments.js';
+export type { WeightedMoments } from './summaries/weightedMoments.js';
+export { weightedCorrelationMatrix } from './summaries/weightedCorrelationMatrix.js';
+export { sampleStatistics } from './summaries/sampleStatistics.js';
+export type { SampleStatistics } from './summaries/sampleStatistics.js';
+export type { SampleStatisticsOptions } from './summaries/sampleStatistics.js';
+export { summarizePosterior } from './summaries/summarizePosterior.js';
+export type { SummarizePosteriorOptions } from './summaries/summarizePosterior.js';
+export type { ParameterDiagnostics } from './summaries/runSummary.js';
+export type { ParameterSummary } from './summaries/runSummary.js';
+export type { RunSummary } from './summaries/runSummary.js';
+
+// Rounding and number text (Particle Data Group rule).
+export { pdgRoundingPlace } from './summaries/pdgRoundingPlace.js';
+export { roundToDecimalPlace } from './summaries/roundToDecimalPlace.js';
+export { formatWithErrors } from './summaries/formatWithErrors.js';
+export { formatWithError } from './summaries/formatWithErrors.js';
+export { formatInterval } from './summaries/formatWithErrors.js';
+export { roundingPlaceFor } from './summaries/formatWithErrors.js';
+export type { NumberStyle } from './summaries/formatWithErrors.js';
+
+// Smoothed marginals and credible regions.
+export type { MarginalDensity1D } from './density/densityTypes.js';
+export type { DensityGrid2D } from './density/densityTypes.js';
+export type { CredibleRegion } from './density/densityTypes.js';
+export type { ContourSet2D } from './density/densityTypes.js';
+export type { BandwidthRule } from './density/densityTypes.js';
+export type { HardBounds } from './density/densityTypes.js';
+export type { MarginalDensityOptions } from './density/densityTypes.js';
+export type { DensityGridOptions } from './density/densityTypes.js';
+export { kernelBandwidth } from './density/kernelBandwidth.js';
+export type { SampleSpread } from './density/kernelBandwidth.js';
+export { marginalDensity1D } from './density/marginalDensity1D.js';
+export { densityGrid2D } from './density/densityGrid2D.js';
+export { credibleThresholds } from './density/credibleThresholds.js';
+export { credibleContours } from './density/credibleContours.js';
+export { credibleRegionArea } from './density/credibleRegionGeometry.js';
+export { credibleRegionContains } from './density/credibleRegionGeometry.js';
+
+// Density and contour files (text; write them with writeFileAtomic).
+export { marginalDensityCsv } from './density/densityCsv.js';
+export { densityGridCsv } from './density/densityCsv.js';
+export { contourGeoJson } from './density/contourFiles.js';
+export { contourPathsCsv } from './density/contourFiles.js';
+export { contourThresholdsJson } from './density/contourFiles.js';
+
+// Tables: Markdown, LaTeX, terminal.
+export { parameterSymbols } from './tables/parameterSymbols.js';
+export { parameterSymbol } from './tables/parameterSymbols.js';
+export { escapeLatexText } from './tables/parameterSymbols.js';
+export type { ParameterSymbol } from './tables/parameterSymbols.js';
+export { summaryMarkdown } from './tables/summaryMarkdown.js';
+export { summaryLatex } from './tables/summaryLatex.js';
+export type { SummaryLatexOptions } from './tables/summaryLatex.js';
+export { summaryTerminal } from './tables/summaryTerminal.js';
+export type { SummaryTerminalOptions } from './tables/summaryTerminal.js';
+export { terminalMarginals } from './tables/terminalMarginals.js';
+export type { TerminalMarginalOptions } from './tables/terminalMarginals.js';
+
+// Files.
+export { writeFileAtomic } from './writeFileAtomic.js';
+
+// Figures: SVG documents built from strings, PNG rendering (see ./figures/index.ts for the SVG toolkit).
+export { triangleFigure } from './figures/index.js';
+export { hubbleFigure } from './figures/index.js';
+export { traceFigure } from './figures/index.js';
+export { traceStackFigure } from './figures/index.js';
+export { bandFigure } from './figures/index.js';
+export { svgToPng } from './figures/index.js';
+export { interpolateModelMu } from './figures/index.js';
+export { parameterLabel } from './figures/index.js';
+export { DEFAULT_PARAMETER_SYMBOLS } from './figures/index.js';
+export type { TriangleRun, TriangleOptions } from './figures/index.js';
+export type { HubbleFigureInput, HubbleFigureOptions, BinnedResidual, ModelMuCurve } from './figures/index.js';
+export type { TraceEnsemble, TraceParameterPanel, TraceFigureOptions } from './figures/index.js';
+export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './figures/index.js';
+
+// Report page: one self-contained HTML file per run.
+export { reportHtml } from './report/index.js';
+export { convergenceVerdicts } from './report/index.js';
+export type { ReportInput, ReportRunFacts, ReportSummaryTable, ReportDiagnostics, ReportDiagnosticRow, ReportFigure, ReportInputFile } from './report/index.js';
+export type { ConvergenceVerdicts, ParameterVerdict } from './report/index.js';
+export { summaryCells } from './tables/summaryCells.js';
+export type { SummaryCells } from './tables/summaryCells.js';

@@ -1,4 +1,11 @@
 import type { Command } from 'commander';
+import { registerCheckCommand } from './check.js';
+import { registerDistancesCommand } from './distances.js';
+import { registerInitCommand } from './init.js';
+import { registerFitCommand } from './fit.js';
+import { registerStandardizeCommand } from './standardize.js';
+import { registerReportCommand } from './report.js';
+import { registerSimulateCommand } from './simulate.js';
 
 /**
  * Every sub-command registers itself here: one import and one call per
@@ -6,4 +13,11 @@ import type { Command } from 'commander';
  */
 export function registerCommands(program: Command): void {
   void program;
+  registerInitCommand(program);
+  registerCheckCommand(program);
+  registerDistancesCommand(program);
+  registerStandardizeCommand(program);
+  registerFitCommand(program);
+  registerReportCommand(program);
+  registerSimulateCommand(program);
 }

@@ -1,0 +1,90 @@
+import type { Command } from 'commander';
+import cliProgress from 'cli-progress';
+import { formatIssue } from '../../errors.js';
+import { runFit, terminalRunReport, type FitProgress } from '../../pipeline/index.js';
+
+/** Seconds between status lines when the output is not a terminal. */
+const STATUS_INTERVAL_SECONDS = 5;
+
+function formatNumber(value: number | null | undefined, digits: number): string {
+  return value === null || value === undefined || !Number.isFinite(value) ? '-' : value.toFixed(digits);
+}
+
+function etaSeconds(progress: FitProgress): number | null {
+  const check = progress.check;
+  if (!check || check.minEssBulk === null || check.minEssBulk <= 0 || progress.step === 0) return null;
+  // ESS grows about linearly with the steps kept after the burn-in.
+  const kept = Math.max(1, progress.step - check.burnInSteps);
+  const needed = (progress.targetEss / check.minEssBulk) * kept + check.burnInSteps;
+  const rate = progress.elapsedSeconds / progress.step;
+  return Math.max(0, Math.min(needed, progress.maxSteps) - progress.step) * rate;
+}
+
+function statusLine(progress: FitProgress): string {
+  const c = progress.check;
+  const eta = etaSeconds(progress);
+  return `${progress.model}: step ${progress.step}/${progress.maxSteps}  accept ${formatNumber(c?.meanAcceptance, 2)}  tau ${formatNumber(c?.maxTau, 1)}  ESS ${formatNumber(c?.minEssBulk, 0)}/${progress.targetEss}  R-hat ${formatNumber(c?.maxRhat, 3)}  left ${eta === null ? '?' : `${Math.round(eta)} s`}`;
+}
+
+/**
+ * `candela fit CONFIG`: samples the posterior of every model in the
+ * configuration, proves convergence, writes the run folders.
+ */
+export function registerFitCommand(program: Command): void {
+  program
+    .command('fit')
+    .description('sample the posterior of every model in a configuration and write the run folders')
+    .argument('<config>', 'YAML configuration file')
+    .option('--out <dir>', 'output folder (replaces output.dir)')
+    .option('--force', 'replace an existing output folder')
+    .option('--resume', 'continue an interrupted run from its last checkpoint')
+    .option('--workers <n>', 'worker threads (replaces sampler.workers)', (text) => Number.parseInt(text, 10))
+    .option('--quiet', 'print nothing but errors')
+    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n\nCtrl-C writes a checkpoint and the outputs so far; --resume continues the run.\n')
+    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean }) => {
+      const controller = new AbortController();
+      const stop = () => controller.abort();
+      process.once('SIGINT', stop);
+      process.once('SIGTERM', stop);
+      const quiet = Boolean(options.quiet);
+      const interactive = Boolean(process.stderr.isTTY) && !quiet;
+      const bar = interactive ? new cliProgress.SingleBar({ format: '{bar} {status}', barsize: 20, hideCursor: true, stream: process.stderr }, cliProgress.Presets.shades_classic) : null;
+      let barStarted = false;
+      let lastStatus = 0;
+      try {
+        const outcomes = await runFit({
+          configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, signal: controller.signal,
+          onLine: (line) => {
+            if (quiet) return;
+            if (bar && barStarted) { bar.stop(); barStarted = false; }
+            process.stderr.write(`${line}\n`);
+          },
+          onProgress: (progress) => {
+            if (quiet) return;
+            if (bar) {
+              if (!barStarted) { bar.start(progress.maxSteps, 0, { status: '' }); barStarted = true; }
+              bar.update(progress.step, { status: statusLine(progress) });
+            } else if (progress.elapsedSeconds - lastStatus >= STATUS_INTERVAL_SECONDS) {
+              lastStatus = progress.elapsedSeconds;
+              process.stderr.write(`${statusLine(progress)}\n`);
+            }
+          },
+        });
+        if (bar && barStarted) bar.stop();
+        if (!quiet) {
+          for (const outcome of outcomes) {
+            process.stdout.write(`${terminalRunReport(outcome.runDir)}\n`);
+            for (const warning of outcome.warnings) process.stderr.write(`${formatIssue(warning)}\n`);
+          }
+        }
+        if (controller.signal.aborted) {
+          process.stderr.write('interrupted: a checkpoint and the outputs so far are written; continue with --resume\n');
+          process.exitCode = 130;
+        }
+      } finally {
+        if (bar && barStarted) bar.stop();
+        process.off('SIGINT', stop);
+        process.off('SIGTERM', stop);
+      }
+    });
+}

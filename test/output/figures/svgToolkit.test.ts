@@ -1,0 +1,170 @@
+import { describe, expect, it } from 'vitest';
+import {
+  bandPathData,
+  circleMarkersPathData,
+  createAxisScale,
+  decimateMinMax,
+  drawAxes,
+  drawLegend,
+  errorBarsPathData,
+  escapeXml,
+  linePathData,
+  mixWithWhite,
+  multiPolygonPathData,
+  OKABE_ITO_COLORS,
+  seriesColor,
+  svgDocument,
+  svgElement,
+} from '../../../src/output/figures/index.js';
+import { findAll, hasClass, parseXml, textContent } from './xmlTree.js';
+
+describe('parseXml (test helper)', () => {
+  it('rejects what XML 1.0 forbids, so the figure checks below can fail', () => {
+    expect(() => parseXml('<a><b></a></b>')).toThrow(/does not match/);
+    expect(() => parseXml('<a x="1" x="2"/>')).toThrow(/duplicate/);
+    expect(() => parseXml('<a>1 < 2</a>')).toThrow();
+    expect(() => parseXml('<a>AT&T</a>')).toThrow(/entity/);
+    expect(() => parseXml('<a>&nbsp;</a>')).toThrow(/unknown entity/);
+    expect(() => parseXml('<a/><b/>')).toThrow(/second root/);
+    expect(parseXml('<a t="&lt;&#937;">x<b/>y</a>').attributes.t).toBe('<Ω');
+  });
+});
+
+describe('escapeXml', () => {
+  it('escapes the five XML special characters (W3C XML 1.0, section 2.4)', () => {
+    expect(escapeXml(`a < b & "c" 'd' > e`)).toBe('a &lt; b &amp; &quot;c&quot; &#39;d&#39; &gt; e');
+  });
+  it('replaces control characters that XML 1.0 forbids (section 2.2) by U+FFFD', () => {
+    expect(escapeXml('bell\u0007tab\tnewline\n')).toBe('bell\uFFFDtab\tnewline\n');
+    expect(() => parseXml(`<t>${escapeXml('x\u0000y & <z>')}</t>`)).not.toThrow();
+  });
+});
+
+describe('svgElement', () => {
+  it('writes numbers as pixels with two decimals, escapes values and drops absent attributes', () => {
+    expect(svgElement('rect', { x: 1.23456, y: -0.001, width: 10, fill: 'a"b', stroke: undefined, hidden: false })).toBe('<rect x="1.23" y="0" width="10" fill="a&quot;b"/>');
+    expect(svgElement('text', { x: Number.NaN }, 'Ω')).toBe('<text x="0">Ω</text>');
+  });
+});
+
+describe('createAxisScale', () => {
+  it('maps a linear domain onto pixels, reversed for a y axis', () => {
+    const y = createAxisScale('linear', [0, 1], [250, 50]);
+    expect(y.toPx(0)).toBe(250);
+    expect(y.toPx(0.25)).toBe(200);
+  });
+  it('maps a log domain by log10: 1 is halfway between 0.1 and 10 (definition of a log scale)', () => {
+    const x = createAxisScale('log', [0.1, 10], [0, 200]);
+    expect(x.toPx(1)).toBeCloseTo(100, 12);
+    expect(x.toPx(Math.sqrt(10) / 10)).toBeCloseTo(50, 12);
+    expect(Number.isFinite(x.toPx(0))).toBe(false);
+  });
+  it('throws figure.bad_scale for an empty or non-positive log domain', () => {
+    expect(() => createAxisScale('linear', [1, 1], [0, 1])).toThrow(/linear axis/);
+    expect(() => createAxisScale('log', [0, 1], [0, 1])).toThrow(/positive/);
+  });
+});
+
+describe('path data', () => {
+  const x = createAxisScale('linear', [0, 10], [0, 100]);
+  const y = createAxisScale('linear', [0, 10], [100, 0]);
+
+  it('multiPolygonPathData closes every ring, drops the repeated GeoJSON end point and keeps holes as sub-paths', () => {
+    // RFC 7946 section 3.1.6: a ring's first and last positions are equal; interior rings are holes.
+    const square = [[0, 0], [10, 0], [10, 10], [0, 10], [0, 0]];
+    const hole = [[4, 4], [4, 6], [6, 6], [6, 4], [4, 4]];
+    const data = multiPolygonPathData({ type: 'MultiPolygon', coordinates: [[square, hole]] }, x, y);
+    expect(data).toBe('M0 100L100 100L100 0L0 0ZM40 60L40 40L60 40L60 60Z');
+    expect(multiPolygonPathData({ type: 'MultiPolygon', coordinates: [[[[0, 0], [1, 1]]]] }, x, y)).toBe('');
+  });
+
+  it('linePathData breaks the line at a non-finite value instead of drawing NaN', () => {
+    expect(linePathData([0, 1, 2, 3], [0, Number.NaN, 2, 3], x, y)).toBe('M0 100M20 80L30 70');
+  });
+
+  it('bandPathData goes out along the upper curve and back along the lower one', () => {
+    expect(bandPathData([0, 10], [1, 2], [3, 4], x, y)).toBe('M0 70L100 60L100 80L0 90Z');
+  });
+
+  it('errorBarsPathData draws y ± error and skips negative or non-finite errors', () => {
+    expect(errorBarsPathData([5, 6, 7], [5, 5, 5], [1, -1, Number.NaN], x, y)).toBe('M50 60V40');
+  });
+
+  it('circleMarkersPathData draws one closed pair of arcs per finite point', () => {
+    const data = circleMarkersPathData([5, Number.NaN], [5, 1], x, y, 2);
+    expect(data).toBe('M48 50a2 2 0 1 0 4 0a2 2 0 1 0 -4 0');
+  });
+});
+
+describe('drawAxes', () => {
+  it('draws tick labels, a real Ω in the axis title with a subscripted m', () => {
+    const frame = { leftPx: 60, topPx: 10, widthPx: 200, heightPx: 100, clipId: 'c' };
+    const scale = createAxisScale('linear', [0, 1], [60, 260]);
+    const svg = drawAxes(frame, { scale, ticks: [0, 0.5, 1, 2], tickLabels: ['0', '0.5', '1', '2'], label: '\\Omega_{\\rm m}' }, undefined);
+    const tree = parseXml(svg);
+    expect(findAll(tree, 'text', (node) => hasClass(node, 'tick-label')).map(textContent)).toEqual(['0', '0.5', '1']);
+    const title = findAll(tree, 'text', (node) => hasClass(node, 'axis-label'))[0];
+    expect(textContent(title)).toBe('Ωm');
+    const sub = findAll(title, 'tspan')[0];
+    expect(sub.text).toBe('m');
+    expect(Number(sub.attributes['baseline-shift'])).toBeLessThan(0);
+  });
+});
+
+describe('drawLegend', () => {
+  it('draws one entry per key and wraps a row legend at the given width', () => {
+    const entries = ['first run', 'second run', 'third run'].map((label, index) => ({ label, color: seriesColor(index), key: 'fill' as const }));
+    const column = drawLegend(entries, 0, 0);
+    expect(findAll(parseXml(column.svg), 'g', (node) => hasClass(node, 'legend-entry'))).toHaveLength(3);
+    const row = drawLegend(entries, 0, 0, { direction: 'row', maxWidthPx: 150 });
+    expect(row.heightPx).toBeGreaterThan(drawLegend(entries, 0, 0, { direction: 'row' }).heightPx);
+    expect(drawLegend([], 0, 0)).toEqual({ svg: '', widthPx: 0, heightPx: 0 });
+  });
+});
+
+describe('palette', () => {
+  it('holds the Okabe & Ito (2008) colour-blind-safe hues', () => {
+    // Values published at https://jfly.uni-koeln.de/color/ (Okabe & Ito 2008), e.g. blue (0, 114, 178), vermillion (213, 94, 0).
+    expect(OKABE_ITO_COLORS.blue).toBe('#0072B2');
+    expect(OKABE_ITO_COLORS.vermillion).toBe('#D55E00');
+    expect(OKABE_ITO_COLORS.bluishGreen).toBe('#009E73');
+    expect(seriesColor(0)).toBe('#0072B2');
+    expect(seriesColor(7)).toBe(seriesColor(0));
+  });
+  it('mixWithWhite moves each channel linearly towards 255', () => {
+    expect(mixWithWhite('#000000', 0.5)).toBe('#808080');
+    expect(mixWithWhite('#0072B2', 0)).toBe('#0072b2');
+    expect(mixWithWhite('#0072B2', 1)).toBe('#ffffff');
+  });
+});
+
+describe('decimateMinMax', () => {
+  it('keeps each bucket extreme values in order', () => {
+    const kept = decimateMinMax(Float64Array.of(0, 5, 1, 2, -3, 4), 4);
+    expect(Array.from(kept.index)).toEqual([0, 1, 4, 5]);
+    expect(Array.from(kept.value)).toEqual([0, 5, -3, 4]);
+  });
+  it('returns a short series whole, without its non-finite values', () => {
+    expect(Array.from(decimateMinMax([1, Number.NaN, 3], 10).value)).toEqual([1, 3]);
+  });
+  it('keeps the global minimum and maximum of a long series', () => {
+    const values = Float64Array.from({ length: 10_000 }, (_, index) => Math.sin(index / 50));
+    values[7777] = 9;
+    values[1234] = -9;
+    const kept = decimateMinMax(values, 200);
+    expect(kept.value.length).toBeLessThanOrEqual(200);
+    expect(Math.max(...kept.value)).toBe(9);
+    expect(Math.min(...kept.value)).toBe(-9);
+  });
+});
+
+describe('svgDocument', () => {
+  it('is a standalone SVG with namespace, viewBox, title and a white page', () => {
+    const tree = parseXml(svgDocument(120, 80, 'a < b', [], []));
+    expect(tree.name).toBe('svg');
+    expect(tree.attributes.xmlns).toBe('http://www.w3.org/2000/svg');
+    expect(tree.attributes.viewBox).toBe('0 0 120 80');
+    expect(findAll(tree, 'title')[0].text).toBe('a < b');
+    expect(findAll(tree, 'rect')[0].attributes.fill).toBe('#ffffff');
+  });
+});
