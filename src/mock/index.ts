@@ -1,0 +1,17 @@
+// mock: drawing mock supernova surveys from a known truth. May import errors, math, data, standardize, cosmology.
+// the survey design
+export type { MockSampleDesign } from './mockSurveyOptions.js';
+export type { MockSurveyOptions } from './mockSurveyOptions.js';
+export type { MockTruth } from './mockSurveyOptions.js';
+export type { LinearErrorModel } from './mockSurveyOptions.js';
+// drawing
+export { generateMockSurvey } from './generateMockSurvey.js';
+export type { MockSurvey } from './generateMockSurvey.js';
+export { drawRedshifts } from './drawRedshifts.js';
+export { REDSHIFT_GRID_POINTS } from './drawRedshifts.js';
+export { lightCurveErrors } from './lightCurveErrors.js';
+export { errorAtRedshift } from './lightCurveErrors.js';
+export type { LightCurveErrors } from './lightCurveErrors.js';
+export { systematicCovariance } from './systematicCovariance.js';
+// expectations
+export { expectedResidualVariance } from './expectedResidualVariance.js';

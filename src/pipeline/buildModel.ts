@@ -1,0 +1,98 @@
+import type { CandelaConfig } from '../config/index.js';
+import { derivedForModel, parametersForModel } from '../config/index.js';
+import { createPosterior, createSupernovaTerm, type Posterior, type SupernovaTerm } from '../likelihood/index.js';
+import type { DarkEnergyLaw } from '../cosmology/index.js';
+import type { LogProbabilityModel } from '../sampler/index.js';
+import { createDerivedParameters } from './derivedParameters.js';
+import type { LoadedSupernovae } from './loadSupernovae.js';
+
+/** Photon temperature and neutrino species when a model includes radiation (the cosmology layer's convention). */
+const CMB_TEMPERATURE_K = 2.7255;
+const EFFECTIVE_NEUTRINO_SPECIES = 3.046;
+
+/** Blob layout of every stored sample: log prior, log likelihood, then the derived quantities. */
+export const BLOB_LOG_PRIOR = 0;
+export const BLOB_LOG_LIKELIHOOD = 1;
+export const BLOB_FIRST_DERIVED = 2;
+
+/** One model of a configuration, ready to sample. */
+export interface BuiltModel {
+  label: string;
+  posterior: Posterior;
+  supernovae: SupernovaTerm;
+  /** Sampled parameter names, in theta order. */
+  parameterNames: string[];
+  /** Fixed parameter values. */
+  fixed: Record<string, number>;
+  /** Priors of the sampled parameters, as configured. */
+  priors: Array<{ name: string; prior: ReturnType<typeof parametersForModel>['free'][number]['prior'] }>;
+  /** Derived quantity names, in blob order. */
+  derivedNames: string[];
+  /** The FLRW family of the model. */
+  cosmologyModel: { darkEnergy: DarkEnergyLaw; flat: boolean; radiation: boolean };
+  /** Sample label per supernova (table order). */
+  samples: readonly string[];
+  /** The sampler's view: log posterior plus blobs. */
+  logProbability: LogProbabilityModel;
+}
+
+/**
+ * Builds the posterior of model `modelIndex`: the supernova likelihood term
+ * (today the only term; external distance terms will be further entries in
+ * `terms`) and the priors, and wraps it as the sampler's log-probability model
+ * whose blobs are [log prior, log likelihood, derived...].
+ */
+export function buildModel(config: CandelaConfig, modelIndex: number, data: LoadedSupernovae): BuiltModel {
+  const model = config.models[modelIndex];
+  const { free, fixed } = parametersForModel(config, modelIndex, data.table.sampleNames);
+  const standardization = config.standardization;
+  const supernovae = createSupernovaTerm({
+    name: 'supernovae',
+    table: data.table,
+    covariances: data.covariances,
+    cosmologyModel: {
+      darkEnergy: model.darkEnergy,
+      flat: model.curvature === 'flat',
+      cmbTemperatureK: model.radiation ? CMB_TEMPERATURE_K : 0,
+      effectiveNeutrinoSpecies: EFFECTIVE_NEUTRINO_SPECIES,
+    },
+    standardization: {
+      massStep: { ...standardization.hostMassStep },
+      scatter: {
+        lensingPerRedshift: standardization.scatter.lensingPerRedshift,
+        peculiarVelocityKmPerS: standardization.scatter.peculiarVelocityKmPerS,
+        includeRedshiftErrors: standardization.scatter.redshiftErrors,
+      },
+      intrinsicScatter: standardization.scatter.intrinsic,
+      alphaBetaCovariance: standardization.alphaBetaCovariance,
+      frozenAt: standardization.frozenAt ?? undefined,
+    },
+    offset: standardization.offset,
+    fixed,
+  });
+  const posterior = createPosterior({ free, fixed, terms: [supernovae] });
+  const derivedNames = derivedForModel(config, modelIndex).filter((name) => !(name === 'omega_de' && model.curvature === 'free'));
+  const fillDerived = createDerivedParameters(
+    { darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', radiation: model.radiation, referenceH0KmPerSPerMpc: config.referenceH0KmPerSPerMpc },
+    derivedNames,
+  );
+  const parts = { logPrior: 0, logLikelihood: 0 };
+  const blobCount = BLOB_FIRST_DERIVED + derivedNames.length;
+  const logProbability: LogProbabilityModel = {
+    dimension: posterior.dimension,
+    blobCount,
+    evaluate(theta, blobs, offset) {
+      const logPosterior = posterior.evaluate(theta, parts);
+      if (!Number.isFinite(logPosterior)) {
+        blobs.fill(0, offset, offset + blobCount);
+        return -Infinity;
+      }
+      blobs[offset + BLOB_LOG_PRIOR] = parts.logPrior;
+      blobs[offset + BLOB_LOG_LIKELIHOOD] = parts.logLikelihood;
+      if (derivedNames.length > 0) fillDerived(posterior.values(theta), blobs, offset + BLOB_FIRST_DERIVED);
+      return logPosterior;
+    },
+  };
+  return {
+    label: model.label, posterior, cosmologyModel: { darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', radiation: model.radiation }, samples: data.table.samples, supernovae, parameterNames: [...posterior.names], fixed, priors: free, derivedNames, logProbability };
+}

@@ -1,0 +1,222 @@
+import { parseParameterName } from '../config/index.js';
+import type { CovarianceMatrix } from '../data/index.js';
+import { CandelaError } from '../errors.js';
+import { createSupernovaTerm } from '../likelihood/index.js';
+import type { SupernovaTerm, SupernovaTermOptions } from '../likelihood/index.js';
+import type { MockSurvey } from '../mock/index.js';
+import { covarianceInformation } from './forecastCovarianceInformation.js';
+import { centralDifferenceHessian } from './forecastHessian.js';
+import { marginalizeFisher } from './forecastMarginals.js';
+import type { FisherMarginals } from './forecastMarginals.js';
+import type { ForecastSetup } from './forecastSetups.js';
+
+/**
+ * Pilot step of the finite differences, relative to max(1, |value|): small
+ * enough to stay in the quadratic region of any parameter, large enough
+ * that rounding of ln L (~1e-13 absolute) is negligible.
+ */
+export const PILOT_RELATIVE_STEP = 1e-4;
+/** Final step of parameter i: this fraction of its conditional error 1/sqrt(F_ii) from the pilot pass. */
+export const STEP_FRACTION_OF_SIGMA = 0.1;
+/**
+ * Step of the variance derivatives, relative to max(1, |value|): the
+ * variances are quadratic in alpha, beta and sigma_int, so central
+ * differences are exact for any step; this one keeps rounding near 1e-13.
+ */
+const VARIANCE_RELATIVE_STEP = 1e-3;
+/** Largest relative disagreement of ln det C between the likelihood and the matrix assembled here before it is a bug. */
+const LOG_DETERMINANT_AGREEMENT = 1e-8;
+/** Photon temperature and neutrino species when a model includes radiation (as in buildModel). */
+const CMB_TEMPERATURE_K = 2.7255;
+const EFFECTIVE_NEUTRINO_SPECIES = 3.046;
+
+/** The forecast of one model. */
+export interface ModelForecast {
+  label: string;
+  darkEnergy: ForecastSetup['darkEnergy'];
+  flat: boolean;
+  /** Free parameters, in matrix order. */
+  parameters: string[];
+  /** Their values at the truth. */
+  truth: number[];
+  fixed: Record<string, number>;
+  /** Finite-difference steps of the mean part, per parameter (0 for parameters that shape only the covariance). */
+  steps: number[];
+  /** Fisher matrix including the Gaussian priors, row major. */
+  fisher: Float64Array;
+  marginals: FisherMarginals;
+  /** Gaussian priors added to the diagonal as 1/sd^2. */
+  priors: Array<{ name: string; sd: number }>;
+  /** Parameters whose effect on the covariance adds information (1/2 tr(C^-1 C_i C^-1 C_j)). */
+  covarianceParameters: string[];
+  /** chi^2 of the noise-free survey at the evaluation point (0 when the model reproduces the truth). */
+  chiSquareAtTruth: number;
+  /** Largest relative change of a marginal error (and of the figure of merit) when every step is halved. */
+  halvedStepChange: number;
+  notes: string[];
+}
+
+/**
+ * The Fisher forecast of one setup on a noise-free survey (Tegmark, Taylor &
+ * Heavens 1997, ApJ 480, 22): for Gaussian data with mean mu(theta) and
+ * covariance C(theta),
+ *
+ *   F_ij = mu_,i^T C^-1 mu_,j + 1/2 tr(C^-1 C_,i C^-1 C_,j)      (TTH97 eq. 15)
+ *
+ * The first (mean) part is -d^2 ln L / d theta_i d theta_j of the same
+ * supernova likelihood the fit uses, on the noise-free table, with C held at
+ * its value at the truth: on expected data the residual vanishes at the truth,
+ * so this curvature equals mu_,i^T C^-1 mu_,j exactly. It is computed by
+ * central differences (centralDifferenceHessian) with step rule: a pilot pass
+ * with h = PILOT_RELATIVE_STEP max(1, |theta_i|) gives F_ii, then
+ * h_i = STEP_FRACTION_OF_SIGMA / sqrt(F_ii); stability is checked by halving
+ * every step. The second part is added for parameters that change the
+ * variances (alpha and beta when the covariance follows them, sigma_int),
+ * from the likelihood's own variances (covarianceInformation). (The curvature
+ * of ln det C on noise-free data alone is not this expectation and can even be
+ * negative for sigma_int.) Gaussian priors add 1/sd^2 to the diagonal.
+ * Cost: one N x N factorization, ~2 P^2 likelihood evaluations of O(N^2) per
+ * step set, and O(N^3) once when the covariance part is needed.
+ * @param setup the model, free parameters with their truths, fixed values, standardization.
+ * @param mock the noise-free survey (generateMockSurvey with noiseless).
+ * @throws CandelaError when the likelihood is not finite near the truth, a parameter carries no information, or F is degenerate.
+ * @example fisherForecast(forecastSetups(survey, null, labels)[0], drawSurvey(survey, '1', true)).marginals.figureOfMerit
+ */
+export function fisherForecast(setup: ForecastSetup, mock: MockSurvey): ModelForecast {
+  const { table } = mock;
+  const n = table.count;
+  const covariances: CovarianceMatrix[] = mock.systematicCovariance
+    ? [{ target: 'magnitudes', size: n, values: mock.systematicCovariance, sourceFile: 'mock systematic covariance' }] : [];
+  const names = setup.free.map((p) => p.name);
+  const atTruth: Record<string, number> = { ...setup.fixed };
+  for (const p of setup.free) atTruth[p.name] = p.value;
+  const std = setup.standardization;
+  const frozenAt = std.alphaBetaCovariance === 'frozen' && std.frozenAt ? std.frozenAt : { alpha: atTruth.alpha, beta: atTruth.beta };
+  const base: Omit<SupernovaTermOptions, 'standardization' | 'fixed'> = {
+    // Exact paths only (the compressed one trades 1e-7 in chi^2 for speed, which finite differences would amplify).
+    name: 'forecast', table, covariances, offset: 'sample', fastPath: mock.systematicCovariance ? 'general' : 'diagonal',
+    cosmologyModel: { darkEnergy: setup.darkEnergy, flat: setup.flat, cmbTemperatureK: setup.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: EFFECTIVE_NEUTRINO_SPECIES },
+  };
+  const shapesOnlyCovariance = (name: string): boolean => parseParameterName(name)?.base === 'sigma_int';
+  const meanNames = names.filter((name) => !shapesOnlyCovariance(name));
+  const pinned = Object.fromEntries(Object.entries(atTruth).filter(([name]) => !meanNames.includes(name)));
+  const meanTerm = createSupernovaTerm({ ...base, standardization: { ...std, alphaBetaCovariance: 'frozen', frozenAt }, fixed: pinned });
+  const point: Record<string, number> = { ...atTruth };
+  const meanValues = (theta: Float64Array): Record<string, number> => {
+    for (let i = 0; i < meanNames.length; i++) point[meanNames[i]] = theta[i];
+    return point;
+  };
+  const minusLogLikelihood = (theta: Float64Array): number => -meanTerm.logLikelihood(meanValues(theta));
+  const reason = (theta: Float64Array): string | null => meanTerm.rejectionReason(meanValues(theta));
+  const center = Float64Array.from(meanNames, (name) => atTruth[name]);
+  const steps = chooseSteps(minusLogLikelihood, center, meanNames, reason);
+  const halved = steps.map((h) => h / 2);
+  const meanFisher = centralDifferenceHessian(minusLogLikelihood, center, steps, meanNames, reason);
+  const meanFisherHalved = centralDifferenceHessian(minusLogLikelihood, center, halved, meanNames, reason);
+
+  const covariancePart = covarianceFisher(() => createSupernovaTerm({ ...base, standardization: std, fixed: setup.fixed }), atTruth, names, mock.systematicCovariance, n);
+  const priors = setup.free
+    .filter((p) => p.prior && (p.prior.kind === 'gaussian' || p.prior.kind === 'truncated_gaussian'))
+    .map((p) => ({ name: p.name, sd: (p.prior as { sd: number }).sd }));
+  const size = names.length;
+  const assemble = (mean: Float64Array): Float64Array => {
+    const fisher = new Float64Array(size * size);
+    const meanIndex = meanNames.map((name) => names.indexOf(name));
+    meanIndex.forEach((i, a) => meanIndex.forEach((j, b) => { fisher[i * size + j] += mean[a * meanNames.length + b]; }));
+    const covIndex = covariancePart.names.map((name) => names.indexOf(name));
+    covIndex.forEach((i, a) => covIndex.forEach((j, b) => { fisher[i * size + j] += covariancePart.information[a * covIndex.length + b]; }));
+    for (const prior of priors) fisher[names.indexOf(prior.name) * (size + 1)] += 1 / (prior.sd * prior.sd);
+    return fisher;
+  };
+  const fisher = assemble(meanFisher);
+  const marginals = marginalizeFisher(fisher, names);
+  const check = marginalizeFisher(assemble(meanFisherHalved), names);
+  let halvedStepChange = 0;
+  for (let i = 0; i < size; i++) halvedStepChange = Math.max(halvedStepChange, Math.abs(check.sigma[i] / marginals.sigma[i] - 1));
+  if (marginals.figureOfMerit !== null && check.figureOfMerit !== null) {
+    halvedStepChange = Math.max(halvedStepChange, Math.abs(check.figureOfMerit / marginals.figureOfMerit - 1));
+  }
+  return {
+    label: setup.label, darkEnergy: setup.darkEnergy, flat: setup.flat, parameters: names, truth: setup.free.map((p) => p.value),
+    fixed: { ...setup.fixed }, steps: names.map((name) => (meanNames.includes(name) ? steps[meanNames.indexOf(name)] : 0)),
+    fisher, marginals, priors, covarianceParameters: covariancePart.names,
+    chiSquareAtTruth: meanTerm.bestFitExtras?.(atTruth).chi_square ?? Number.NaN,
+    halvedStepChange, notes: [...setup.notes, ...priorLimitNotes(setup, marginals)],
+  };
+}
+
+/** The step rule: a pilot diagonal pass, then a tenth of each conditional error. */
+function chooseSteps(
+  f: (theta: Float64Array) => number, center: Float64Array, names: readonly string[], reason: (theta: Float64Array) => string | null,
+): Float64Array {
+  const pilot = Float64Array.from(center, (value) => PILOT_RELATIVE_STEP * Math.max(1, Math.abs(value)));
+  const steps = new Float64Array(center.length);
+  for (let i = 0; i < center.length; i++) {
+    const curvature = centralDifferenceHessian((x) => f(withOne(center, i, x[0])), Float64Array.of(center[i]), Float64Array.of(pilot[i]), [names[i]], (x) => reason(withOne(center, i, x[0])))[0];
+    if (!(curvature > 0)) {
+      throw new CandelaError({
+        code: 'forecast.unconstrained', path: names[i],
+        message: `the survey carries no information on ${names[i]} (curvature of ln L ${curvature.toPrecision(3)} at the truth)`,
+        fix: `fix ${names[i]} or give it a Gaussian prior in the fit configuration`,
+      });
+    }
+    steps[i] = STEP_FRACTION_OF_SIGMA / Math.sqrt(curvature);
+  }
+  return steps;
+}
+
+function withOne(center: Float64Array, index: number, value: number): Float64Array {
+  const copy = Float64Array.from(center);
+  copy[index] = value;
+  return copy;
+}
+
+/** The covariance part of F for the parameters that move the variances of the fit's likelihood. */
+function covarianceFisher(
+  createTerm: () => SupernovaTerm, atTruth: Record<string, number>, names: readonly string[], systematic: Float64Array | null, n: number,
+): { names: string[]; information: Float64Array } {
+  // The inputs of the supernova covariance model: alpha, beta (light-curve errors) and sigma_int.
+  const candidates = names.filter((name) => ['alpha', 'beta', 'sigma_int'].includes(parseParameterName(name)?.base ?? ''));
+  if (candidates.length === 0) return { names: [], information: new Float64Array(0) };
+  const term = createTerm();
+  const variances = (p: Record<string, number>): Float64Array => Float64Array.from(term.hubbleDiagram(p).distanceModulusErrorMag, (s) => s * s);
+  const used: string[] = [];
+  const derivatives: Float64Array[] = [];
+  for (const name of candidates) {
+    const h = VARIANCE_RELATIVE_STEP * Math.max(1, Math.abs(atTruth[name]));
+    const plus = variances({ ...atTruth, [name]: atTruth[name] + h });
+    const minus = variances({ ...atTruth, [name]: atTruth[name] - h });
+    const derivative = Float64Array.from(plus, (value, a) => (value - minus[a]) / (2 * h));
+    if (derivative.some((value) => value !== 0)) {
+      used.push(name);
+      derivatives.push(derivative);
+    }
+  }
+  if (used.length === 0) return { names: used, information: new Float64Array(0) };
+  const v0 = variances(atTruth);
+  const covariance = new Float64Array(n * n);
+  let systematicIsDiagonal = true;
+  if (systematic) for (let a = 0; a < n && systematicIsDiagonal; a++) for (let b = 0; b < n; b++) if (a !== b && systematic[a * n + b] !== 0) { systematicIsDiagonal = false; break; }
+  if (systematic && !systematicIsDiagonal) covariance.set(systematic);
+  for (let a = 0; a < n; a++) covariance[a * n + a] += v0[a];
+  const { information, logDeterminant } = covarianceInformation(covariance, n, derivatives);
+  const expected = term.bestFitExtras?.(atTruth).log_det_covariance ?? logDeterminant;
+  if (!(Math.abs(expected - logDeterminant) <= LOG_DETERMINANT_AGREEMENT * Math.max(1, Math.abs(expected)))) {
+    throw new Error(`forecast: the covariance assembled for the Fisher matrix (ln det ${logDeterminant}) disagrees with the likelihood's (${expected})`);
+  }
+  return { names: used, information };
+}
+
+/** Notes for bounded priors that a +-2 sigma interval would cross (the fit is then prior-limited there). */
+function priorLimitNotes(setup: ForecastSetup, marginals: FisherMarginals): string[] {
+  const notes: string[] = [];
+  setup.free.forEach((p, i) => {
+    const prior = p.prior;
+    if (!prior || !('min' in prior)) return;
+    const sigma = marginals.sigma[i];
+    if (p.value - 2 * sigma < prior.min || p.value + 2 * sigma > prior.max) {
+      notes.push(`${p.name}: the 2-sigma interval ${(p.value - 2 * sigma).toPrecision(3)}..${(p.value + 2 * sigma).toPrecision(3)} crosses the prior bounds ${prior.min}..${prior.max}; the fit will be prior-limited there`);
+    }
+  });
+  return notes;
+}

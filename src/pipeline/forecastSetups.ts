@@ -1,0 +1,146 @@
+import type { CandelaConfig, PriorSpec, SurveyDescription } from '../config/index.js';
+import { PARAMETER_ORDER, parametersForModel, parseParameterName } from '../config/index.js';
+import type { DarkEnergyLaw } from '../cosmology/index.js';
+import { CandelaError } from '../errors.js';
+import type { SupernovaTermOptions } from '../likelihood/index.js';
+
+/** Relative difference below which a fixed value counts as equal to the truth (rounding of a value typed in two files). */
+const SAME_VALUE_TOLERANCE = 1e-9;
+
+/** One free parameter of a forecast: its value at the truth and its prior, if it has one. */
+export interface ForecastParameter {
+  name: string;
+  /** The truth (abs_mag shifted to the fixed h0, see forecastSetups). */
+  value: number;
+  /** The prior from the fit configuration, or null (default setup, or a marginalized offset). */
+  prior: PriorSpec | null;
+}
+
+/** The likelihood and parameter set of one forecast (one model). */
+export interface ForecastSetup {
+  label: string;
+  darkEnergy: DarkEnergyLaw;
+  flat: boolean;
+  radiation: boolean;
+  standardization: SupernovaTermOptions['standardization'];
+  free: ForecastParameter[];
+  /** Values held fixed, by parameter name. */
+  fixed: Record<string, number>;
+  /** What the reader of the forecast should know (differences from the truth, changed settings). */
+  notes: string[];
+}
+
+/**
+ * The forecast setups: without a fit configuration, one model, w0waCDM (flat,
+ * or with free curvature when the truth is curved) with omega_m, w0, wa,
+ * abs_mag, alpha, beta and mass_step free (no priors), h0 and sigma_int
+ * fixed at the truth, and the survey's own scatter terms; with a fit
+ * configuration, one setup per model, with its free parameters, priors,
+ * fixed values and standardization. The mock has no calibrators, so a free
+ * h0 is fixed at the truth; the offset is always a parameter (a
+ * marginalized offset becomes abs_mag with a flat prior, which gives the
+ * same marginal errors for the others in the Fisher approximation). abs_mag
+ * is evaluated at M + 5 log10(h0_fixed / h0_true), the value that gives the
+ * same magnitudes when h0 is fixed elsewhere than the truth. Cost O(models x parameters).
+ * @param survey the survey description (the truth).
+ * @param config the fit configuration, or null for the default setup.
+ * @param sampleLabels the mock's sample labels (for per-sample parameters).
+ * @throws CandelaError `forecast.unsupported` for the hierarchical method, magnitude data or a parameter without a truth.
+ * @example forecastSetups(survey, null, ['harbor'])[0].free.map((p) => p.name) // ['omega_m', 'w0', 'wa', 'abs_mag', 'alpha', 'beta', 'mass_step']
+ */
+export function forecastSetups(survey: SurveyDescription, config: CandelaConfig | null, sampleLabels: readonly string[]): ForecastSetup[] {
+  const truth = survey.truth;
+  if (!config) {
+    const curved = truth.curvature === 'free';
+    const names = ['omega_m', ...(curved ? ['omega_de'] : []), 'w0', 'wa', 'abs_mag', 'alpha', 'beta', 'mass_step'];
+    const fixed = { h0: truth.h0KmPerSPerMpc, sigma_int: truth.sigmaIntMag };
+    return [{
+      label: `${curved ? 'curved' : 'flat'}_w0wa`, darkEnergy: 'cpl', flat: !curved, radiation: false,
+      standardization: {
+        massStep: { enabled: true, splitLogMass: truth.splitLogMass, shape: 'sharp', widthDex: 0.1 },
+        scatter: { lensingPerRedshift: survey.lensingPerRedshift, peculiarVelocityKmPerS: survey.peculiarVelocityKmPerS, includeRedshiftErrors: false },
+        intrinsicScatter: 'global', alphaBetaCovariance: 'exact',
+      },
+      free: names.map((name) => ({ name, value: truthValue(survey, name, fixed.h0) as number, prior: null })),
+      fixed,
+      notes: ['no fit configuration given: default parameter set (h0 and sigma_int fixed at the truth, no priors)'],
+    }];
+  }
+  const unsupported = (path: string, message: string, fix: string): CandelaError =>
+    new CandelaError({ code: 'forecast.unsupported', file: config.source.file.written, path, message, fix });
+  if (config.standardization.method === 'hierarchical') {
+    throw unsupported('standardization.method', 'the forecast supports the conventional Tripp standardization only', 'use a configuration with method: conventional for the forecast');
+  }
+  if (!config.supernovae.some((set) => set.kind === 'light_curves')) {
+    throw unsupported('supernovae', 'the fit configuration reads standardized magnitudes, but the mock survey holds light-curve parameters', 'give a fit configuration with kind: light_curves');
+  }
+  return config.models.map((model, index) => {
+    const { free, fixed } = parametersForModel(config, index, sampleLabels);
+    const notes: string[] = [];
+    const standardization = config.standardization;
+    let entries = free.map((entry) => ({ name: entry.name, prior: entry.prior as PriorSpec | null }));
+    if (entries.some((entry) => entry.name === 'h0')) {
+      entries = entries.filter((entry) => entry.name !== 'h0');
+      fixed.h0 = truth.h0KmPerSPerMpc;
+      notes.push('h0 is held at the truth: the mock has no calibrators, so h0 and abs_mag are degenerate');
+    }
+    if (standardization.offset === 'marginalize') {
+      entries.push({ name: 'abs_mag', prior: null });
+      notes.push('abs_mag is marginalized in the fit; here it is a free parameter with a flat prior, which gives the same marginal errors for the others');
+    }
+    const rank = (name: string): number => PARAMETER_ORDER.indexOf(parseParameterName(name)?.base ?? name);
+    entries.sort((a, b) => rank(a.name) - rank(b.name));
+    const h0 = fixed.h0 ?? truth.h0KmPerSPerMpc;
+    const parameters = entries.map((entry) => {
+      const value = truthValue(survey, entry.name, h0);
+      if (value === null) throw unsupported(`parameters.${entry.name}`, `the survey truth has no value for ${entry.name}`, `fix ${entry.name} in the fit configuration`);
+      return { name: entry.name, value, prior: entry.prior };
+    });
+    for (const [name, value] of Object.entries(fixed)) {
+      const expected = name === 'h0' ? truth.h0KmPerSPerMpc : truthValue(survey, name, h0);
+      if (expected === null || Math.abs(value - expected) <= SAME_VALUE_TOLERANCE * Math.max(1, Math.abs(expected))) continue;
+      notes.push(name === 'h0'
+        ? `h0 is fixed at ${value} (truth ${expected}): abs_mag is evaluated at M + 5 log10(${value}/${expected}), which gives the same magnitudes`
+        : `${name} is fixed at ${value} but the truth is ${expected}: the model cannot reproduce the survey exactly, and real fits would be biased`);
+    }
+    if (!standardization.hostMassStep.enabled && truth.massStepMag !== 0) notes.push(`the fit has no host-mass step, but the truth has mass_step = ${truth.massStepMag}`);
+    if (model.radiation) notes.push('the model includes radiation, the mock truth does not (a difference of order 1e-4 in distances)');
+    return {
+      label: model.label, darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', radiation: model.radiation,
+      standardization: {
+        massStep: { ...standardization.hostMassStep },
+        scatter: {
+          lensingPerRedshift: standardization.scatter.lensingPerRedshift,
+          peculiarVelocityKmPerS: standardization.scatter.peculiarVelocityKmPerS,
+          includeRedshiftErrors: standardization.scatter.redshiftErrors,
+        },
+        intrinsicScatter: standardization.scatter.intrinsic,
+        alphaBetaCovariance: standardization.alphaBetaCovariance,
+        frozenAt: standardization.frozenAt ?? undefined,
+      },
+      free: parameters, fixed, notes,
+    };
+  });
+}
+
+/**
+ * The truth of a parameter, by name, or null when the survey has none.
+ * abs_mag refers to H0 = `h0`: M + 5 log10(h0 / h0_true).
+ */
+function truthValue(survey: SurveyDescription, name: string, h0: number): number | null {
+  const t = survey.truth;
+  const base = parseParameterName(name)?.base;
+  switch (base) {
+    case 'omega_m': return t.omegaMatter;
+    case 'omega_de': return t.omegaDarkEnergy ?? 1 - t.omegaMatter;
+    case 'w0': return t.w0;
+    case 'wa': return t.wa;
+    case 'h0': return t.h0KmPerSPerMpc;
+    case 'alpha': return t.alpha;
+    case 'beta': return t.beta;
+    case 'abs_mag': return t.absMagMag + 5 * Math.log10(h0 / t.h0KmPerSPerMpc);
+    case 'mass_step': return t.massStepMag;
+    case 'sigma_int': return t.sigmaIntMag;
+    default: return null;
+  }
+}

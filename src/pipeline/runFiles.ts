@@ -1,0 +1,47 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { CandelaError } from '../errors.js';
+import { readChainsFile, type ChainTable } from './chainsFile.js';
+import { RUN_FILES } from './runFolder.js';
+import type { RunRecord } from './runRecord.js';
+
+/** A finished run folder read back: what `candela report` works from. */
+export interface RunOnDisk {
+  dir: string;
+  record: RunRecord;
+  chains: ChainTable;
+  hubble: { columns: Record<string, string[]> } | null;
+  hubbleModel: Record<string, Float64Array> | null;
+}
+
+function readCsvColumns(path: string): Record<string, string[]> | null {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch {
+    return null;
+  }
+  const lines = text.trim().split('\n');
+  const header = lines[0].split(',');
+  const columns: Record<string, string[]> = Object.fromEntries(header.map((name) => [name, [] as string[]]));
+  for (let i = 1; i < lines.length; i++) {
+    const parts = lines[i].split(',');
+    header.forEach((name, k) => columns[name].push(parts[k] ?? ''));
+  }
+  return columns;
+}
+
+/** Reads run.json, chains.csv and the Hubble-diagram files of a run folder. */
+export function readRunFolder(dir: string): RunOnDisk {
+  let record: RunRecord;
+  try {
+    record = JSON.parse(readFileSync(join(dir, RUN_FILES.run), 'utf8')) as RunRecord;
+  } catch {
+    throw new CandelaError({ code: 'run.no_record', file: join(dir, RUN_FILES.run), message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
+  }
+  const chains = readChainsFile(join(dir, RUN_FILES.chains));
+  const hubble = readCsvColumns(join(dir, RUN_FILES.hubbleData));
+  const model = readCsvColumns(join(dir, RUN_FILES.hubbleModel));
+  const hubbleModel = model ? Object.fromEntries(Object.entries(model).map(([name, values]) => [name, Float64Array.from(values, Number)])) : null;
+  return { dir, record, chains, hubble: hubble ? { columns: hubble } : null, hubbleModel };
+}

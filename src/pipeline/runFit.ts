@@ -1,0 +1,183 @@
+import { existsSync, readFileSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { join } from 'node:path';
+import { loadConfigFile, resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
+import { CandelaError, type Issue } from '../errors.js';
+import { samplePrior } from '../likelihood/index.js';
+import {
+  createInProcessEvaluator, createWorkerPoolEvaluator, EnsembleSampler, initializeWalkers,
+  type BatchEvaluator, type SamplerSnapshot,
+} from '../sampler/index.js';
+import { writeFileAtomic } from '../output/index.js';
+import { decodeBinaryState, encodeBinaryState } from './binaryState.js';
+import { buildModel, type BuiltModel } from './buildModel.js';
+import { writeChainsFile } from './chainsFile.js';
+import { loadSupernovae, type LoadedSupernovae } from './loadSupernovae.js';
+import { prepareRunFolder, RUN_FILES } from './runFolder.js';
+import { checkConvergence, type ConvergenceCheck, type StopReason } from './samplingLoop.js';
+import { createRunRecord, type RunRecord } from './runRecord.js';
+import { writeHubbleFiles } from './hubbleFiles.js';
+import { buildRunOutputs } from './buildRunOutputs.js';
+import { workerModelUrl } from './workerModel.js';
+
+/** Steps advanced between looks at the stop signal and the clock (keeps Ctrl-C responsive). */
+const STEPS_PER_SLICE = 25;
+
+/** What the caller asks of `candela fit`. */
+export interface FitRequest {
+  configPath: string;
+  /** Replaces output.dir. */
+  outDir?: string;
+  force?: boolean;
+  resume?: boolean;
+  /** Replaces sampler.workers. */
+  workers?: number;
+  /** Set when the user interrupts (SIGINT, SIGTERM): checkpoint, write outputs so far, return. */
+  signal?: AbortSignal;
+  /** Progress after every slice of steps. */
+  onProgress?: (progress: FitProgress) => void;
+  /** Informational lines (what is being run, where outputs go). */
+  onLine?: (line: string) => void;
+}
+
+/** Progress of one model's sampling. */
+export interface FitProgress {
+  model: string;
+  step: number;
+  maxSteps: number;
+  elapsedSeconds: number;
+  check: ConvergenceCheck | null;
+  targetEss: number;
+}
+
+/** The result of one model's run. */
+export interface FitOutcome {
+  model: string;
+  runDir: string;
+  record: RunRecord;
+  /** Problems worth a warning (approximations in use, data warnings). */
+  warnings: Issue[];
+}
+
+/** Output folder of model `index`: the configured folder itself for one model, a subfolder per label for several. */
+export function runFolderFor(config: CandelaConfig, index: number, outDir?: string): string {
+  const base = outDir ?? config.output.dir.resolved;
+  return config.models.length === 1 ? base : join(base, config.models[index].label);
+}
+
+/**
+ * `candela fit`: validates the configuration and the data (any problem stops
+ * here, before a file is touched), then samples each model in turn into its
+ * run folder, checking convergence every `check_every` steps and writing an
+ * atomic checkpoint every `checkpoint_every` steps, and finally writes the
+ * chains and every derived output.
+ */
+export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
+  const config = loadConfigFile(request.configPath);
+  const data = loadSupernovae(config);
+  const models = config.models.map((_, index) => buildModel(config, index, data));
+  const folders = config.models.map((_, index) => runFolderFor(config, index, request.outDir));
+  for (const folder of folders) prepareRunFolder(folder, { force: Boolean(request.force), resume: Boolean(request.resume) });
+  const outcomes: FitOutcome[] = [];
+  for (let index = 0; index < models.length; index++) {
+    if (request.signal?.aborted) break;
+    outcomes.push(await fitOneModel(config, index, models[index], data, folders[index], request));
+  }
+  return outcomes;
+}
+
+function workerCount(config: CandelaConfig, request: FitRequest): number {
+  if (request.workers !== undefined) return request.workers;
+  return config.sampler.workers === 'auto' ? availableParallelism() : config.sampler.workers;
+}
+
+async function createEvaluator(config: CandelaConfig, index: number, model: BuiltModel, workers: number): Promise<BatchEvaluator> {
+  if (workers <= 1) return createInProcessEvaluator(model.logProbability);
+  return createWorkerPoolEvaluator({ moduleUrl: workerModelUrl(), exportName: 'createWorkerModel', init: { config, modelIndex: index } }, workers);
+}
+
+async function fitOneModel(config: CandelaConfig, index: number, model: BuiltModel, data: LoadedSupernovae, runDir: string, request: FitRequest): Promise<FitOutcome> {
+  const started = Date.now();
+  const settings = config.sampler;
+  const seed = String(config.seed);
+  const checkpointPath = join(runDir, RUN_FILES.checkpoint);
+  const say = request.onLine ?? (() => undefined);
+  const workers = workerCount(config, request);
+  say(`model ${model.label}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
+  for (const line of model.supernovae.describe()) say(`  ${line}`);
+  const evaluator = await createEvaluator(config, index, model, workers);
+  try {
+    let sampler: EnsembleSampler;
+    let previousSeconds = 0;
+    let evaluations = 0;
+    if (request.resume && existsSync(checkpointPath)) {
+      const saved = decodeBinaryState<{ snapshot: SamplerSnapshot; wallSeconds: number; evaluations: number }>(readFileSync(checkpointPath));
+      sampler = await EnsembleSampler.restore(saved.snapshot, evaluator);
+      previousSeconds = saved.wallSeconds;
+      evaluations = saved.evaluations;
+      say(`resuming from step ${sampler.stepCount}`);
+    } else {
+      const rejection = (theta: Float64Array) => model.posterior.rejectionReason(theta) ?? 'log posterior is -Infinity';
+      const start = await initializeWalkers({
+        walkers: settings.walkers,
+        ensembles: settings.ensembles,
+        seed,
+        sampleStart: (rng, out) => model.priors.forEach((entry, d) => { out[d] = samplePrior(entry.prior, rng); }),
+        describeRejection: rejection,
+      }, evaluator);
+      evaluations += start.optimizer.evaluations + settings.walkers * settings.ensembles;
+      sampler = await EnsembleSampler.start({
+        dimension: model.parameterNames.length, walkers: settings.walkers, ensembles: settings.ensembles, seed,
+        stretchScale: settings.stretchScale, differentialEvolutionWeight: settings.differentialEvolutionWeight,
+      }, evaluator, start.positions);
+    }
+    const stepsPerEvaluation = settings.walkers * settings.ensembles;
+    const saveCheckpoint = () => {
+      const seconds = previousSeconds + (Date.now() - started) / 1000;
+      writeFileAtomic(checkpointPath, encodeBinaryState({ snapshot: sampler.snapshot(), wallSeconds: seconds, evaluations }));
+    };
+    let stopReason: StopReason | null = null;
+    let check: ConvergenceCheck | null = null;
+    let lastCheckpoint = sampler.stepCount;
+    let lastCheck = sampler.stepCount - (sampler.stepCount % settings.checkEvery);
+    if (sampler.stepCount > 0) check = checkConvergence(sampler, settings);
+    if (check?.converged) stopReason = 'converged';
+    while (stopReason === null) {
+      if (request.signal?.aborted) { stopReason = 'interrupted'; break; }
+      const elapsed = previousSeconds + (Date.now() - started) / 1000;
+      if (elapsed > settings.maxMinutes * 60) { stopReason = 'wall_time'; break; }
+      if (sampler.stepCount >= settings.maxSteps) { stopReason = 'max_steps'; break; }
+      const slice = Math.min(STEPS_PER_SLICE, settings.maxSteps - sampler.stepCount, settings.checkEvery - (sampler.stepCount - lastCheck));
+      await sampler.advance(slice);
+      evaluations += slice * stepsPerEvaluation;
+      if (sampler.stepCount - lastCheck >= settings.checkEvery) {
+        lastCheck = sampler.stepCount;
+        check = checkConvergence(sampler, settings);
+        if (check.converged) stopReason = 'converged';
+      }
+      if (settings.checkpointEvery > 0 && sampler.stepCount - lastCheckpoint >= settings.checkpointEvery) {
+        saveCheckpoint();
+        lastCheckpoint = sampler.stepCount;
+      }
+      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps: settings.maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: settings.targetEss });
+    }
+    saveCheckpoint();
+    if (sampler.stepCount < 2 * 40) {
+      throw new CandelaError({ code: 'run.too_short', message: `the run stopped after ${sampler.stepCount} steps, too few to summarize`, fix: 'raise sampler.max_steps or sampler.max_minutes (or resume the run with --resume)' });
+    }
+    check = checkConvergence(sampler, settings);
+    const wallSeconds = previousSeconds + (Date.now() - started) / 1000;
+    const ensembles = Array.from({ length: settings.ensembles }, (_, k) => ({ ...sampler.chain(k) }));
+    writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps);
+    const record = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, sampler });
+    writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
+    writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
+    writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, seed);
+    buildRunOutputs([runDir], runDir);
+    say(`model ${model.label}: ${stopReason} after ${sampler.stepCount} steps in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
+    const warnings: Issue[] = [...data.warnings, ...model.supernovae.warnings.map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
+    return { model: model.label, runDir, record, warnings };
+  } finally {
+    await evaluator.close();
+  }
+}

@@ -1,0 +1,131 @@
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { configToPlainObject, type CandelaConfig } from '../config/index.js';
+import type { EnsembleSampler } from '../sampler/index.js';
+import { VERSION } from './version.js';
+import type { BuiltModel } from './buildModel.js';
+import type { LoadedSupernovae } from './loadSupernovae.js';
+import { arrayExtent } from './arrayExtent.js';
+import type { ConvergenceCheck, StopReason } from './samplingLoop.js';
+
+/**
+ * run.json: the facts of one run that the chains alone do not hold. Together
+ * with chains.csv and the Hubble-diagram files it is everything
+ * `candela report` needs to rebuild the outputs.
+ */
+export interface RunRecord {
+  tool: { name: 'candela'; version: string };
+  title: string;
+  model: { label: string; dark_energy: string; curvature: string; radiation: boolean };
+  parameters: {
+    sampled: Array<{ name: string; prior: Record<string, unknown> }>;
+    fixed: Record<string, number>;
+    derived: string[];
+  };
+  data: {
+    supernovae: number;
+    samples: Array<{ sample: string; count: number }>;
+    redshift_range: [number, number];
+    cuts: Array<{ label: string; initial: number; final: number; steps: Array<{ cut: string; removed: number; remaining: number }> }>;
+    warnings: string[];
+  };
+  likelihood: { description: string[]; path: string };
+  best_fit: { parameters: Record<string, number>; chi_square: number | null; n_data: number; n_free: number; degrees_of_freedom: number; log_likelihood: number; log_posterior: number; abs_mag: number | null };
+  run: {
+    seed: string;
+    steps: number;
+    burn_in_steps: number;
+    walkers: number;
+    ensembles: number;
+    evaluations: number;
+    wall_seconds: number;
+    worker_threads: number;
+    stop_reason: StopReason;
+    target_ess: number;
+    max_rhat: number;
+  };
+  inputs: Array<{ path: string; sha256: string }>;
+  configuration: unknown;
+}
+
+/** SHA-256 of a file's bytes, hex. */
+export function fileSha256(path: string): string {
+  return createHash('sha256').update(readFileSync(path)).digest('hex');
+}
+
+/** Assembles run.json for a finished (or interrupted) run. */
+export function createRunRecord(input: {
+  config: CandelaConfig; modelIndex: number; model: BuiltModel; data: LoadedSupernovae; check: ConvergenceCheck;
+  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; sampler: EnsembleSampler;
+}): RunRecord {
+  const { config, model, data, check, sampler } = input;
+  const spec = config.models[input.modelIndex];
+  const best = locateBestSample(sampler, check.burnInSteps);
+  const values = model.posterior.values(best.theta);
+  const extras = model.supernovae.bestFitExtras?.(values) ?? {};
+  const bestParameters: Record<string, number> = {};
+  model.parameterNames.forEach((name, d) => { bestParameters[name] = best.theta[d]; });
+  const z = data.table.redshift;
+  const counts = new Map<string, number>();
+  for (const sample of data.table.samples) counts.set(sample, (counts.get(sample) ?? 0) + 1);
+  const inputFiles = [config.source.file, ...data.inputFiles];
+  const seen = new Set<string>();
+  return {
+    tool: { name: 'candela', version: VERSION },
+    title: config.title,
+    model: { label: spec.label, dark_energy: spec.darkEnergy, curvature: spec.curvature, radiation: spec.radiation },
+    parameters: {
+      sampled: model.priors.map((entry) => ({ name: entry.name, prior: { ...entry.prior } })),
+      fixed: { ...model.fixed },
+      derived: [...model.derivedNames],
+    },
+    data: {
+      supernovae: data.table.count,
+      samples: [...counts].map(([sample, count]) => ({ sample, count })),
+      redshift_range: arrayExtent(z),
+      cuts: data.cutReports.map(({ label, report }) => ({
+        label, initial: report.initialCount, final: report.finalCount,
+        steps: report.steps.map((step) => ({ cut: step.description, removed: step.removed, remaining: step.remaining })),
+      })),
+      warnings: data.warnings.map((w) => w.message),
+    },
+    likelihood: { description: model.supernovae.describe(), path: model.supernovae.path },
+    best_fit: {
+      parameters: bestParameters,
+      chi_square: Number.isFinite(extras.chi_square) ? extras.chi_square : null,
+      n_data: model.posterior.dataCount,
+      n_free: model.parameterNames.length,
+      degrees_of_freedom: model.posterior.dataCount - model.parameterNames.length,
+      log_likelihood: best.logLikelihood,
+      log_posterior: best.logProb,
+      abs_mag: Number.isFinite(extras.abs_mag_best_fit) ? extras.abs_mag_best_fit : (values.abs_mag ?? null),
+    },
+    run: {
+      seed: String(config.seed), steps: input.steps, burn_in_steps: check.burnInSteps,
+      walkers: config.sampler.walkers, ensembles: config.sampler.ensembles,
+      evaluations: input.evaluations, wall_seconds: Math.round(input.wallSeconds * 1000) / 1000,
+      worker_threads: input.workers, stop_reason: input.stopReason, target_ess: config.sampler.targetEss, max_rhat: config.sampler.maxRhat,
+    },
+    inputs: inputFiles.filter((file) => !seen.has(file.resolved) && seen.add(file.resolved)).map((file) => ({ path: file.written, sha256: fileSha256(file.resolved) })),
+    configuration: configToPlainObject(config),
+  };
+}
+
+/** The stored sample with the highest log posterior after the burn-in. */
+export function locateBestSample(sampler: EnsembleSampler, burnInSteps: number): { theta: Float64Array; logProb: number; logLikelihood: number } {
+  const { ensembles, walkers, dimension } = sampler.options;
+  let bestLogProb = -Infinity;
+  let theta = new Float64Array(dimension);
+  let logLikelihood = Number.NaN;
+  for (let k = 0; k < ensembles; k++) {
+    const chain = sampler.chain(k);
+    for (let row = burnInSteps * walkers; row < chain.steps * walkers; row++) {
+      if (chain.logProb[row] > bestLogProb) {
+        bestLogProb = chain.logProb[row];
+        theta = chain.positions.slice(row * dimension, (row + 1) * dimension);
+        logLikelihood = chain.blobs[row * chain.blobCount + 1];
+      }
+    }
+  }
+  return { theta, logProb: bestLogProb, logLikelihood };
+}

@@ -1,0 +1,68 @@
+import type { RunAnalysis } from './analyzeRun.js';
+import type { RunOnDisk } from './runFiles.js';
+
+/** Version tag of summary.json; the README documents this schema. */
+export const SUMMARY_SCHEMA = 'candela-summary-1';
+
+/**
+ * summary.json: the numbers a paper quotes and a referee checks, as plain
+ * JSON (the README documents every key). Built from the chains and run.json
+ * only, so it is reproduced exactly by `candela report`.
+ */
+export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
+  const { record } = run;
+  const parameters = Object.fromEntries(analysis.summary.parameters.map((p) => [p.name, {
+    mean: p.stats.mean, sd: p.stats.sd, median: p.stats.median, ci68: p.stats.ci68, ci95: p.stats.ci95, hdi68: p.stats.hdi68,
+    map: p.stats.map ?? null, derived: Boolean(p.derived), samples: p.stats.count,
+  }]));
+  const diagnostics = Object.fromEntries(Object.entries(analysis.diagnostics).map(([name, d]) => [name, {
+    rhat: d.rhat, ess_bulk: d.essBulk, ess_tail: d.essTail, tau: d.tau, mcse_mean: d.mcseMean,
+    chain_length_over_tau: d.tau ? analysis.steps / d.tau : null,
+  }]));
+  const names = analysis.summary.correlationNames ?? [];
+  const matrix = names.map((_, i) => names.map((__, j) => analysis.summary.correlation?.[i * names.length + j] ?? null));
+  return {
+    schema: SUMMARY_SCHEMA,
+    title: record.title,
+    model: record.model,
+    parameters,
+    diagnostics,
+    correlation: { names, matrix },
+    fit: {
+      chi_square: record.best_fit.chi_square,
+      n_data: record.best_fit.n_data,
+      n_free: record.best_fit.n_free,
+      degrees_of_freedom: record.best_fit.degrees_of_freedom,
+      log_likelihood_max: record.best_fit.log_likelihood,
+      log_posterior_max: record.best_fit.log_posterior,
+      abs_mag_best_fit: record.best_fit.abs_mag,
+      best_fit_parameters: record.best_fit.parameters,
+    },
+    convergence: {
+      passed: analysis.converged,
+      target_ess: record.run.target_ess,
+      max_rhat: record.run.max_rhat,
+      acceptance_mean: analysis.acceptanceMean,
+      stuck_walkers: analysis.stuckWalkers,
+      minimum_chain_length_over_tau: 50,
+    },
+    run: {
+      seed: record.run.seed,
+      steps: record.run.steps,
+      burn_in_steps: analysis.burnInSteps,
+      walkers: record.run.walkers,
+      ensembles: record.run.ensembles,
+      samples_kept: analysis.keptSamples,
+      evaluations: record.run.evaluations,
+      wall_seconds: record.run.wall_seconds,
+      worker_threads: record.run.worker_threads,
+      stop_reason: record.run.stop_reason,
+      version: record.tool.version,
+      inputs: record.inputs,
+      configuration: record.configuration,
+    },
+    likelihood: record.likelihood,
+    data: record.data,
+    warnings: analysis.warnings,
+  };
+}

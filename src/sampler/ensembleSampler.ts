@@ -1,0 +1,190 @@
+import { CandelaError } from '../errors.js';
+import { createRandomStream, deriveSeed } from '../math/index.js';
+import { ChainStorage } from './chainStorage.js';
+import type { ChainView } from './chainStorage.js';
+import { resolveEnsembleOptions } from './ensembleOptions.js';
+import type { EnsembleRunOptions, ResolvedEnsembleOptions } from './ensembleOptions.js';
+import { acceptHalf, halfSize, proposeHalf } from './ensembleStep.js';
+import type { EnsembleState, HalfStepBatch } from './ensembleStep.js';
+import { evaluateInitialWalkers } from './evaluateInitialWalkers.js';
+import type { BatchEvaluator } from './logProbabilityModel.js';
+import { checkSnapshotShape, SNAPSHOT_FORMAT, SNAPSHOT_VERSION } from './samplerSnapshot.js';
+import type { SamplerSnapshot } from './samplerSnapshot.js';
+
+/*
+ * Affine-invariant ensemble sampler (Goodman & Weare 2010) with the parallel
+ * two-halves update (Foreman-Mackey et al. 2013) and an optional
+ * differential-evolution move (ter Braak 2006). Several independent
+ * ensembles run in lockstep: the proposals of the same half of EVERY
+ * ensemble go to the evaluator in ONE batch, so that parallel workers stay
+ * busy even for small ensembles. The random-stream design that makes runs
+ * reproducible for any worker count is documented in ensembleStep.ts.
+ */
+
+/**
+ * Runs several independent affine-invariant ensembles in lockstep and stores
+ * their chains. Create with {@link EnsembleSampler.start} or
+ * {@link EnsembleSampler.restore}; call {@link EnsembleSampler.advance}
+ * repeatedly (diagnostics and checkpoints go between calls).
+ *
+ * Cost per step: walkers x ensembles model evaluations in two batches, plus
+ * O(walkers x ensembles x dimension) arithmetic; no allocation except chain
+ * growth, which is done before each `advance`.
+ * @example
+ * const sampler = await EnsembleSampler.start({ dimension: 2, walkers: 8, seed: '7' }, evaluator, starts);
+ * await sampler.advance(1000);
+ * sampler.chain(0).positions // 1000 x 8 x 2 numbers
+ */
+export class EnsembleSampler {
+  private steps: number;
+  private busy = false;
+  private readonly batch: HalfStepBatch;
+
+  private constructor(readonly options: ResolvedEnsembleOptions, private readonly evaluator: BatchEvaluator, private readonly states: EnsembleState[], stepCount: number) {
+    this.steps = stepCount;
+    const largestBatch = options.ensembles * halfSize(options.walkers, 1);
+    this.batch = {
+      points: new Float64Array(largestBatch * options.dimension),
+      logProb: new Float64Array(largestBatch),
+      blobs: new Float64Array(largestBatch * evaluator.blobCount),
+      correction: new Float64Array(largestBatch),
+    };
+  }
+
+  /**
+   * Validates the options, evaluates the initial walkers of every ensemble in
+   * one batch and returns a sampler at step 0.
+   * `initialPositions[k]` holds ensemble k's walkers, walkers x dimension
+   * (for example `initializeWalkers(...).positions`).
+   * Throws CandelaError: option problems (see resolveEnsembleOptions) and
+   * start problems (see evaluateInitialWalkers).
+   */
+  static async start(options: EnsembleRunOptions, evaluator: BatchEvaluator, initialPositions: Float64Array[]): Promise<EnsembleSampler> {
+    const settings = resolveEnsembleOptions(options, evaluator.dimension);
+    const { walkers, dimension } = settings;
+    const blobCount = evaluator.blobCount;
+    const { logProb, blobs } = await evaluateInitialWalkers(settings, evaluator, initialPositions);
+    const states = initialPositions.map((positions, k): EnsembleState => ({
+      rng: createRandomStream(deriveSeed(settings.seed, 'ensemble', k)),
+      positions: Float64Array.from(positions),
+      logProb: logProb.slice(k * walkers, (k + 1) * walkers),
+      blobs: blobs.slice(k * walkers * blobCount, (k + 1) * walkers * blobCount),
+      acceptedCounts: new Float64Array(walkers),
+      chain: new ChainStorage(walkers, dimension, blobCount),
+    }));
+    return new EnsembleSampler(settings, evaluator, states, 0);
+  }
+
+  /**
+   * Continues a run from {@link EnsembleSampler.snapshot} output (typed or
+   * plain number arrays). Advancing the restored sampler gives exactly the
+   * chains of an uninterrupted run. Does not call the evaluator.
+   * Throws CandelaError: option problems, `sampler.snapshot_invalid`.
+   */
+  static async restore(snapshot: SamplerSnapshot<ArrayLike<number>>, evaluator: BatchEvaluator): Promise<EnsembleSampler> {
+    const settings = resolveEnsembleOptions(snapshot.options, evaluator.dimension);
+    checkSnapshotShape(snapshot, evaluator.blobCount);
+    const { walkers, dimension } = settings;
+    const states = snapshot.ensembles.map((saved): EnsembleState => ({
+      rng: createRandomStream('', { ...saved.randomState }),
+      positions: Float64Array.from(saved.positions),
+      logProb: Float64Array.from(saved.logProb),
+      blobs: Float64Array.from(saved.blobs),
+      acceptedCounts: Float64Array.from(saved.acceptedCounts),
+      chain: ChainStorage.fromArrays(walkers, dimension, evaluator.blobCount, snapshot.stepCount, saved.chainPositions, saved.chainLogProb, saved.chainBlobs),
+    }));
+    return new EnsembleSampler(settings, evaluator, states, snapshot.stepCount);
+  }
+
+  /** Steps taken so far by every ensemble. */
+  get stepCount(): number {
+    return this.steps;
+  }
+
+  /**
+   * Runs `steps` more steps of every ensemble, calling `onStep(stepCount)`
+   * after each; when `onStep` returns false the run stops after that step
+   * (e.g. on an interrupt), with everything stored so far consistent.
+   * Throws CandelaError `sampler.invalid_option` for a bad step count,
+   * `sampler.busy` when called while another advance runs,
+   * `sampler.invalid_log_probability` when the model returns NaN or
+   * +Infinity; rejects with whatever the evaluator rejects with. After such
+   * an error the current step is half done: continue only from the last
+   * snapshot, not from this sampler.
+   */
+  async advance(steps: number, onStep?: (step: number) => boolean | void): Promise<void> {
+    if (!Number.isInteger(steps) || steps < 0) throw new CandelaError({ code: 'sampler.invalid_option', path: 'steps', message: 'the number of steps must be a non-negative integer', found: String(steps) });
+    if (this.busy) throw new CandelaError({ code: 'sampler.busy', message: 'advance was called while the sampler was still advancing', fix: 'await each advance before the next' });
+    this.busy = true;
+    try {
+      for (const state of this.states) state.chain.reserve(this.steps + steps);
+      for (let step = 0; step < steps; step++) {
+        for (let half = 0; half < 2; half++) {
+          const count = proposeHalf(this.states, this.options, half, this.batch);
+          await this.evaluator.evaluate(this.batch.points, count, this.batch.logProb, this.batch.blobs);
+          acceptHalf(this.states, this.options, half, this.batch, count, this.evaluator.blobCount);
+        }
+        for (const state of this.states) state.chain.append(state.positions, state.logProb, state.blobs);
+        this.steps += 1;
+        if (onStep?.(this.steps) === false) break;
+      }
+    } finally {
+      this.busy = false;
+    }
+  }
+
+  /**
+   * Views (no copy) of ensemble `ensemble`'s stored chain. Stored steps are
+   * never rewritten, so a view stays correct after later advances; it just
+   * does not include their steps. Throws RangeError for a bad index.
+   */
+  chain(ensemble: number): ChainView {
+    return this.state(ensemble).chain.view();
+  }
+
+  /** Accepted fraction of proposals per walker of one ensemble (zeros before the first step). */
+  acceptanceFractions(ensemble: number): Float64Array {
+    const counts = this.state(ensemble).acceptedCounts;
+    return counts.map((count) => (this.steps > 0 ? count / this.steps : 0));
+  }
+
+  /** Copies of the current walkers (walkers x dimension) of one ensemble. */
+  currentPositions(ensemble: number): Float64Array {
+    return this.state(ensemble).positions.slice();
+  }
+
+  /**
+   * The whole state (see {@link SamplerSnapshot}) for a checkpoint: copies of
+   * the current walkers, acceptance counts and random-stream states, and
+   * views (no copy) of the append-only stored chains, which later advances
+   * never modify. Cost O(walkers x ensembles x dimension).
+   */
+  snapshot(): SamplerSnapshot {
+    return {
+      format: SNAPSHOT_FORMAT,
+      version: SNAPSHOT_VERSION,
+      options: { ...this.options },
+      blobCount: this.evaluator.blobCount,
+      stepCount: this.steps,
+      ensembles: this.states.map((state) => {
+        const view = state.chain.view();
+        return {
+          randomState: state.rng.state(),
+          positions: state.positions.slice(),
+          logProb: state.logProb.slice(),
+          blobs: state.blobs.slice(),
+          acceptedCounts: state.acceptedCounts.slice(),
+          chainPositions: view.positions,
+          chainLogProb: view.logProb,
+          chainBlobs: view.blobs,
+        };
+      }),
+    };
+  }
+
+  private state(ensemble: number): EnsembleState {
+    const state = this.states[ensemble];
+    if (!state) throw new RangeError(`ensemble index ${ensemble} is outside 0..${this.states.length - 1}`);
+    return state;
+  }
+}

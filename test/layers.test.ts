@@ -1,0 +1,89 @@
+import { readFileSync, readdirSync, statSync } from 'node:fs';
+import { join, relative, sep } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+// The one-way import table of ../shared/STYLE.md ("Layout and layers"), extended
+// with the mock-survey layer (numerical, below pipeline). A layer may import
+// itself, errors.ts and the layers listed here; nothing else.
+const ALLOWED: Record<string, string[]> = {
+  errors: [],
+  math: ['errors'],
+  config: ['errors'],
+  data: ['errors', 'math'],
+  standardize: ['errors', 'math', 'data'],
+  cosmology: ['errors', 'math', 'data'],
+  likelihood: ['errors', 'math', 'data', 'standardize', 'cosmology'],
+  mock: ['errors', 'math', 'data', 'standardize', 'cosmology'],
+  sampler: ['errors', 'math'],
+  diagnostics: ['errors', 'math'],
+  compare: ['errors', 'math', 'sampler', 'diagnostics'],
+  output: ['errors', 'math', 'sampler', 'diagnostics'],
+  pipeline: ['errors', 'math', 'config', 'data', 'standardize', 'cosmology', 'likelihood', 'mock', 'sampler', 'diagnostics', 'compare', 'output'],
+  cli: ['errors', 'config', 'pipeline'],
+};
+
+// Layers below the pipeline that must stay free of process, console, clock and Math.random
+// (data/ may read files, output/ may write them, the sampler's worker pool starts threads).
+const PURE_LAYERS = ['math', 'standardize', 'cosmology', 'likelihood', 'mock', 'diagnostics', 'compare'];
+
+function listFiles(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const path = join(dir, name);
+    return statSync(path).isDirectory() ? listFiles(path) : path.endsWith('.ts') ? [path] : [];
+  });
+}
+
+function layerOf(file: string): string {
+  const parts = relative('src', file).split(sep);
+  return parts.length === 1 ? parts[0].replace(/\.(ts|js)$/, '') : parts[0];
+}
+
+const files = listFiles('src');
+
+describe('layer imports (../shared/STYLE.md table)', () => {
+  it('every source file belongs to a known layer', () => {
+    for (const file of files) expect(Object.keys(ALLOWED), file).toContain(layerOf(file));
+  });
+
+  it('no layer imports a layer above it', () => {
+    const violations: string[] = [];
+    for (const file of files) {
+      const layer = layerOf(file);
+      const text = readFileSync(file, 'utf8');
+      for (const match of text.matchAll(/(?:import|export)[^'"]*?from\s+['"](\.[^'"]+)['"]/g)) {
+        const target = join(file, '..', match[1]);
+        const targetLayer = layerOf(target);
+        if (targetLayer === layer || targetLayer === 'errors') continue;
+        if (!ALLOWED[layer]?.includes(targetLayer)) violations.push(`${file} imports ${match[1]} (${layer} -> ${targetLayer})`);
+      }
+    }
+    expect(violations).toEqual([]);
+  });
+
+  it('a layer is imported from outside only through its index.ts barrel', () => {
+    const violations: string[] = [];
+    for (const file of files) {
+      const layer = layerOf(file);
+      const text = readFileSync(file, 'utf8');
+      for (const match of text.matchAll(/(?:import|export)[^'"]*?from\s+['"](\.[^'"]+)['"]/g)) {
+        const target = join(file, '..', match[1]);
+        const targetLayer = layerOf(target);
+        if (targetLayer === layer || targetLayer === 'errors') continue;
+        if (!/[/\\]index\.js$/.test(target)) violations.push(`${file} imports ${match[1]}`);
+      }
+    }
+    expect(violations).toEqual([]);
+  });
+
+  it('the numerical layers use no process, console, clock or Math.random', () => {
+    const violations: string[] = [];
+    for (const file of files) {
+      if (!PURE_LAYERS.includes(layerOf(file))) continue;
+      const code = readFileSync(file, 'utf8').replace(/\/\*[\s\S]*?\*\/|\/\/.*$/gm, '');
+      for (const pattern of [/\bprocess\./, /\bconsole\./, /\bDate\.now\b|\bnew Date\b/, /Math\.random/, /from ['"](node:)?fs['"]/]) {
+        if (pattern.test(code)) violations.push(`${file}: ${pattern}`);
+      }
+    }
+    expect(violations).toEqual([]);
+  });
+});
