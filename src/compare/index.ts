@@ -1,2 +1,51 @@
-// compare layer barrel: one export per line.
-export {};
+// compare layer barrel: one export per line. Imports only errors, math and the diagnostics barrel.
+
+// Information criteria
+export { akaikeInformationCriterion } from './informationCriteria.js';
+export { bayesianInformationCriterion } from './informationCriteria.js';
+export { devianceInformationCriterion } from './devianceInformationCriterion.js';
+export type { DevianceInformation } from './devianceInformationCriterion.js';
+
+// Bayes factors
+export { logBayesFactor } from './logBayesFactor.js';
+export type { LogEvidence } from './logBayesFactor.js';
+export type { LogBayesFactorEstimate } from './logBayesFactor.js';
+export { readBayesFactor } from './readBayesFactor.js';
+export { KASS_RAFTERY_BOUNDARIES } from './readBayesFactor.js';
+export type { BayesFactorReading } from './readBayesFactor.js';
+export type { EvidenceStrength } from './readBayesFactor.js';
+
+// Savage-Dickey density ratio and kernel densities at a point
+export { savageDickeyRatio } from './savageDickeyRatio.js';
+export { DEFAULT_BOOTSTRAP_REPLICATES } from './savageDickeyRatio.js';
+export { DEFAULT_BOOTSTRAP_SEED } from './savageDickeyRatio.js';
+export type { SavageDickeyInput } from './savageDickeyRatio.js';
+export type { SavageDickeyEstimate } from './savageDickeyRatio.js';
+export { savageDickeyRatio2D } from './savageDickeyRatio2D.js';
+export type { SavageDickeyInput2D } from './savageDickeyRatio2D.js';
+export { kernelDensity1D } from './kernelDensity1D.js';
+export { kernelBandwidth1D } from './kernelDensity1D.js';
+export { kernelDensity2D } from './kernelDensity2D.js';
+export { kernelBandwidth2D } from './kernelDensity2D.js';
+
+// Frequentist significance of a chi-square improvement
+export { deltaChiSquareSignificance } from './deltaChiSquareSignificance.js';
+export { twoSidedGaussianSigma } from './deltaChiSquareSignificance.js';
+export { SIGNIFICANCE_CAUTION } from './deltaChiSquareSignificance.js';
+export type { ChiSquareSignificance } from './deltaChiSquareSignificance.js';
+export { logGamma } from './logGamma.js';
+export { regularizedGammaP } from './regularizedGamma.js';
+export { regularizedGammaQ } from './regularizedGamma.js';
+export { logRegularizedGammaQ } from './regularizedGamma.js';
+
+// Comparison tables
+export { compareModels } from './compareModels.js';
+export { comparisonMarkdown } from './comparisonMarkdown.js';
+export { comparisonLatex } from './comparisonLatex.js';
+export type { ModelFitRecord } from './modelComparison.js';
+export type { NestedModelPair } from './modelComparison.js';
+export type { ComparisonOptions } from './modelComparison.js';
+export type { ModelComparison } from './modelComparison.js';
+export type { ModelComparisonRow } from './modelComparison.js';
+export type { NestedComparisonRow } from './modelComparison.js';
+export type { ModelComparisonReport } from './modelComparison.js';

@@ -16,7 +16,7 @@ function drawInCube(random: RandomStream, out: Float64Array): void {
 /**
  * Writes into `out` a point uniform on (union of the bound's ellipsoids) ∩
  * unit cube, or on the cube when `bound.wholeCube`. Overlaps are handled as in
- * Feroz & Hobson (2008, section 5.1.2): pick ellipsoid k with probability
+ * Feroz & Hobson (2008): pick ellipsoid k with probability
  * V_k / sum V, draw uniformly inside it, and accept with probability 1/q,
  * where q is the number of ellipsoids containing the point. Points outside
  * the cube are redrawn.

@@ -16,7 +16,7 @@ export function createEvidenceTally(): EvidenceTally {
 /**
  * Adds one dead point of log-likelihood `logLikelihood` and prior-mass width
  * w = X_(i-1) - X_i to the tally, with the update of Skilling (2006, Bayesian
- * Analysis 1, 833, section 9):
+ * Analysis 1, 833):
  *   Z_new = Z + w L,
  *   H_new = (w L / Z_new) ln L + (Z / Z_new)(H + ln Z) - ln Z_new.
  * A zero-likelihood point (ln L = -Infinity) changes nothing.

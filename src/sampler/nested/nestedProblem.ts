@@ -53,7 +53,7 @@ export type NestedProgress = (iteration: number, logZ: number, remaining: number
 export interface NestedResult {
   /** ln Z, the log evidence (same units as the log-likelihood's normalization). */
   logZ: number;
-  /** Statistical uncertainty of ln Z, sqrt(H / N) (Skilling 2006, section 5). */
+  /** Statistical uncertainty of ln Z, sqrt(H / N) (Skilling 2006). */
   logZError: number;
   /** Information (Kullback-Leibler divergence of posterior from prior) H, in nats. */
   information: number;

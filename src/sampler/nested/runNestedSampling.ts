@@ -55,7 +55,7 @@ function zeroEvidence(calls: number): CandelaError {
  * draw with L > L_i taken uniformly inside the enlarged bounding ellipsoids of
  * the live points. The run stops when ln(Z + L_max X_i) - ln Z < dlogz; the
  * final live points are then added, each with prior mass X_i / N. The error
- * of ln Z is sqrt(H / N) (Skilling 2006, section 5).
+ * of ln Z is sqrt(H / N) (Skilling 2006).
  *
  * Deterministic for a given seed (one createRandomStream stream; the draw
  * order is fixed). Cost: about N (H + ln(1/dlogz)) iterations, each one O(N)
@@ -163,7 +163,7 @@ export function runNestedSampling(problem: NestedProblem, options: NestedOptions
     }
   }
 
-  // The final live points share the remaining prior mass X equally (Skilling 2006, section 7).
+  // The final live points share the remaining prior mass X equally (Skilling 2006).
   const logFinalWidth = -iteration / liveCount - Math.log(liveCount);
   const order = Array.from({ length: liveCount }, (_, row) => row).sort((a, b) => liveLogL[a] - liveLogL[b]);
   for (const row of order) {
