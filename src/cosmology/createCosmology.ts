@@ -12,6 +12,24 @@ export interface CreateCosmologyOptions {
 }
 
 /**
+ * Redshift up to which E^2 must be scanned. With every density non-negative
+ * and Omega_m + Omega_r > 0, E^2 >= Omega_m (1+z)^3 + Omega_r (1+z)^4 > 0, so no
+ * Big-Bang failure is possible; only an interior dip (which sets the
+ * quadrature panel width) can exist, and it lies where decaying (phantom) dark
+ * energy competes with growing matter: at ln(1+z) = ln(-(1+w) Omega_DE / Omega_m)
+ * / (-3w) for constant w, below ln(1+z) = 3 for any |w| <= 10 and
+ * Omega_DE/Omega_m <= 1e6. Beyond it every term grows or fades monotonically,
+ * so the scan stops at z = e^3 - 1 (a 6x cheaper construction, which the
+ * sampler's derived quantities need on every evaluation).
+ */
+const POSITIVE_BUDGET_SCAN_END_REDSHIFT = Math.expm1(3);
+
+function scanLimit(budget: { radiation: number; matter: number; curvature: number; darkEnergy: number }, maxRedshift: number): number {
+  const positive = budget.radiation >= 0 && budget.matter >= 0 && budget.curvature >= 0 && budget.darkEnergy >= 0 && budget.matter + budget.radiation > 0;
+  return positive ? Math.min(maxRedshift, POSITIVE_BUDGET_SCAN_END_REDSHIFT) : maxRedshift;
+}
+
+/**
  * Validates a parameter set and builds its FLRW cosmology. Unphysical sets
  * are reported, never turned into NaN: a negative Omega_m, a non-positive H0,
  * non-finite numbers, a missing Omega_DE for a curved model, w0/wa values a
@@ -32,7 +50,7 @@ export function createCosmology(p: CosmologyParameters, options: CreateCosmology
   const resolved = resolveCosmologyParameters(p);
   if (!resolved.ok) return resolved;
   const { parameters, budget } = resolved;
-  const scan = maxRedshift > 0 ? scanExpansion(budget, maxRedshift) : { failure: null, dipSingularityDistanceLn: Infinity };
+  const scan = maxRedshift > 0 ? scanExpansion(budget, scanLimit(budget, maxRedshift)) : { failure: null, dipSingularityDistanceLn: Infinity };
   const failure = scan.failure;
   if (failure) {
     const where = failure.redshift === Infinity ? 'at high redshift (z -> infinity)' : `at z = ${Number(failure.redshift.toPrecision(4))}`;

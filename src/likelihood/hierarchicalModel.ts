@@ -94,22 +94,22 @@ function frozenInputs(options: HierarchicalTermOptions, names: HierarchicalParam
  * @example createHierarchicalModel(options).count === options.table.count
  */
 export function createHierarchicalModel(options: HierarchicalTermOptions): HierarchicalModel {
-  const data = prepareHierarchicalData(options);
   const { table } = options;
   const n = table.count;
   if (n < 1) throw new CandelaError({ code: 'likelihood.empty_sample', path: options.name, message: `likelihood term ${options.name} has no supernovae` });
+  for (let i = 0; i < n; i++) {
+    if (table.calibratorMu && Number.isFinite(table.calibratorMu[i])) continue;
+    if (!(table.redshift[i] > 0) || !(table.redshiftHelio[i] > -1)) {
+      throw new CandelaError({ code: 'likelihood.bad_redshift', file: table.sourceFile, line: table.sourceLine[i], message: 'a Hubble-flow supernova needs z > 0', found: String(table.redshift[i]) });
+    }
+  }
+  const data = prepareHierarchicalData(options);
   const frozen = data.dense !== null && options.standardization.alphaBetaCovariance === 'frozen';
   const names = hierarchicalParameterNames(options, frozen);
   const sampleCount = table.sampleNames.length;
   const sampleOfRow = table.sampleIndex;
   const flow: number[] = [];
-  for (let i = 0; i < n; i++) {
-    if (data.isCalibrator[i]) continue;
-    if (!(table.redshift[i] > 0) || !(table.redshiftHelio[i] > -1)) {
-      throw new CandelaError({ code: 'likelihood.bad_redshift', file: table.sourceFile, line: table.sourceLine[i], message: 'a Hubble-flow supernova needs z > 0', found: String(table.redshift[i]) });
-    }
-    flow.push(i);
-  }
+  for (let i = 0; i < n; i++) if (!data.isCalibrator[i]) flow.push(i);
   flow.sort((a, b) => table.redshift[a] - table.redshift[b]);
   const flowRows = Int32Array.from(flow);
   const sortedRedshifts = Float64Array.from(flow, (i) => table.redshift[i]);

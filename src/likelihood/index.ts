@@ -42,3 +42,8 @@ export { createHierarchicalSupernovaTerm } from './createHierarchicalSupernovaTe
 export { MIN_SUPERNOVAE_PER_POPULATION } from './createHierarchicalSupernovaTerm.js';
 export { HIERARCHICAL_POPULATION_PRIORS } from './hierarchicalPopulationPriors.js';
 export { hierarchicalPopulationPriors } from './hierarchicalPopulationPriors.js';
+// diagonal plus low-rank covariance (Woodbury identity)
+export type { LowRankGaussian } from './lowRankGaussian.js';
+export type { LowRankGaussianOptions } from './lowRankGaussian.js';
+export { createLowRankGaussian } from './lowRankGaussian.js';
+export { createLowRankEvaluation } from './lowRankGaussian.js';

@@ -1,33 +1,54 @@
 import { acceptanceSummary, diagnoseEnsembleChains, type ParameterDiagnostics } from '../diagnostics/index.js';
 import {
-  credibleContours, densityGrid2D, marginalDensity1D, sampleStatistics, summarizePosterior,
+  credibleContours, densityGrid2D, kishEffectiveCount, marginalDensity1D, sampleStatistics, summarizePosterior,
   type ContourSet2D, type HardBounds, type MarginalDensity1D, type ParameterSummary, type RunSummary,
 } from '../output/index.js';
 import { arrayExtent } from './arrayExtent.js';
-import type { RunOnDisk } from './runFiles.js';
+import { samplerMethodOf, type RunOnDisk } from './runFiles.js';
 
 /** Sampled parameters that describe the expansion history (the default contour pairs). */
 export const COSMOLOGICAL_PARAMETERS = ['omega_m', 'omega_de', 'w0', 'wa', 'h0'];
 /** A chain should be at least this many autocorrelation times long (Goodman & Weare 2010 advise tens of tau; common practice). */
 export const MINIMUM_CHAIN_LENGTH_IN_TAU = 50;
+/**
+ * Nested-sampling rows whose weights together hold less than this posterior
+ * mass are left out of summaries and densities: far below the Monte Carlo
+ * error of any quantile (~1/sqrt(ESS)), while the early dead points they
+ * are spread over the whole prior and would stretch every density grid
+ * across it (common practice).
+ */
+export const NEGLIGIBLE_NESTED_MASS = 1e-6;
+/** A weighted posterior with a Kish effective sample size below this gets a warning (a 95% interval from fewer draws is noisy; common practice). */
+export const MINIMUM_KISH_SAMPLES = 400;
 
 /** Everything computed from a run's chains alone. */
 export interface RunAnalysis {
+  /** Which sampler wrote the chains. */
+  method: 'ensemble' | 'nested';
   sampled: string[];
   derived: string[];
   summary: RunSummary;
+  /** Markov-chain diagnostics per name; empty for nested runs, to which they do not apply. */
   diagnostics: Record<string, ParameterDiagnostics>;
+  /** Rows of chains.csv that the summaries use (after the burn-in; for nested runs, rows of non-negligible weight). */
+  keptRows: Int32Array;
+  /** Posterior weight of each kept row (nested runs), or null for equally weighted chains. */
+  keptWeights: Float64Array | null;
   keptSamples: number;
+  /** Kish (1965) effective sample size of the kept weights (nested runs), else null. */
+  effectiveSampleSize: number | null;
   steps: number;
   burnInSteps: number;
   walkers: number;
   ensembles: number;
-  acceptanceMean: number;
+  /** Mean acceptance fraction of the walkers (ensemble runs), else null. */
+  acceptanceMean: number | null;
   stuckWalkers: number;
   marginals: MarginalDensity1D[];
   contours: ContourSet2D[];
   pairs: Array<[string, string]>;
   warnings: string[];
+  /** Ensemble runs: every stopping target met. Nested runs: the dlogz criterion was met. */
   converged: boolean;
 }
 
@@ -59,27 +80,35 @@ function contourPairsOf(run: RunOnDisk, sampled: string[]): Array<[string, strin
   return pairs;
 }
 
-/**
- * Summaries, convergence diagnostics, smoothed marginals and credible
- * contours of a run, from its chains: the draws after the burn-in (the
- * `burn_in` column), every walker of every ensemble.
- */
-export function analyzeRun(run: RunOnDisk): RunAnalysis {
-  const { chains, record } = run;
-  const sampled = record.parameters.sampled.map((p) => p.name);
-  const derived = record.parameters.derived;
-  const ensembles = arrayExtent(chains.ensemble)[1] + 1;
-  const walkers = arrayExtent(chains.walker)[1] + 1;
-  const steps = arrayExtent(chains.step)[1] + 1;
-  let burnInSteps = 0;
-  for (let r = 0; r < chains.rows; r++) if (chains.burnIn[r] === 1) burnInSteps = Math.max(burnInSteps, chains.step[r] + 1);
+/** Rows kept for the summaries: after the burn-in, or (weighted rows) all but the lightest ones holding {@link NEGLIGIBLE_NESTED_MASS}. */
+export function keptRowsOf(run: RunOnDisk): Int32Array {
+  const { chains } = run;
+  const weights = chains.weights;
+  if (!weights) {
+    const kept: number[] = [];
+    for (let r = 0; r < chains.rows; r++) if (chains.burnIn[r] === 0) kept.push(r);
+    return Int32Array.from(kept);
+  }
+  let total = 0;
+  for (let r = 0; r < chains.rows; r++) total += weights[r] > 0 ? weights[r] : 0;
+  const order = Array.from({ length: chains.rows }, (_, r) => r).filter((r) => weights[r] > 0).sort((a, b) => weights[a] - weights[b] || a - b);
+  const dropped = new Uint8Array(chains.rows);
+  let tail = 0;
+  for (const r of order) {
+    if (tail + weights[r] >= NEGLIGIBLE_NESTED_MASS * total) break;
+    tail += weights[r];
+    dropped[r] = 1;
+  }
   const kept: number[] = [];
-  for (let r = 0; r < chains.rows; r++) if (chains.burnIn[r] === 0) kept.push(r);
-  const keptColumn = (name: string) => Float64Array.from(kept, (r) => chains.columns[name][r]);
+  for (let r = 0; r < chains.rows; r++) if (weights[r] > 0 && !dropped[r]) kept.push(r);
+  return Int32Array.from(kept);
+}
 
+function ensembleDiagnostics(run: RunOnDisk, names: string[], layout: { ensembles: number; walkers: number; steps: number; burnInSteps: number }) {
+  const { chains } = run;
+  const { ensembles, walkers, steps, burnInSteps } = layout;
   const diagnostics: Record<string, ParameterDiagnostics> = {};
-  const warnings: string[] = [];
-  for (const name of [...sampled, ...derived]) {
+  for (const name of names) {
     const column = chains.columns[name];
     if (column.some((v) => !Number.isFinite(v))) continue;
     const traces = Array.from({ length: ensembles }, (_, k) => ({ steps, walkers, values: column.subarray(k * steps * walkers, (k + 1) * steps * walkers) }));
@@ -96,40 +125,95 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
       acceptance[k * walkers + w] = steps > 1 ? moves / (steps - 1) : 0;
     }
   }
-  const accept = acceptanceSummary(acceptance);
-  if (accept.stuckWalkers.length) warnings.push(`${accept.stuckWalkers.length} walker(s) accepted far fewer proposals than the others (stuck): ${accept.stuckWalkers.slice(0, 10).join(', ')}`);
+  return { diagnostics, accept: acceptanceSummary(acceptance) };
+}
+
+/**
+ * Summaries, convergence diagnostics, smoothed marginals and credible
+ * contours of a run, from its chains. Ensemble runs: the draws after the
+ * burn-in (the `burn_in` column), every walker of every ensemble, with R-hat,
+ * ESS and autocorrelation times. Nested runs: the weighted samples (the
+ * `weight` column, without the negligible tail, see {@link keptRowsOf}); the
+ * Markov-chain diagnostics do not apply, the Kish effective sample size is
+ * reported instead.
+ *
+ * Cost: O(rows x parameters) plus the density grids.
+ * @param run a run folder read by readRunFolder.
+ * @returns the analysis (see {@link RunAnalysis}).
+ * @throws CandelaError from the summaries or density estimates (e.g. a parameter without spread).
+ * @example analyzeRun(readRunFolder('out/run')).summary.parameters[0].stats.median
+ */
+export function analyzeRun(run: RunOnDisk): RunAnalysis {
+  const { chains, record } = run;
+  const method = samplerMethodOf(record);
+  const sampled = record.parameters.sampled.map((p) => p.name);
+  const derived = record.parameters.derived;
+  const ensembles = arrayExtent(chains.ensemble)[1] + 1;
+  const walkers = arrayExtent(chains.walker)[1] + 1;
+  const steps = arrayExtent(chains.step)[1] + 1;
+  let burnInSteps = 0;
+  for (let r = 0; r < chains.rows; r++) if (chains.burnIn[r] === 1) burnInSteps = Math.max(burnInSteps, chains.step[r] + 1);
+  const keptRows = keptRowsOf(run);
+  const kept = Array.from(keptRows);
+  const keptWeights = chains.weights ? Float64Array.from(kept, (r) => (chains.weights as Float64Array)[r]) : null;
+  const weightOption = keptWeights ? { weights: keptWeights } : {};
+  const keptColumn = (name: string) => Float64Array.from(kept, (r) => chains.columns[name][r]);
+
+  const warnings: string[] = [];
+  let diagnostics: Record<string, ParameterDiagnostics> = {};
+  let acceptanceMean: number | null = null;
+  let stuckWalkers = 0;
+  if (method === 'ensemble') {
+    const result = ensembleDiagnostics(run, [...sampled, ...derived], { ensembles, walkers, steps, burnInSteps });
+    diagnostics = result.diagnostics;
+    acceptanceMean = result.accept.mean;
+    stuckWalkers = result.accept.stuckWalkers.length;
+    if (stuckWalkers) warnings.push(`${stuckWalkers} walker(s) accepted far fewer proposals than the others (stuck): ${result.accept.stuckWalkers.slice(0, 10).join(', ')}`);
+  }
 
   const complete = [...sampled, ...derived].filter((name) => chains.columns[name].every(Number.isFinite) || kept.every((r) => Number.isFinite(chains.columns[name][r])));
   const summaryDiagnostics = Object.fromEntries(Object.entries(diagnostics).map(([name, d]) => [name, {
     ...(d.rhat !== null ? { rHat: d.rhat } : {}), ...(d.essBulk !== null ? { essBulk: d.essBulk } : {}), ...(d.essTail !== null ? { essTail: d.essTail } : {}),
   }]));
   const logPosterior = keptColumn('log_posterior');
-  const summary = summarizePosterior(complete.map(keptColumn), complete, { logPosterior, diagnostics: summaryDiagnostics, derived, title: record.model.label });
+  const summary = summarizePosterior(complete.map(keptColumn), complete, { ...weightOption, logPosterior, diagnostics: summaryDiagnostics, derived, title: record.model.label });
   const incomplete = derived.filter((name) => !complete.includes(name));
   for (const name of incomplete) {
-    const values = keptColumn(name).filter(Number.isFinite);
-    const share = values.length / kept.length;
-    warnings.push(`${name} is undefined for ${((1 - share) * 100).toFixed(1)}% of the samples (e.g. no acceleration epoch); its summary uses the rest`);
-    if (values.length > 1) summary.parameters.push({ name, stats: sampleStatistics(values, { label: name }), derived: true } as ParameterSummary);
+    const column = keptColumn(name);
+    const usable = kept.map((_, k) => k).filter((k) => Number.isFinite(column[k]));
+    const values = Float64Array.from(usable, (k) => column[k]);
+    const usableWeights = keptWeights ? Float64Array.from(usable, (k) => keptWeights[k]) : null;
+    const share = keptWeights ? usable.reduce((sum, k) => sum + keptWeights[k], 0) / keptWeights.reduce((sum, w) => sum + w, 0) : values.length / kept.length;
+    warnings.push(`${name} is undefined for ${((1 - share) * 100).toFixed(1)}% of the ${keptWeights ? 'posterior mass' : 'samples'} (e.g. no acceleration epoch); its summary uses the rest`);
+    if (values.length > 1) summary.parameters.push({ name, stats: sampleStatistics(values, { label: name, ...(usableWeights ? { weights: usableWeights } : {}) }), derived: true } as ParameterSummary);
   }
 
   let converged = true;
-  for (const name of sampled) {
-    const d = diagnostics[name];
-    if (!d || d.rhat === null || d.essBulk === null || d.rhat > record.run.max_rhat || d.essBulk < record.run.target_ess) converged = false;
-    if (d?.tau && steps < MINIMUM_CHAIN_LENGTH_IN_TAU * d.tau) warnings.push(`the chain of ${name} is ${steps} steps, shorter than ${MINIMUM_CHAIN_LENGTH_IN_TAU} autocorrelation times (tau = ${d.tau.toFixed(1)} steps): the tau estimate and the diagnostics are less reliable`);
+  let effectiveSampleSize: number | null = null;
+  if (method === 'ensemble') {
+    for (const name of sampled) {
+      const d = diagnostics[name];
+      if (!d || d.rhat === null || d.essBulk === null || d.rhat > record.run.max_rhat || d.essBulk < record.run.target_ess) converged = false;
+      if (d?.tau && steps < MINIMUM_CHAIN_LENGTH_IN_TAU * d.tau) warnings.push(`the chain of ${name} is ${steps} steps, shorter than ${MINIMUM_CHAIN_LENGTH_IN_TAU} autocorrelation times (tau = ${d.tau.toFixed(1)} steps): the tau estimate and the diagnostics are less reliable`);
+    }
+    if (!converged) warnings.push(`the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`);
+  } else {
+    effectiveSampleSize = kishEffectiveCount(keptWeights ?? kept.length);
+    converged = record.sampler?.stop === 'dlogz';
+    warnings.push(`nested sampling: R-hat, ESS per chain and autocorrelation times are Markov-chain diagnostics and do not apply; the ${kept.length} weighted samples have a Kish effective sample size of ${effectiveSampleSize.toFixed(0)}`);
+    if (!converged) warnings.push(`nested sampling stopped at its iteration cap before the remaining evidence fell below dlogz = ${record.sampler?.dlogz}: ln Z and the posterior may be incomplete`);
+    if (effectiveSampleSize < MINIMUM_KISH_SAMPLES) warnings.push(`the Kish effective sample size ${effectiveSampleSize.toFixed(0)} is below ${MINIMUM_KISH_SAMPLES}: credible intervals and contours are noisy; raise sampler.nested.live_points`);
   }
-  if (!converged) warnings.push(`the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`);
 
   const smoothing = smoothingOf(run);
-  const marginals = sampled.map((name) => marginalDensity1D(name, keptColumn(name), { bounds: priorBounds(run, name), ...smoothing }));
+  const marginals = sampled.map((name) => marginalDensity1D(name, keptColumn(name), { ...weightOption, bounds: priorBounds(run, name), ...smoothing }));
   const pairs = contourPairsOf(run, sampled);
   const contours = pairs.map(([x, y]) => credibleContours(densityGrid2D(x, keptColumn(x), y, keptColumn(y), {
-    xBounds: priorBounds(run, x), yBounds: priorBounds(run, y), bandwidthRule: smoothing.bandwidthRule, bandwidthFactor: smoothing.bandwidthFactor,
+    ...weightOption, xBounds: priorBounds(run, x), yBounds: priorBounds(run, y), bandwidthRule: smoothing.bandwidthRule, bandwidthFactor: smoothing.bandwidthFactor,
     ...(smoothing.bandwidth !== undefined ? { bandwidthX: smoothing.bandwidth, bandwidthY: smoothing.bandwidth } : {}),
   })));
   return {
-    sampled, derived, summary, diagnostics, keptSamples: kept.length, steps, burnInSteps, walkers, ensembles,
-    acceptanceMean: accept.mean, stuckWalkers: accept.stuckWalkers.length, marginals, contours, pairs, warnings, converged,
+    method, sampled, derived, summary, diagnostics, keptRows, keptWeights, keptSamples: kept.length, effectiveSampleSize, steps, burnInSteps, walkers, ensembles,
+    acceptanceMean, stuckWalkers, marginals, contours, pairs, warnings, converged,
   };
 }

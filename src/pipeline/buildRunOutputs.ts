@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import {
   contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, densityGrid2D, densityGridCsv, hubbleFigure,
   marginalDensityCsv, reportHtml, summaryCells, summaryLatex, summaryMarkdown, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
-  type BinnedResidual, type ContourSet2D, type ReportFigure, type TraceParameterPanel,
+  type BinnedResidual, type ContourSet2D, type ReportFigure, type ReportRunFacts, type TraceParameterPanel,
 } from '../output/index.js';
 import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
 import { readRunFolder, type RunOnDisk } from './runFiles.js';
@@ -36,18 +36,29 @@ function triangleParameters(analysis: RunAnalysis): string[] {
   return cosmological.length ? cosmological : analysis.sampled.slice(0, TRIANGLE_MAX_PARAMETERS);
 }
 
-/** Contours for every pair shown in a triangle figure (reusing the configured pairs already computed). */
-function contoursForTriangle(run: RunOnDisk, analysis: RunAnalysis, parameters: string[]): ContourSet2D[] {
-  const kept: number[] = [];
-  for (let r = 0; r < run.chains.rows; r++) if (run.chains.burnIn[r] === 0) kept.push(r);
+/** Contours for every pair shown in a triangle figure (reusing the configured pairs already computed; weighted for nested runs). */
+export function contoursForTriangle(run: RunOnDisk, analysis: RunAnalysis, parameters: string[]): ContourSet2D[] {
+  const kept = analysis.keptRows;
   const column = (name: string) => Float64Array.from(kept, (r) => run.chains.columns[name][r]);
+  const weights = analysis.keptWeights ? { weights: analysis.keptWeights } : {};
   return trianglePairs(parameters).map(([x, y]) => {
     const existing = analysis.contours.find((set) => set.grid.xParameter === x && set.grid.yParameter === y);
-    return existing ?? credibleContours(densityGrid2D(x, column(x), y, column(y), { xBounds: priorBounds(run, x), yBounds: priorBounds(run, y) }));
+    return existing ?? credibleContours(densityGrid2D(x, column(x), y, column(y), { ...weights, xBounds: priorBounds(run, x), yBounds: priorBounds(run, y) }));
   });
 }
 
-/** Inverse-variance weighted mean residual in log-spaced redshift bins. */
+/**
+ * Inverse-variance weighted mean residual in log-spaced redshift bins
+ * (diagonal errors only: correlations between supernovae are ignored, as
+ * usual for a display).
+ * @param z redshifts (> 0 are binned).
+ * @param residual residuals, mag.
+ * @param error one-sigma errors, mag (> 0 are used).
+ * @param bins number of equal bins in ln z.
+ * @returns one entry per non-empty bin: weighted mean ln z as z, mean residual and its error (mag).
+ * @throws nothing.
+ * @example binResiduals(z, residual, sigma, 12)[0].mean
+ */
 export function binResiduals(z: Float64Array, residual: Float64Array, error: Float64Array, bins: number): BinnedResidual[] {
   const [zLow, zHigh] = arrayExtent(z.filter((v) => v > 0));
   const low = Math.log(zLow);
@@ -101,11 +112,49 @@ function traceSvg(run: RunOnDisk, analysis: RunAnalysis): string {
   return traceStackFigure(panels, analysis.burnInSteps);
 }
 
+function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
+  const { record } = run;
+  const chiSquare = { label: 'chi-square at best fit', value: record.best_fit.chi_square === null ? 'n/a' : `${record.best_fit.chi_square.toFixed(2)} for ${record.best_fit.degrees_of_freedom} degrees of freedom` };
+  const common = { seed: record.run.seed, wallTimeSeconds: record.run.wall_seconds, version: record.tool.version, model: record.model.label };
+  if (analysis.method === 'ensemble') {
+    return {
+      ...common, steps: record.run.steps, walkers: record.run.walkers, ensembles: record.run.ensembles, stopReason: record.run.stop_reason,
+      extra: [{ label: 'supernovae', value: String(record.data.supernovae) }, chiSquare, { label: 'likelihood evaluations', value: String(record.run.evaluations) }],
+    };
+  }
+  const sampler = record.sampler;
+  const evidence = record.evidence;
+  return {
+    ...common,
+    steps: record.run.steps,
+    stopReason: sampler?.stop === 'dlogz' ? `nested sampling: remaining evidence below dlogz = ${sampler.dlogz}` : 'nested sampling: iteration cap reached',
+    extra: [
+      { label: 'sampler', value: `nested sampling, ${sampler?.live_points} live points (convergence checks for Markov chains do not apply)` },
+      { label: 'ln Z (evidence)', value: evidence ? `${evidence.log_z.toFixed(3)} ± ${evidence.log_z_error.toFixed(3)}` : 'n/a' },
+      { label: 'information H', value: evidence ? `${evidence.information_nats.toFixed(2)} nats` : 'n/a' },
+      { label: 'effective sample size (Kish)', value: `${(analysis.effectiveSampleSize ?? 0).toFixed(0)} of ${analysis.keptSamples} weighted samples` },
+      { label: 'supernovae', value: String(record.data.supernovae) },
+      chiSquare,
+      { label: 'likelihood evaluations', value: String(record.run.evaluations) },
+    ],
+  };
+}
+
 /**
  * Writes every output of one run into `outDir` from its folder's chains and
  * records: summary.json, summary.md, table.tex, marginal and contour files,
  * figures (SVG and PNG) and report.html. Pure function of the run folder's
  * files, so `candela report` reproduces what `candela fit` wrote, byte for byte.
+ * Nested runs use their posterior weights everywhere, have no trace figure,
+ * and their report page states that the Markov-chain convergence checks do
+ * not apply, giving ln Z and the Kish effective sample size instead.
+ *
+ * Cost: the analysis (analyzeRun) plus rendering the figures.
+ * @param run the run folder read back.
+ * @param outDir where to write (created when missing).
+ * @returns the analysis.
+ * @throws CandelaError from the analysis or figures; Error from the file system.
+ * @example writeRunOutputs(readRunFolder('out/run'), 'out/run')
  */
 export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
   const analysis = analyzeRun(run);
@@ -134,35 +183,30 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
     const svg = hubbleSvg(run);
     if (svg) figures.push({ title: 'Hubble diagram and residuals at the best fit', svg, fileName: 'hubble' });
   }
-  if (wanted.includes('trace')) figures.push({ title: 'Traces (walker mean per ensemble); shaded: burn-in', svg: traceSvg(run, analysis), fileName: 'trace' });
+  // Traces show Markov chains; nested samples are not a chain, so nested runs have no trace figure.
+  if (wanted.includes('trace') && analysis.method === 'ensemble') figures.push({ title: 'Traces (walker mean per ensemble); shaded: burn-in', svg: traceSvg(run, analysis), fileName: 'trace' });
   for (const figure of figures) {
     writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.svg`), figure.svg);
     if (png) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.png`), svgToPng(figure.svg, PNG_WIDTH_PX));
   }
   writeFileAtomic(join(outDir, RUN_FILES.report), reportHtml({
     title: `${run.record.title} — ${run.record.model.label}`,
-    facts: {
-      seed: run.record.run.seed, steps: run.record.run.steps, walkers: run.record.run.walkers, ensembles: run.record.run.ensembles,
-      stopReason: run.record.run.stop_reason, wallTimeSeconds: run.record.run.wall_seconds, version: run.record.tool.version, model: run.record.model.label,
-      extra: [
-        { label: 'supernovae', value: String(run.record.data.supernovae) },
-        { label: 'chi-square at best fit', value: run.record.best_fit.chi_square === null ? 'n/a' : `${run.record.best_fit.chi_square.toFixed(2)} for ${run.record.best_fit.degrees_of_freedom} degrees of freedom` },
-        { label: 'likelihood evaluations', value: String(run.record.run.evaluations) },
-      ],
-    },
+    facts: reportFacts(run, analysis),
     summary: {
       columns: ['Mean ± sd', 'Median, 68.27% errors', '95.45% interval'],
       rows: analysis.summary.parameters.map((parameter) => {
         const cells = summaryCells(parameter, 'plain');
         return { parameter: parameter.name, cells: [cells.meanSd, cells.median68, cells.interval95] };
       }),
+      ...(analysis.method === 'nested' ? { note: `Weighted nested-sampling samples (Kish effective sample size ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}).` } : {}),
     },
     diagnostics: {
       rows: analysis.sampled.filter((name) => analysis.diagnostics[name]).map((name) => {
         const d = analysis.diagnostics[name];
         return { parameter: name, rHat: d.rhat ?? Number.NaN, ess: d.essBulk ?? 0, autocorrelationTimeSteps: d.tau ?? Number.NaN };
       }),
-      chainLengthSteps: analysis.steps, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess, tauMultiple: 50, acceptanceFraction: analysis.acceptanceMean,
+      chainLengthSteps: analysis.steps, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess, tauMultiple: 50,
+      ...(analysis.acceptanceMean !== null ? { acceptanceFraction: analysis.acceptanceMean } : {}),
     },
     figures,
     configurationYaml: stringify(run.record.configuration),
@@ -176,6 +220,11 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
  * `candela report`: rebuilds the outputs of one run folder in place (or in
  * `outDir`), or, for several folders, overlays their posteriors in one
  * triangle figure in `outDir`.
+ * @param runDirs run folders written by `candela fit`.
+ * @param outDir output folder.
+ * @returns one analysis per run.
+ * @throws CandelaError for unreadable run folders.
+ * @example buildRunOutputs(['out/run'], 'out/run')
  */
 export function buildRunOutputs(runDirs: string[], outDir: string): RunAnalysis[] {
   const runs = runDirs.map(readRunFolder);

@@ -4,11 +4,17 @@ import { CandelaError } from '../errors.js';
 /**
  * chains.csv: one row per stored sample, ensemble-major then step then walker.
  * Columns: ensemble, walker, step, every sampled parameter, every derived
- * quantity, log_prior, log_likelihood, log_posterior, burn_in (1 for steps
- * inside the burn-in, else 0). Numbers are written as the shortest decimal
- * that reads back as the same double (ECMAScript Number#toString), so the file
- * is exact and identical on every machine; a derived quantity that does not
- * exist for a sample (no acceleration epoch) is an empty cell.
+ * quantity, log_prior, log_likelihood, log_posterior, [weight,] burn_in (1 for
+ * steps inside the burn-in, else 0). Numbers are written as the shortest
+ * decimal that reads back as the same double (ECMAScript Number#toString), so
+ * the file is exact and identical on every machine; a derived quantity that
+ * does not exist for a sample (no acceleration epoch) is an empty cell.
+ *
+ * The `weight` column exists only for weighted samples (nested sampling: one
+ * row per dead or final live point, ensemble 0, walker 0, step = iteration,
+ * weight = normalized posterior weight, the weights summing to 1, burn_in 0).
+ * Ensemble-sampler chains are equally weighted and have no weight column, so
+ * their files are unchanged by this option.
  */
 export interface ChainColumns {
   /** Sampled parameter names, in theta order. */
@@ -40,6 +46,8 @@ export interface ChainTable {
   burnIn: Uint8Array;
   /** Column values by name (NaN for empty cells). */
   columns: Record<string, Float64Array>;
+  /** Posterior weight per row (the `weight` column of a nested-sampling run), or null for equally weighted chains. */
+  weights: Float64Array | null;
   rows: number;
 }
 
@@ -50,20 +58,36 @@ function cell(value: number): string {
   return Number.isFinite(value) ? String(value) : value === -Infinity ? '-inf' : '';
 }
 
-/** Header names of chains.csv for these columns. */
-export function chainHeader(columns: ChainColumns): string[] {
-  return ['ensemble', 'walker', 'step', ...columns.parameters, ...columns.derived, 'log_prior', 'log_likelihood', 'log_posterior', 'burn_in'];
+/** Name of the optional posterior-weight column. */
+export const WEIGHT_COLUMN = 'weight';
+
+/** Header names of chains.csv for these columns (with the weight column when `weighted`). */
+export function chainHeader(columns: ChainColumns, weighted = false): string[] {
+  return ['ensemble', 'walker', 'step', ...columns.parameters, ...columns.derived, 'log_prior', 'log_likelihood', 'log_posterior', ...(weighted ? [WEIGHT_COLUMN] : []), 'burn_in'];
 }
 
 /**
  * Writes chains.csv atomically (temporary file in the same folder, fsync,
  * rename), streaming rows so memory stays O(rows per write).
+ * @param path the file to write.
+ * @param columns sampled and derived names.
+ * @param ensembles the draws, one entry per ensemble.
+ * @param burnInSteps steps flagged as burn-in (0 for nested sampling).
+ * @param weights optional posterior weight per row, in file order (all ensembles' rows
+ *   concatenated); when given, a `weight` column is written before `burn_in`.
+ * @throws Error from the file system; CandelaError `run.bad_weights` when the weight count differs from the row count.
+ * @example writeChainsFile('out/chains.csv', { parameters: ['omega_m'], derived: [] }, [draws], 0, weights)
  */
-export function writeChainsFile(path: string, columns: ChainColumns, ensembles: EnsembleDraws[], burnInSteps: number): void {
+export function writeChainsFile(path: string, columns: ChainColumns, ensembles: EnsembleDraws[], burnInSteps: number, weights?: Float64Array): void {
+  const rowCount = ensembles.reduce((sum, draws) => sum + draws.steps * draws.walkers, 0);
+  if (weights && weights.length !== rowCount) {
+    throw new CandelaError({ code: 'run.bad_weights', file: path, message: 'one posterior weight per stored sample is needed', expected: `${rowCount} weights`, found: String(weights.length) });
+  }
+  let rowIndex = 0;
   const temporary = `${path}.tmp-${process.pid}`;
   const fd = openSync(temporary, 'w');
   try {
-    writeSync(fd, `${chainHeader(columns).join(',')}\n`);
+    writeSync(fd, `${chainHeader(columns, weights !== undefined).join(',')}\n`);
     const derivedCount = columns.derived.length;
     let buffer: string[] = [];
     ensembles.forEach((draws, ensembleIndex) => {
@@ -75,7 +99,10 @@ export function writeChainsFile(path: string, columns: ChainColumns, ensembles: 
           for (let d = 0; d < dimension; d++) parts.push(cell(draws.positions[row * dimension + d]));
           const blobBase = row * blobCount;
           for (let k = 0; k < derivedCount; k++) parts.push(cell(draws.blobs[blobBase + 2 + k]));
-          parts.push(cell(draws.blobs[blobBase]), cell(draws.blobs[blobBase + 1]), cell(draws.logProb[row]), step < burnInSteps ? '1' : '0');
+          parts.push(cell(draws.blobs[blobBase]), cell(draws.blobs[blobBase + 1]), cell(draws.logProb[row]));
+          if (weights) parts.push(cell(weights[rowIndex]));
+          parts.push(step < burnInSteps ? '1' : '0');
+          rowIndex++;
           buffer.push(parts.join(','));
           if (buffer.length >= ROWS_PER_WRITE) {
             writeSync(fd, `${buffer.join('\n')}\n`);
@@ -92,7 +119,13 @@ export function writeChainsFile(path: string, columns: ChainColumns, ensembles: 
   renameSync(temporary, path);
 }
 
-/** Reads chains.csv back; throws a CandelaError naming the line of a malformed row. */
+/**
+ * Reads chains.csv back (with or without a weight column).
+ * @param path the chains file.
+ * @returns the columns, with `weights` set when the file has a weight column.
+ * @throws CandelaError `run.no_chains` when unreadable, `run.bad_chains` naming the line of a malformed row or missing columns.
+ * @example readChainsFile('out/run/chains.csv').columns.omega_m
+ */
 export function readChainsFile(path: string): ChainTable {
   let text: string;
   try {
@@ -114,7 +147,7 @@ export function readChainsFile(path: string): ChainTable {
   const table: ChainTable = {
     header,
     ensemble: new Int32Array(rows), walker: new Int32Array(rows), step: new Int32Array(rows), burnIn: new Uint8Array(rows),
-    columns: Object.fromEntries(valueNames.map((name) => [name, new Float64Array(rows)])), rows,
+    columns: Object.fromEntries(valueNames.map((name) => [name, new Float64Array(rows)])), weights: null, rows,
   };
   const valueIndex = valueNames.map((name) => [index(name), table.columns[name]] as const);
   const [ie, iw, is, ib] = ['ensemble', 'walker', 'step', 'burn_in'].map(index);
@@ -132,5 +165,6 @@ export function readChainsFile(path: string): ChainTable {
       column[r] = text === '' ? Number.NaN : text === '-inf' ? -Infinity : Number(text);
     }
   }
+  if (header.includes(WEIGHT_COLUMN)) table.weights = table.columns[WEIGHT_COLUMN];
   return table;
 }

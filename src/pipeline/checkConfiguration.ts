@@ -1,11 +1,16 @@
 /**
- * `candela check`, configuration part: read and validate a configuration
- * file and summarize what it would run.
+ * `candela check`: read and validate a configuration file, then read and
+ * check every data and covariance file it names (columns, numbers, errors,
+ * covariance shape, symmetry and positive definiteness), apply the cuts, build
+ * each model's likelihood, and summarize what would run.
  */
 import type { Issue } from '../errors.js';
 import { CandelaError } from '../errors.js';
 import { describeConfig, readConfigFile } from '../config/index.js';
 import type { CandelaConfig } from '../config/index.js';
+import { formatCutReport } from '../data/index.js';
+import { buildModel } from './buildModel.js';
+import { loadSupernovae } from './loadSupernovae.js';
 
 /** What checkConfiguration found. */
 export interface ConfigurationCheck {
@@ -17,14 +22,30 @@ export interface ConfigurationCheck {
 }
 
 /**
- * Reads and validates a configuration file. Data files are not opened yet.
- * Cost: one file read and the validation (milliseconds).
+ * Reads and validates a configuration file, then its data (unless
+ * `configOnly`): the cut report per data set and the likelihood each model
+ * would use are added to the summary.
+ * Cost: the file reads, and one covariance factorization per model.
  * @param path the configuration file; paths inside it resolve against its folder.
  * @throws CandelaError listing every problem, warnings included, when there is at least one error.
  * @example checkConfiguration('configs/jla.yaml').summaryLines[0] // 'title: JLA ... (file configs/jla.yaml)'
  */
-export function checkConfiguration(path: string): ConfigurationCheck {
+export function checkConfiguration(path: string, options: { configOnly?: boolean } = {}): ConfigurationCheck {
   const result = readConfigFile(path);
   if (!result.ok) throw new CandelaError(result.issues);
-  return { config: result.value, summaryLines: describeConfig(result.value), warnings: result.warnings };
+  const config = result.value;
+  const summaryLines = describeConfig(config);
+  const warnings = [...result.warnings];
+  if (!options.configOnly) {
+    const data = loadSupernovae(config);
+    warnings.push(...data.warnings);
+    for (const { label, report } of data.cutReports) {
+      summaryLines.push(`data set "${label}":`, ...formatCutReport(report).map((line) => `  ${line}`));
+    }
+    config.models.forEach((model, index) => {
+      const built = buildModel(config, index, data);
+      summaryLines.push(`likelihood of model "${model.label}":`, ...built.supernovae.describe().map((line) => `  ${line}`));
+    });
+  }
+  return { config, summaryLines, warnings };
 }

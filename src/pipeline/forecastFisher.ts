@@ -11,13 +11,21 @@ import type { FisherMarginals } from './forecastMarginals.js';
 import type { ForecastSetup } from './forecastSetups.js';
 
 /**
- * Pilot step of the finite differences, relative to max(1, |value|): small
- * enough to stay in the quadratic region of any parameter, large enough
- * that rounding of ln L (~1e-13 absolute) is negligible.
+ * Pilot step of the finite differences, relative to max(1, |value|): only
+ * sets the scale of the final step (F_ii to ~1e-8).
  */
 export const PILOT_RELATIVE_STEP = 1e-4;
-/** Final step of parameter i: this fraction of its conditional error 1/sqrt(F_ii) from the pilot pass. */
-export const STEP_FRACTION_OF_SIGMA = 0.1;
+/**
+ * Final step of parameter i: this fraction of its conditional error
+ * 1/sqrt(F_ii) from the pilot pass. The truncation error of central
+ * differences is O(h^2) relative to the scale on which the model is
+ * nonlinear, and degenerate directions (w0-wa-omega_m) amplify it in the
+ * marginal errors: a tenth of sigma changed them by 1e-3 to 1e-1 on halving,
+ * a thousandth by 2e-8 to 2e-5 (measured on 90- and 800-supernova surveys).
+ * Rounding stays small because chi^2 itself is differenced (its relative
+ * precision is ~1e-9 at these steps); a ten-thousandth starts to show it.
+ */
+export const STEP_FRACTION_OF_SIGMA = 1e-3;
 /**
  * Step of the variance derivatives, relative to max(1, |value|): the
  * variances are quadratic in alpha, beta and sigma_int, so central
@@ -42,6 +50,8 @@ export interface ModelForecast {
   fixed: Record<string, number>;
   /** Finite-difference steps of the mean part, per parameter (0 for parameters that shape only the covariance). */
   steps: number[];
+  /** The step rule's fraction of the conditional errors. */
+  stepFraction: number;
   /** Fisher matrix including the Gaussian priors, row major. */
   fisher: Float64Array;
   marginals: FisherMarginals;
@@ -67,11 +77,11 @@ export interface ModelForecast {
  * supernova likelihood the fit uses, on the noise-free table, with C held at
  * its value at the truth: on expected data the residual vanishes at the truth,
  * so this curvature equals mu_,i^T C^-1 mu_,j exactly. It is computed by
- * central differences (centralDifferenceHessian) with step rule: a pilot pass
- * with h = PILOT_RELATIVE_STEP max(1, |theta_i|) gives F_ii, then
- * h_i = STEP_FRACTION_OF_SIGMA / sqrt(F_ii); stability is checked by halving
- * every step. The second part is added for parameters that change the
- * variances (alpha and beta when the covariance follows them, sigma_int),
+ * central differences (centralDifferenceHessian) of chi^2/2 with step rule: a
+ * pilot pass with h = PILOT_RELATIVE_STEP max(1, |theta_i|) gives F_ii, then
+ * h_i = stepFraction / sqrt(F_ii); stability is checked by halving every
+ * step. The second part is added for parameters that change the variances
+ * (alpha and beta when the covariance follows them, sigma_int),
  * from the likelihood's own variances (covarianceInformation). (The curvature
  * of ln det C on noise-free data alone is not this expectation and can even be
  * negative for sigma_int.) Gaussian priors add 1/sd^2 to the diagonal.
@@ -79,10 +89,11 @@ export interface ModelForecast {
  * step set, and O(N^3) once when the covariance part is needed.
  * @param setup the model, free parameters with their truths, fixed values, standardization.
  * @param mock the noise-free survey (generateMockSurvey with noiseless).
+ * @param stepFraction the final steps as a fraction of the conditional errors (default STEP_FRACTION_OF_SIGMA).
  * @throws CandelaError when the likelihood is not finite near the truth, a parameter carries no information, or F is degenerate.
  * @example fisherForecast(forecastSetups(survey, null, labels)[0], drawSurvey(survey, '1', true)).marginals.figureOfMerit
  */
-export function fisherForecast(setup: ForecastSetup, mock: MockSurvey): ModelForecast {
+export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFraction = STEP_FRACTION_OF_SIGMA): ModelForecast {
   const { table } = mock;
   const n = table.count;
   const covariances: CovarianceMatrix[] = mock.systematicCovariance
@@ -106,10 +117,12 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey): ModelFor
     for (let i = 0; i < meanNames.length; i++) point[meanNames[i]] = theta[i];
     return point;
   };
-  const minusLogLikelihood = (theta: Float64Array): number => -meanTerm.logLikelihood(meanValues(theta));
+  // -ln L = chi^2/2 + a constant (ln det C and N ln 2 pi do not change with C held fixed); differencing
+  // chi^2 itself keeps the rounding relative to the (small) differences instead of to |ln L|.
+  const minusLogLikelihood = (theta: Float64Array): number => 0.5 * (meanTerm.bestFitExtras?.(meanValues(theta)).chi_square ?? Number.NaN);
   const reason = (theta: Float64Array): string | null => meanTerm.rejectionReason(meanValues(theta));
   const center = Float64Array.from(meanNames, (name) => atTruth[name]);
-  const steps = chooseSteps(minusLogLikelihood, center, meanNames, reason);
+  const steps = chooseSteps(minusLogLikelihood, center, meanNames, reason, stepFraction);
   const halved = steps.map((h) => h / 2);
   const meanFisher = centralDifferenceHessian(minusLogLikelihood, center, steps, meanNames, reason);
   const meanFisherHalved = centralDifferenceHessian(minusLogLikelihood, center, halved, meanNames, reason);
@@ -138,16 +151,17 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey): ModelFor
   }
   return {
     label: setup.label, darkEnergy: setup.darkEnergy, flat: setup.flat, parameters: names, truth: setup.free.map((p) => p.value),
-    fixed: { ...setup.fixed }, steps: names.map((name) => (meanNames.includes(name) ? steps[meanNames.indexOf(name)] : 0)),
+    fixed: { ...setup.fixed }, stepFraction, steps: names.map((name) => (meanNames.includes(name) ? steps[meanNames.indexOf(name)] : 0)),
     fisher, marginals, priors, covarianceParameters: covariancePart.names,
     chiSquareAtTruth: meanTerm.bestFitExtras?.(atTruth).chi_square ?? Number.NaN,
     halvedStepChange, notes: [...setup.notes, ...priorLimitNotes(setup, marginals)],
   };
 }
 
-/** The step rule: a pilot diagonal pass, then a tenth of each conditional error. */
+/** The step rule: a pilot diagonal pass, then `stepFraction` of each conditional error. */
 function chooseSteps(
   f: (theta: Float64Array) => number, center: Float64Array, names: readonly string[], reason: (theta: Float64Array) => string | null,
+  stepFraction: number,
 ): Float64Array {
   const pilot = Float64Array.from(center, (value) => PILOT_RELATIVE_STEP * Math.max(1, Math.abs(value)));
   const steps = new Float64Array(center.length);
@@ -160,7 +174,7 @@ function chooseSteps(
         fix: `fix ${names[i]} or give it a Gaussian prior in the fit configuration`,
       });
     }
-    steps[i] = STEP_FRACTION_OF_SIGMA / Math.sqrt(curvature);
+    steps[i] = stepFraction / Math.sqrt(curvature);
   }
   return steps;
 }

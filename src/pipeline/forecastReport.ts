@@ -47,7 +47,7 @@ function modelLines(model: ModelForecast): string[] {
     });
   }
   lines.push(`  covariance information from: ${model.covarianceParameters.length ? model.covarianceParameters.join(', ') : 'none (the covariance does not follow the free parameters)'}`);
-  lines.push(`  steps: a tenth of each conditional error; halving them changes the results by ${model.halvedStepChange.toExponential(1)} (relative)`);
+  lines.push(`  steps: ${model.stepFraction} of each conditional error; halving them changes the results by ${model.halvedStepChange.toExponential(1)} (relative)`);
   lines.push(`  chi^2 of the noise-free survey at the truth: ${Number(model.chiSquareAtTruth.toPrecision(REPORT_DIGITS))}`);
   for (const note of model.notes) lines.push(`  note: ${note}`);
   return lines;
@@ -80,6 +80,7 @@ export function formatForecastJson(result: ForecastResult): string {
         covariance: rows(model.marginals.covariance, size),
         fisher: rows(model.fisher, size),
         fixed: model.fixed, gaussian_priors: model.priors, covariance_parameters: model.covarianceParameters,
+        step_fraction: model.stepFraction,
         steps: Object.fromEntries(model.parameters.map((name, i) => [name, model.steps[i]])),
         halved_step_change: model.halvedStepChange, chi_square_at_truth: model.chiSquareAtTruth, notes: model.notes,
       };

@@ -1,4 +1,4 @@
-import type { CandelaConfig, PriorSpec, SurveyDescription } from '../config/index.js';
+import type { CandelaConfig, PriorSpec, SurveyDescription, SurveyTruth } from '../config/index.js';
 import { PARAMETER_ORDER, parametersForModel, parseParameterName } from '../config/index.js';
 import type { DarkEnergyLaw } from '../cosmology/index.js';
 import { CandelaError } from '../errors.js';
@@ -26,6 +26,12 @@ export interface ForecastSetup {
   free: ForecastParameter[];
   /** Values held fixed, by parameter name. */
   fixed: Record<string, number>;
+  /**
+   * The model's fiducial: the survey truth with the model's dark-energy law,
+   * curvature and fixed values substituted. Its noise-free survey is what the
+   * model is forecast on (the survey truth itself whenever the model contains it).
+   */
+  fiducial: SurveyTruth;
   /** What the reader of the forecast should know (differences from the truth, changed settings). */
   notes: string[];
 }
@@ -41,7 +47,12 @@ export interface ForecastSetup {
  * marginalized offset becomes abs_mag with a flat prior, which gives the
  * same marginal errors for the others in the Fisher approximation). abs_mag
  * is evaluated at M + 5 log10(h0_fixed / h0_true), the value that gives the
- * same magnitudes when h0 is fixed elsewhere than the truth. Cost O(models x parameters).
+ * same magnitudes when h0 is fixed elsewhere than the truth. A model that
+ * cannot reproduce the truth (a fixed w0 = -1 against a truth with w0 =
+ * -0.9, a fixed alpha off the truth, no host-mass step) is forecast at its
+ * own fiducial (ForecastSetup.fiducial), said in a note: the Fisher matrix is
+ * the curvature at a point where the model fits the expected data.
+ * Cost O(models x parameters).
  * @param survey the survey description (the truth).
  * @param config the fit configuration, or null for the default setup.
  * @param sampleLabels the mock's sample labels (for per-sample parameters).
@@ -63,6 +74,7 @@ export function forecastSetups(survey: SurveyDescription, config: CandelaConfig 
       },
       free: names.map((name) => ({ name, value: truthValue(survey, name, fixed.h0) as number, prior: null })),
       fixed,
+      fiducial: { ...truth, darkEnergy: 'cpl' },
       notes: ['no fit configuration given: default parameter set (h0 and sigma_int fixed at the truth, no priors)'],
     }];
   }
@@ -100,10 +112,15 @@ export function forecastSetups(survey: SurveyDescription, config: CandelaConfig 
       const expected = name === 'h0' ? truth.h0KmPerSPerMpc : truthValue(survey, name, h0);
       if (expected === null || Math.abs(value - expected) <= SAME_VALUE_TOLERANCE * Math.max(1, Math.abs(expected))) continue;
       notes.push(name === 'h0'
-        ? `h0 is fixed at ${value} (truth ${expected}): abs_mag is evaluated at M + 5 log10(${value}/${expected}), which gives the same magnitudes`
-        : `${name} is fixed at ${value} but the truth is ${expected}: the model cannot reproduce the survey exactly, and real fits would be biased`);
+        ? `h0 is fixed at ${value} (survey truth ${expected}): abs_mag is evaluated at M + 5 log10(${value}/${expected}), which gives the same magnitudes`
+        : `${name} is fixed at ${value} (survey truth ${expected}): this model is forecast on the survey drawn with ${name} = ${value}; a fit to the survey itself would be biased`);
     }
-    if (!standardization.hostMassStep.enabled && truth.massStepMag !== 0) notes.push(`the fit has no host-mass step, but the truth has mass_step = ${truth.massStepMag}`);
+    if (!standardization.hostMassStep.enabled && truth.massStepMag !== 0) {
+      notes.push(`the fit has no host-mass step (survey truth mass_step = ${truth.massStepMag}): this model is forecast on the survey drawn without one`);
+    }
+    if (standardization.hostMassStep.enabled && standardization.hostMassStep.shape === 'logistic') {
+      notes.push('the fit uses a logistic host-mass step, the mock a sharp one: the noise-free survey is not exactly reproduced at the truth');
+    }
     if (model.radiation) notes.push('the model includes radiation, the mock truth does not (a difference of order 1e-4 in distances)');
     return {
       label: model.label, darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', radiation: model.radiation,
@@ -119,8 +136,35 @@ export function forecastSetups(survey: SurveyDescription, config: CandelaConfig 
         frozenAt: standardization.frozenAt ?? undefined,
       },
       free: parameters, fixed, notes,
+      fiducial: fiducialTruth(survey, model, standardization.hostMassStep, parameters, fixed),
     };
   });
+}
+
+/** The survey truth with a model's law, curvature, free-parameter truths and fixed values. */
+function fiducialTruth(
+  survey: SurveyDescription, model: CandelaConfig['models'][number], step: CandelaConfig['standardization']['hostMassStep'],
+  free: readonly ForecastParameter[], fixed: Record<string, number>,
+): SurveyTruth {
+  const truth = survey.truth;
+  const point: Record<string, number> = { ...fixed };
+  for (const parameter of free) point[parameter.name] = parameter.value;
+  const flat = model.curvature === 'flat';
+  return {
+    darkEnergy: model.darkEnergy,
+    curvature: model.curvature,
+    omegaMatter: point.omega_m ?? truth.omegaMatter,
+    omegaDarkEnergy: flat ? null : (point.omega_de ?? truth.omegaDarkEnergy ?? 1 - truth.omegaMatter),
+    w0: model.darkEnergy === 'lambda' ? -1 : (point.w0 ?? truth.w0),
+    wa: model.darkEnergy === 'cpl' ? (point.wa ?? truth.wa) : 0,
+    h0KmPerSPerMpc: point.h0 ?? truth.h0KmPerSPerMpc,
+    alpha: point.alpha ?? truth.alpha,
+    beta: point.beta ?? truth.beta,
+    absMagMag: point.abs_mag ?? truth.absMagMag,
+    massStepMag: step.enabled ? (point.mass_step ?? truth.massStepMag) : 0,
+    splitLogMass: step.splitLogMass,
+    sigmaIntMag: point.sigma_int ?? truth.sigmaIntMag,
+  };
 }
 
 /**

@@ -5,6 +5,7 @@ import type { Issue } from '../errors.js';
 import { fisherForecast } from './forecastFisher.js';
 import type { ModelForecast } from './forecastFisher.js';
 import { forecastSetups } from './forecastSetups.js';
+import type { ForecastSetup } from './forecastSetups.js';
 import { drawSurvey, loadSurvey } from './simulateSurvey.js';
 
 /** What the caller asks of `candela simulate --forecast`. */
@@ -37,8 +38,10 @@ export interface ForecastResult {
 /**
  * Expected constraints of a survey: draws its noise-free realisation (the
  * same supernovae as `candela simulate` with this seed, every noise deviate
- * zero), builds the likelihood of each model as the fit would, and computes
- * the Fisher matrix at the truth (fisherForecast). Writes nothing.
+ * zero; for a model that does not contain the truth, the realisation of its
+ * fiducial, see forecastSetups), builds the likelihood of each model as the
+ * fit would, and computes the Fisher matrix at the truth (fisherForecast).
+ * Writes nothing.
  * Cost: an N x N factorization per model plus O(P^2 N^2); O(N^3) more per
  * model whose covariance follows alpha, beta or sigma_int.
  * @param request survey file, optional fit configuration, optional seed.
@@ -59,7 +62,10 @@ export function forecastSurvey(request: ForecastRequest): ForecastResult {
   const seed = request.seed ?? survey.value.seed;
   const mock = drawSurvey(survey.value, String(seed), true);
   const setups = forecastSetups(survey.value, config, mock.table.sampleNames);
-  const models = setups.map((setup) => fisherForecast(setup, mock));
+  const truth = survey.value.truth;
+  const sameAsTruth = (setup: ForecastSetup): boolean =>
+    (Object.keys(truth) as Array<keyof typeof truth>).every((key) => setup.fiducial[key] === truth[key]);
+  const models = setups.map((setup) => fisherForecast(setup, sameAsTruth(setup) ? mock : drawSurvey({ ...survey.value, truth: setup.fiducial }, String(seed), true)));
   const samples: Record<string, number> = {};
   for (const sample of survey.value.samples) samples[sample.label] = sample.count;
   return {

@@ -103,11 +103,23 @@ function loadDataSet(set: SupernovaDataSet, multiple: boolean) {
   if (cut.count === 0) {
     throw new CandelaError({ code: 'data.all_cut', file: set.table.file.written, path: `supernovae.${set.label}.cuts`, message: 'the cuts removed every supernova', fix: 'loosen the cuts' });
   }
-  const table = multiple ? relabelSamples(cut, set.label) : cut;
+  const relabelled = multiple ? relabelSamples(cut, set.label) : cut;
+  const table = set.covariances.some((source) => source.includesStatistical) ? withoutStatisticalErrors(relabelled) : relabelled;
   const covariances = fullCovariances.map((cov) => subsetCovariance(cov, keptIndices));
   const pdIssue = checkJoinedPositiveDefinite(table, covariances, set);
   if (pdIssue) throw new CandelaError(pdIssue);
   return { table, covariances, report, warnings: [...warnings, ...report.warnings] };
+}
+
+/**
+ * When a covariance file already holds the statistical errors, the per-row
+ * error columns must not be added again: they are zeroed (after the cuts,
+ * which may still use them).
+ */
+function withoutStatisticalErrors(table: SupernovaTable): SupernovaTable {
+  const zero = () => new Float64Array(table.count);
+  if (table.kind === 'magnitudes') return { ...table, magnitudeErr: zero() };
+  return { ...table, peakMagErr: zero(), stretchErr: zero(), colorErr: zero(), covPeakMagStretch: zero(), covPeakMagColor: zero(), covStretchColor: zero() };
 }
 
 /** With several data sets, sample labels are prefixed by the data-set label so they stay distinct. */

@@ -3,12 +3,25 @@ import { join } from 'node:path';
 import { CandelaError } from '../errors.js';
 import { readChainsFile, type ChainTable } from './chainsFile.js';
 import { RUN_FILES } from './runFolder.js';
+import type { NestedRunFacts } from './nestedRunRecord.js';
 import type { RunRecord } from './runRecord.js';
+
+/**
+ * run.json as read back: the ensemble sampler's record, or a nested-sampling
+ * record, which adds `sampler` (method and settings) and `evidence`. Records
+ * without `sampler` come from the ensemble sampler.
+ */
+export type StoredRunRecord = RunRecord & Partial<NestedRunFacts>;
+
+/** The sampler that wrote a run: `nested` when run.json says so, else `ensemble`. */
+export function samplerMethodOf(record: StoredRunRecord): 'ensemble' | 'nested' {
+  return record.sampler?.method === 'nested' ? 'nested' : 'ensemble';
+}
 
 /** A finished run folder read back: what `candela report` works from. */
 export interface RunOnDisk {
   dir: string;
-  record: RunRecord;
+  record: StoredRunRecord;
   chains: ChainTable;
   hubble: { columns: Record<string, string[]> } | null;
   hubbleModel: Record<string, Float64Array> | null;
@@ -31,11 +44,18 @@ function readCsvColumns(path: string): Record<string, string[]> | null {
   return columns;
 }
 
-/** Reads run.json, chains.csv and the Hubble-diagram files of a run folder. */
+/**
+ * Reads run.json, chains.csv and the Hubble-diagram files of a run folder
+ * (ensemble or nested-sampling run).
+ * @param dir the run folder.
+ * @returns the record, the chains (with weights for nested runs) and the Hubble files (null when absent).
+ * @throws CandelaError `run.no_record` without a readable run.json; the errors of readChainsFile.
+ * @example readRunFolder('out/pantheon/flat_lcdm').record.model.label // 'flat_lcdm'
+ */
 export function readRunFolder(dir: string): RunOnDisk {
-  let record: RunRecord;
+  let record: StoredRunRecord;
   try {
-    record = JSON.parse(readFileSync(join(dir, RUN_FILES.run), 'utf8')) as RunRecord;
+    record = JSON.parse(readFileSync(join(dir, RUN_FILES.run), 'utf8')) as StoredRunRecord;
   } catch {
     throw new CandelaError({ code: 'run.no_record', file: join(dir, RUN_FILES.run), message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
   }

@@ -19,6 +19,7 @@ import { createRunRecord, type RunRecord } from './runRecord.js';
 import { writeHubbleFiles } from './hubbleFiles.js';
 import { buildRunOutputs } from './buildRunOutputs.js';
 import { workerModelUrl } from './workerModel.js';
+import { fitNestedModel } from './nestedFit.js';
 
 /** Steps advanced between looks at the stop signal and the clock (keeps Ctrl-C responsive). */
 const STEPS_PER_SLICE = 25;
@@ -97,6 +98,7 @@ async function createEvaluator(config: CandelaConfig, index: number, model: Buil
 }
 
 async function fitOneModel(config: CandelaConfig, index: number, model: BuiltModel, data: LoadedSupernovae, runDir: string, request: FitRequest): Promise<FitOutcome> {
+  if (config.sampler.method === 'nested') return fitNestedModel(config, index, model, data, runDir, request);
   const started = Date.now();
   const settings = config.sampler;
   const seed = String(config.seed);

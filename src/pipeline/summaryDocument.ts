@@ -8,6 +8,19 @@ export const SUMMARY_SCHEMA = 'candela-summary-1';
  * summary.json: the numbers a paper quotes and a referee checks, as plain
  * JSON (the README documents every key). Built from the chains and run.json
  * only, so it is reproduced exactly by `candela report`.
+ *
+ * Nested-sampling runs differ in three places: `diagnostics` is empty and
+ * `convergence` says the Markov-chain checks do not apply, giving the Kish
+ * effective sample size and the stopping criterion instead; `evidence`
+ * carries ln Z and its error from run.json; `sampler` names the method.
+ * Ensemble runs keep the original layout (no `sampler` or `evidence` keys).
+ *
+ * Cost: O(parameters^2).
+ * @param run the run folder read back.
+ * @param analysis its analysis (analyzeRun).
+ * @returns the JSON-ready document.
+ * @throws nothing.
+ * @example JSON.stringify(summaryDocument(run, analyzeRun(run)), null, 2)
  */
 export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
   const { record } = run;
@@ -21,8 +34,29 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
   }]));
   const names = analysis.summary.correlationNames ?? [];
   const matrix = names.map((_, i) => names.map((__, j) => analysis.summary.correlation?.[i * names.length + j] ?? null));
+  const nested = analysis.method === 'nested';
+  const convergence = nested
+    ? {
+      applies: false,
+      note: 'nested sampling draws weighted samples, not Markov chains: R-hat, per-chain ESS and autocorrelation times do not apply',
+      passed: analysis.converged,
+      stop: record.sampler?.stop ?? null,
+      dlogz: record.sampler?.dlogz ?? null,
+      remaining_log_z: record.sampler?.remaining_log_z ?? null,
+      effective_sample_size_kish: analysis.effectiveSampleSize,
+      weighted_samples: analysis.keptSamples,
+    }
+    : {
+      passed: analysis.converged,
+      target_ess: record.run.target_ess,
+      max_rhat: record.run.max_rhat,
+      acceptance_mean: analysis.acceptanceMean,
+      stuck_walkers: analysis.stuckWalkers,
+      minimum_chain_length_over_tau: 50,
+    };
   return {
     schema: SUMMARY_SCHEMA,
+    ...(nested ? { sampler: { method: 'nested', live_points: record.sampler?.live_points ?? null, dlogz: record.sampler?.dlogz ?? null } } : {}),
     title: record.title,
     model: record.model,
     parameters,
@@ -38,14 +72,8 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
       abs_mag_best_fit: record.best_fit.abs_mag,
       best_fit_parameters: record.best_fit.parameters,
     },
-    convergence: {
-      passed: analysis.converged,
-      target_ess: record.run.target_ess,
-      max_rhat: record.run.max_rhat,
-      acceptance_mean: analysis.acceptanceMean,
-      stuck_walkers: analysis.stuckWalkers,
-      minimum_chain_length_over_tau: 50,
-    },
+    convergence,
+    ...(nested && record.evidence ? { evidence: { ...record.evidence } } : {}),
     run: {
       seed: record.run.seed,
       steps: record.run.steps,
