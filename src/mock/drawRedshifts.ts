@@ -11,7 +11,7 @@ export const REDSHIFT_GRID_POINTS = 2001;
  * distribution (trapezoid cumulative on a uniform grid, linear inversion):
  * `uniform` is flat in z; `volume` is a constant comoving rate,
  * dN/dz ∝ D_C(z)^2 / (E(z) (1 + z)) (the comoving volume element
- * dV/dz = 4 pi D_C^2 c / (H0 E(z)) of a flat universe, e.g. Hogg 1999 eq. 28,
+ * dV/dz = 4 pi D_C^2 c / (H0 E(z)) of a flat universe, Hogg 1999, eq. 28 from memory,
  * with the (1 + z) time dilation of the observed rate). Draws come in random
  * order (not sorted). Cost O(grid + count log grid).
  * @param design the sample (count and redshift range and shape).

@@ -10,7 +10,7 @@ import type { MockSampleDesign, MockSurveyOptions } from './mockSurveyOptions.js
  *   sigma_mB^2 + alpha^2 sigma_x1^2 + beta^2 sigma_c^2 + 2 alpha C(mB,x1) - 2 beta C(mB,c) - 2 alpha beta C(x1,c)
  *   + sigma_int^2 + (lensing z)^2 + [(5 / ln 10) sigma_v / (c z)]^2
  *
- * the light-curve part of the JLA covariance (Betoule et al. 2014, eq. 13)
+ * the light-curve part of the JLA covariance (Betoule et al. 2014, eq. 13 from memory)
  * plus the scatter terms in their usual low-redshift form. The systematic
  * modes are not included (they are the off-diagonal covariance). Cost O(1).
  * @param options the survey (truth alpha, beta, sigma_int; lensing per unit z, mag; velocity dispersion, km/s).

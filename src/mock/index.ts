@@ -12,6 +12,8 @@ export { REDSHIFT_GRID_POINTS } from './drawRedshifts.js';
 export { lightCurveErrors } from './lightCurveErrors.js';
 export { errorAtRedshift } from './lightCurveErrors.js';
 export type { LightCurveErrors } from './lightCurveErrors.js';
+// systematic modes
 export { systematicCovariance } from './systematicCovariance.js';
+export { MAX_COVARIANCE_SUPERNOVAE } from './systematicCovariance.js';
 // expectations
 export { expectedResidualVariance } from './expectedResidualVariance.js';

@@ -1,4 +1,8 @@
+import { CandelaError } from '../errors.js';
 import type { MockSurveyOptions } from './mockSurveyOptions.js';
+
+/** Largest survey with a dense systematic covariance: 10^4 supernovae take 800 MB of doubles. */
+export const MAX_COVARIANCE_SUPERNOVAE = 10_000;
 
 /**
  * The covariance of the mock's systematic modes on the magnitudes:
@@ -12,12 +16,20 @@ import type { MockSurveyOptions } from './mockSurveyOptions.js';
  * @param redshift the Hubble-diagram redshift per supernova.
  * @param sampleIndex index into options.samples per supernova.
  * @returns N x N row major, mag^2, or null when no mode is on.
+ * @throws CandelaError `mock.covariance_too_large` above {@link MAX_COVARIANCE_SUPERNOVAE} supernovae with a mode on.
  * @example systematicCovariance(options, Float64Array.of(0.1, 0.5), Int32Array.of(0, 0)) // [s^2 + d^2 0.01, s^2 + d^2 0.05, ...]
  */
 export function systematicCovariance(options: MockSurveyOptions, redshift: Float64Array, sampleIndex: Int32Array): Float64Array | null {
   const anyCalibration = options.samples.some((s) => s.calibrationOffsetMag > 0);
   if (!anyCalibration && !(options.redshiftDriftMag > 0)) return null;
   const n = redshift.length;
+  if (n > MAX_COVARIANCE_SUPERNOVAE) {
+    throw new CandelaError({
+      code: 'mock.covariance_too_large', path: 'samples', message: `a dense systematic covariance of ${n} supernovae would need ${((8 * n * n) / 1e9).toFixed(1)} GB`,
+      expected: `at most ${MAX_COVARIANCE_SUPERNOVAE} supernovae with calibration offsets or a redshift drift`, found: String(n),
+      fix: 'set calibration_offset_mag and redshift_drift_mag to 0, or draw fewer supernovae',
+    });
+  }
   const covariance = new Float64Array(n * n);
   const calibrationVariance = options.samples.map((s) => s.calibrationOffsetMag * s.calibrationOffsetMag);
   const driftVariance = options.redshiftDriftMag * options.redshiftDriftMag;

@@ -1,7 +1,11 @@
 import type { CandelaConfig } from '../config/index.js';
 import { derivedForModel, parametersForModel } from '../config/index.js';
-import { createPosterior, createSupernovaTerm, type Posterior, type SupernovaTerm } from '../likelihood/index.js';
+import { createHierarchicalSupernovaTerm, createPosterior, createSupernovaTerm, type Posterior, type SupernovaTerm } from '../likelihood/index.js';
 import type { DarkEnergyLaw } from '../cosmology/index.js';
+import type { HierarchicalTerm } from '../likelihood/index.js';
+
+/** The supernova term of a model: conventional or hierarchical standardization. */
+export type SupernovaLikelihood = SupernovaTerm | HierarchicalTerm;
 import type { LogProbabilityModel } from '../sampler/index.js';
 import { createDerivedParameters } from './derivedParameters.js';
 import type { LoadedSupernovae } from './loadSupernovae.js';
@@ -19,7 +23,7 @@ export const BLOB_FIRST_DERIVED = 2;
 export interface BuiltModel {
   label: string;
   posterior: Posterior;
-  supernovae: SupernovaTerm;
+  supernovae: SupernovaLikelihood;
   /** Sampled parameter names, in theta order. */
   parameterNames: string[];
   /** Fixed parameter values. */
@@ -46,7 +50,7 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
   const model = config.models[modelIndex];
   const { free, fixed } = parametersForModel(config, modelIndex, data.table.sampleNames);
   const standardization = config.standardization;
-  const supernovae = createSupernovaTerm({
+  const termOptions = {
     name: 'supernovae',
     table: data.table,
     covariances: data.covariances,
@@ -69,7 +73,18 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
     },
     offset: standardization.offset,
     fixed,
-  });
+  };
+  // Conventional Tripp likelihood, or the latent-variable one of March et al. (2011) when asked for.
+  const names = [...free.map((entry) => entry.name), ...Object.keys(fixed)];
+  const supernovae: SupernovaLikelihood = standardization.method === 'hierarchical' && data.table.kind === 'light_curves'
+    ? createHierarchicalSupernovaTerm({
+      ...termOptions,
+      population: {
+        perSample: names.some((name) => /^(x1|color)_(mean|width)_/.test(name) && !/_slope$/.test(name)),
+        redshiftDependentMeans: names.includes('x1_mean_slope') || names.includes('color_mean_slope'),
+      },
+    })
+    : createSupernovaTerm(termOptions);
   const posterior = createPosterior({ free, fixed, terms: [supernovae] });
   const derivedNames = derivedForModel(config, modelIndex).filter((name) => !(name === 'omega_de' && model.curvature === 'free'));
   const fillDerived = createDerivedParameters(

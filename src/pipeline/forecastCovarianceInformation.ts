@@ -6,7 +6,7 @@ import { choleskyInPlace, logDeterminantFromCholesky } from '../math/index.js';
  *
  *   F_ij = 1/2 tr(C^-1 C_,i C^-1 C_,j)
  *
- * (Tegmark, Taylor & Heavens 1997, ApJ 480, 22, eq. 15), for parameters that
+ * (Tegmark, Taylor & Heavens 1997, ApJ 480, 22, eq. 15 from memory), for parameters that
  * change only the diagonal of C (C_,i = diag(d_i)), where it reduces to
  * 1/2 sum_ab (C^-1)_ab^2 d_i,a d_j,b. The entries of C^-1 are needed one by
  * one here, so the inverse is formed from the Cholesky factor:

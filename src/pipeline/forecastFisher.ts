@@ -2,9 +2,9 @@ import { parseParameterName } from '../config/index.js';
 import type { CovarianceMatrix } from '../data/index.js';
 import { CandelaError } from '../errors.js';
 import { createSupernovaTerm } from '../likelihood/index.js';
-import type { SupernovaTerm, SupernovaTermOptions } from '../likelihood/index.js';
+import type { SupernovaTermOptions } from '../likelihood/index.js';
 import type { MockSurvey } from '../mock/index.js';
-import { covarianceInformation } from './forecastCovarianceInformation.js';
+import { covariancePart } from './forecastCovariancePart.js';
 import { centralDifferenceHessian } from './forecastHessian.js';
 import { marginalizeFisher } from './forecastMarginals.js';
 import type { FisherMarginals } from './forecastMarginals.js';
@@ -26,14 +26,6 @@ export const PILOT_RELATIVE_STEP = 1e-4;
  * precision is ~1e-9 at these steps); a ten-thousandth starts to show it.
  */
 export const STEP_FRACTION_OF_SIGMA = 1e-3;
-/**
- * Step of the variance derivatives, relative to max(1, |value|): the
- * variances are quadratic in alpha, beta and sigma_int, so central
- * differences are exact for any step; this one keeps rounding near 1e-13.
- */
-const VARIANCE_RELATIVE_STEP = 1e-3;
-/** Largest relative disagreement of ln det C between the likelihood and the matrix assembled here before it is a bug. */
-const LOG_DETERMINANT_AGREEMENT = 1e-8;
 /** Photon temperature and neutrino species when a model includes radiation (as in buildModel). */
 const CMB_TEMPERATURE_K = 2.7255;
 const EFFECTIVE_NEUTRINO_SPECIES = 3.046;
@@ -71,7 +63,7 @@ export interface ModelForecast {
  * Heavens 1997, ApJ 480, 22): for Gaussian data with mean mu(theta) and
  * covariance C(theta),
  *
- *   F_ij = mu_,i^T C^-1 mu_,j + 1/2 tr(C^-1 C_,i C^-1 C_,j)      (TTH97 eq. 15)
+ *   F_ij = mu_,i^T C^-1 mu_,j + 1/2 tr(C^-1 C_,i C^-1 C_,j)      (TTH97 eq. 15, from memory)
  *
  * The first (mean) part is -d^2 ln L / d theta_i d theta_j of the same
  * supernova likelihood the fit uses, on the noise-free table, with C held at
@@ -127,7 +119,7 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFract
   const meanFisher = centralDifferenceHessian(minusLogLikelihood, center, steps, meanNames, reason);
   const meanFisherHalved = centralDifferenceHessian(minusLogLikelihood, center, halved, meanNames, reason);
 
-  const covariancePart = covarianceFisher(() => createSupernovaTerm({ ...base, standardization: std, fixed: setup.fixed }), atTruth, names, mock.systematicCovariance, n);
+  const fromCovariance = covariancePart(() => createSupernovaTerm({ ...base, standardization: std, fixed: setup.fixed }), atTruth, names, mock.systematicCovariance, n);
   const priors = setup.free
     .filter((p) => p.prior && (p.prior.kind === 'gaussian' || p.prior.kind === 'truncated_gaussian'))
     .map((p) => ({ name: p.name, sd: (p.prior as { sd: number }).sd }));
@@ -136,8 +128,8 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFract
     const fisher = new Float64Array(size * size);
     const meanIndex = meanNames.map((name) => names.indexOf(name));
     meanIndex.forEach((i, a) => meanIndex.forEach((j, b) => { fisher[i * size + j] += mean[a * meanNames.length + b]; }));
-    const covIndex = covariancePart.names.map((name) => names.indexOf(name));
-    covIndex.forEach((i, a) => covIndex.forEach((j, b) => { fisher[i * size + j] += covariancePart.information[a * covIndex.length + b]; }));
+    const covIndex = fromCovariance.names.map((name) => names.indexOf(name));
+    covIndex.forEach((i, a) => covIndex.forEach((j, b) => { fisher[i * size + j] += fromCovariance.information[a * covIndex.length + b]; }));
     for (const prior of priors) fisher[names.indexOf(prior.name) * (size + 1)] += 1 / (prior.sd * prior.sd);
     return fisher;
   };
@@ -152,7 +144,7 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFract
   return {
     label: setup.label, darkEnergy: setup.darkEnergy, flat: setup.flat, parameters: names, truth: setup.free.map((p) => p.value),
     fixed: { ...setup.fixed }, stepFraction, steps: names.map((name) => (meanNames.includes(name) ? steps[meanNames.indexOf(name)] : 0)),
-    fisher, marginals, priors, covarianceParameters: covariancePart.names,
+    fisher, marginals, priors, covarianceParameters: fromCovariance.names,
     chiSquareAtTruth: meanTerm.bestFitExtras?.(atTruth).chi_square ?? Number.NaN,
     halvedStepChange, notes: [...setup.notes, ...priorLimitNotes(setup, marginals)],
   };
@@ -183,42 +175,6 @@ function withOne(center: Float64Array, index: number, value: number): Float64Arr
   const copy = Float64Array.from(center);
   copy[index] = value;
   return copy;
-}
-
-/** The covariance part of F for the parameters that move the variances of the fit's likelihood. */
-function covarianceFisher(
-  createTerm: () => SupernovaTerm, atTruth: Record<string, number>, names: readonly string[], systematic: Float64Array | null, n: number,
-): { names: string[]; information: Float64Array } {
-  // The inputs of the supernova covariance model: alpha, beta (light-curve errors) and sigma_int.
-  const candidates = names.filter((name) => ['alpha', 'beta', 'sigma_int'].includes(parseParameterName(name)?.base ?? ''));
-  if (candidates.length === 0) return { names: [], information: new Float64Array(0) };
-  const term = createTerm();
-  const variances = (p: Record<string, number>): Float64Array => Float64Array.from(term.hubbleDiagram(p).distanceModulusErrorMag, (s) => s * s);
-  const used: string[] = [];
-  const derivatives: Float64Array[] = [];
-  for (const name of candidates) {
-    const h = VARIANCE_RELATIVE_STEP * Math.max(1, Math.abs(atTruth[name]));
-    const plus = variances({ ...atTruth, [name]: atTruth[name] + h });
-    const minus = variances({ ...atTruth, [name]: atTruth[name] - h });
-    const derivative = Float64Array.from(plus, (value, a) => (value - minus[a]) / (2 * h));
-    if (derivative.some((value) => value !== 0)) {
-      used.push(name);
-      derivatives.push(derivative);
-    }
-  }
-  if (used.length === 0) return { names: used, information: new Float64Array(0) };
-  const v0 = variances(atTruth);
-  const covariance = new Float64Array(n * n);
-  let systematicIsDiagonal = true;
-  if (systematic) for (let a = 0; a < n && systematicIsDiagonal; a++) for (let b = 0; b < n; b++) if (a !== b && systematic[a * n + b] !== 0) { systematicIsDiagonal = false; break; }
-  if (systematic && !systematicIsDiagonal) covariance.set(systematic);
-  for (let a = 0; a < n; a++) covariance[a * n + a] += v0[a];
-  const { information, logDeterminant } = covarianceInformation(covariance, n, derivatives);
-  const expected = term.bestFitExtras?.(atTruth).log_det_covariance ?? logDeterminant;
-  if (!(Math.abs(expected - logDeterminant) <= LOG_DETERMINANT_AGREEMENT * Math.max(1, Math.abs(expected)))) {
-    throw new Error(`forecast: the covariance assembled for the Fisher matrix (ln det ${logDeterminant}) disagrees with the likelihood's (${expected})`);
-  }
-  return { names: used, information };
 }
 
 /** Notes for bounded priors that a +-2 sigma interval would cross (the fit is then prior-limited there). */

@@ -6,7 +6,8 @@ import { CandelaError } from '../errors.js';
  *   H_ii = [f(x + h_i) - 2 f(x) + f(x - h_i)] / h_i^2
  *   H_ij = [f(x + h_i + h_j) - f(x + h_i - h_j) - f(x - h_i + h_j) + f(x - h_i - h_j)] / (4 h_i h_j)
  *
- * (e.g. Abramowitz & Stegun 1964, 25.3.23 and 25.3.26), both with error
+ * (Abramowitz & Stegun 1964, section 25.3; formula numbers 25.3.23 and
+ * 25.3.26 from memory), both with error
  * O(h^2) times fourth derivatives; exact for a quadratic up to rounding.
  * Values are differenced against f(x) to keep large constants out of the
  * differences. Cost: 1 + 2P + 2P(P - 1) evaluations for P parameters.

@@ -16,8 +16,7 @@ export interface FisherMarginals {
 /**
  * Inverts a Fisher matrix into marginalized errors, correlations and the
  * dark-energy figure of merit. The Cramer-Rao bound: sigma_i >= sqrt((F^-1)_ii)
- * for the marginalized error (Tegmark, Taylor & Heavens 1997, ApJ 480, 22,
- * eq. 6). The figure of merit is 1/sqrt(det C_{w0 wa}) of the marginal 2 x 2
+ * for the marginalized error (Tegmark, Taylor & Heavens 1997, ApJ 480, 22). The figure of merit is 1/sqrt(det C_{w0 wa}) of the marginal 2 x 2
  * block (Albrecht et al. 2006, Report of the Dark Energy Task Force). The
  * inverse is taken column by column with Cholesky solves (the full covariance
  * is the wanted result here); a matrix that is not positive definite is a

@@ -41,3 +41,8 @@ export type { FisherMarginals } from './forecastMarginals.js';
 export { covarianceInformation } from './forecastCovarianceInformation.js';
 export { formatForecastText } from './forecastReport.js';
 export { formatForecastJson } from './forecastReport.js';
+export { covariancePart } from './forecastCovariancePart.js';
+export { compareRuns } from './compareRuns.js';
+export { COMPARISON_FILES } from './compareRuns.js';
+export type { CompareRequest } from './compareRuns.js';
+export type { CompareOutcome } from './compareRuns.js';

@@ -49,6 +49,18 @@ export interface FitProgress {
   elapsedSeconds: number;
   check: ConvergenceCheck | null;
   targetEss: number;
+  /** Mean acceptance fraction over all walkers so far. */
+  acceptance: number;
+}
+
+function meanAcceptance(sampler: EnsembleSampler): number {
+  let sum = 0;
+  let count = 0;
+  for (let k = 0; k < sampler.options.ensembles; k++) {
+    const fractions = sampler.acceptanceFractions(k);
+    for (let w = 0; w < fractions.length; w++) { sum += fractions[w]; count++; }
+  }
+  return count ? sum / count : 0;
 }
 
 /** The result of one model's run. */
@@ -161,7 +173,7 @@ async function fitOneModel(config: CandelaConfig, index: number, model: BuiltMod
         saveCheckpoint();
         lastCheckpoint = sampler.stepCount;
       }
-      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps: settings.maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: settings.targetEss });
+      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps: settings.maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: settings.targetEss, acceptance: meanAcceptance(sampler) });
     }
     saveCheckpoint();
     if (sampler.stepCount < 2 * 40) {

@@ -23,7 +23,7 @@ function etaSeconds(progress: FitProgress): number | null {
 function statusLine(progress: FitProgress): string {
   const c = progress.check;
   const eta = etaSeconds(progress);
-  return `${progress.model}: step ${progress.step}/${progress.maxSteps}  accept ${formatNumber(c?.meanAcceptance, 2)}  tau ${formatNumber(c?.maxTau, 1)}  ESS ${formatNumber(c?.minEssBulk, 0)}/${progress.targetEss}  R-hat ${formatNumber(c?.maxRhat, 3)}  left ${eta === null ? '?' : `${Math.round(eta)} s`}`;
+  return `${progress.model}: step ${progress.step}/${progress.maxSteps}  accept ${formatNumber(progress.acceptance, 2)}  tau ${formatNumber(c?.maxTau, 1)}  ESS ${formatNumber(c?.minEssBulk, 0)}/${progress.targetEss}  R-hat ${formatNumber(c?.maxRhat, 3)}  left ${eta === null ? '?' : `${Math.round(eta)} s`}`;
 }
 
 /**

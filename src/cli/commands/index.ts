@@ -6,6 +6,7 @@ import { registerFitCommand } from './fit.js';
 import { registerStandardizeCommand } from './standardize.js';
 import { registerReportCommand } from './report.js';
 import { registerSimulateCommand } from './simulate.js';
+import { registerCompareCommand } from './compare.js';
 
 /**
  * Every sub-command registers itself here: one import and one call per
@@ -20,4 +21,5 @@ export function registerCommands(program: Command): void {
   registerFitCommand(program);
   registerReportCommand(program);
   registerSimulateCommand(program);
+  registerCompareCommand(program);
 }

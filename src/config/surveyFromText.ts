@@ -1,0 +1,118 @@
+/**
+ * Survey-description YAML text -> validated SurveyDescription, or the list of
+ * every problem (the same reader, positions and wording as the run
+ * configuration).
+ */
+import { LineCounter, isScalar, parseDocument } from 'yaml';
+import type { Checked, Issue } from '../errors.js';
+import { ConfigReader } from './configReader.js';
+import type { Located } from './configReader.js';
+import { DEFAULT_SEED } from './defaults.js';
+import { LABEL_PATTERN } from './readLabel.js';
+import { resolveConfigPath } from './resolveConfigPath.js';
+import type { SurveyDescription, SurveyOutput } from './surveyDescription.js';
+import { DEFAULT_SURVEY_OUTPUT, DEFAULT_SURVEY_SCATTER, DEFAULT_SURVEY_TITLE } from './surveyDefaults.js';
+import { surveyMissingKey } from './surveyMissingKey.js';
+import { readSurveySamples } from './surveySampleReader.js';
+import { readSurveyTruth } from './surveyTruthReader.js';
+
+/** The top-level keys of a survey description, in documentation order. */
+export const SURVEY_TOP_LEVEL_KEYS = [
+  'title', 'seed', 'truth', 'lensing_per_redshift', 'peculiar_velocity_km_s', 'redshift_drift_mag', 'samples', 'output',
+] as const;
+const OUTPUT_KEYS = ['dir', 'table', 'covariance', 'truth'] as const;
+
+/**
+ * Parses and validates a survey description. YAML syntax errors are reported
+ * with their positions (the content is then not checked); otherwise every
+ * problem is collected, each with file, line:column, key path, what was
+ * expected and found, and a fix (did-you-mean for unknown keys and values).
+ * `output.dir` is resolved against the folder of `fileName`. No file is read.
+ * Cost: linear in the text.
+ * @param text the YAML text.
+ * @param fileName the file it came from (for messages and path resolution).
+ * @returns the description with defaults filled and its warnings, or all issues in file order.
+ * @example surveyFromText('seed: 1\ntruth: ...\nsamples: ...', 'configs/demo-survey.yaml') // { ok: true, value: {...}, warnings: [] }
+ */
+export function surveyFromText(text: string, fileName: string): Checked<SurveyDescription> {
+  const lineCounter = new LineCounter();
+  const document = parseDocument(text, { lineCounter, prettyErrors: false, uniqueKeys: true });
+  const positionOf = (offset: number) => {
+    const { line, col } = lineCounter.linePos(offset);
+    return { line, column: col };
+  };
+  const syntax: Issue[] = document.errors.map((error) => ({
+    code: 'config.yaml_syntax', message: `YAML syntax: ${error.message.split('\n')[0]}`, file: fileName, ...positionOf(error.pos[0]),
+    fix: 'check the indentation, the ":" after each key and matching quotes and brackets near this position',
+  }));
+  if (syntax.length > 0) return { ok: false, issues: syntax };
+
+  const reader = new ConfigReader(document, lineCounter, fileName);
+  const root = reader.root();
+  const rootAt: Located = root.node === null ? { ...root, anchor: null } : root;
+  const fields = reader.mapping(rootAt, SURVEY_TOP_LEVEL_KEYS);
+  const empty = root.node === null || (isScalar(root.node) && (root.node.value === null || root.node.value === undefined));
+  if (fields || empty) surveyMissingKey(reader, rootAt, fields, ['truth', 'samples']);
+  const get = (key: string): Located | undefined => fields?.get(key);
+
+  const truth = get('truth') ? readSurveyTruth(reader, get('truth')!) : undefined;
+  const samples = get('samples') ? readSurveySamples(reader, get('samples')!) : [];
+  const description = {
+    title: (reader.text(get('title'), { numbersAsText: true }) as string | undefined) ?? DEFAULT_SURVEY_TITLE,
+    seed: readSeed(reader, get('seed')),
+    lensingPerRedshift: reader.number(get('lensing_per_redshift'), { min: 0, max: 1 }) ?? DEFAULT_SURVEY_SCATTER.lensingPerRedshift,
+    // Bulk flows reach ~1000 km/s; larger values point at a unit mistake (m/s), as in the run configuration.
+    peculiarVelocityKmPerS: reader.number(get('peculiar_velocity_km_s'), { min: 0, max: 3000, fix: 'give the velocity dispersion in km/s, e.g. 250' })
+      ?? DEFAULT_SURVEY_SCATTER.peculiarVelocityKmPerS,
+    redshiftDriftMag: reader.number(get('redshift_drift_mag'), { min: 0 }) ?? DEFAULT_SURVEY_SCATTER.redshiftDriftMag,
+    output: readOutput(reader, get('output')),
+    sourceFile: fileName,
+  };
+  const byPosition = (a: Issue, b: Issue): number => (a.line ?? 0) - (b.line ?? 0) || (a.column ?? 0) - (b.column ?? 0);
+  const issues = [...reader.issues].sort(byPosition);
+  const warnings = issues.filter((issue) => issue.severity === 'warning');
+  if (warnings.length < issues.length || !truth) return { ok: false, issues };
+  return { ok: true, value: { ...description, truth, samples }, warnings };
+}
+
+/** Seed: an integer or text; absent gives the default with a warning. */
+function readSeed(reader: ConfigReader, at: Located | undefined): number | string {
+  if (!at) {
+    reader.reportAtPath('seed', 'config.no_seed', `no seed given: using ${DEFAULT_SEED}`, {
+      severity: 'warning', fix: 'add "seed: <integer>" so that the same survey can be drawn again',
+    });
+    return DEFAULT_SEED;
+  }
+  if (at.node && isScalar(at.node) && typeof at.node.value === 'number') {
+    return reader.number(at, { integer: true, min: Number.MIN_SAFE_INTEGER, max: Number.MAX_SAFE_INTEGER }) ?? DEFAULT_SEED;
+  }
+  return (reader.text(at) as string | undefined) ?? DEFAULT_SEED;
+}
+
+/** Output folder (resolved against the survey file) and plain, distinct file names. */
+function readOutput(reader: ConfigReader, at: Located | undefined): SurveyOutput {
+  const fields = reader.mapping(at, OUTPUT_KEYS);
+  const name = (key: 'table' | 'covariance' | 'truth'): string => {
+    const value = reader.text(fields?.get(key));
+    if (typeof value !== 'string') return DEFAULT_SURVEY_OUTPUT[key];
+    if (!LABEL_PATTERN.test(value)) {
+      reader.report(fields!.get(key)!, 'config.bad_file_name', `"${value}" is not a plain file name`, {
+        expected: 'a file name of letters, digits, "_", "." or "-" (the folder goes in output.dir)', found: `"${value}"`,
+        fix: 'put the folder in output.dir and only the file name here',
+      });
+      return DEFAULT_SURVEY_OUTPUT[key];
+    }
+    return value;
+  };
+  const output: SurveyOutput = {
+    dir: resolveConfigPath(reader.fileName, reader.text(fields?.get('dir')) ?? DEFAULT_SURVEY_OUTPUT.dir),
+    table: name('table'), covariance: name('covariance'), truth: name('truth'),
+  };
+  const names = [output.table, output.covariance, output.truth];
+  if (new Set(names).size < names.length) {
+    reader.report(at ?? { node: null, path: 'output', anchor: null }, 'config.duplicate_file_name', 'two output files have the same name', {
+      expected: 'three different file names', found: names.join(', '), fix: 'give the table, the covariance and the truth file different names',
+    });
+  }
+  return output;
+}
