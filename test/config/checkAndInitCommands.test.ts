@@ -49,7 +49,10 @@ describe('candela check', () => {
     const result = checkConfiguration('configs/pantheon2018-binned.yaml');
     expect(result.config.models.map((m) => m.label)).toEqual(['flat_lcdm', 'curved_lcdm', 'flat_wcdm']);
     expect(result.summaryLines[0]).toBe('title: Pantheon 2018, 40 redshift bins, statistical + systematic covariance (file configs/pantheon2018-binned.yaml)');
-    expect(result.warnings).toEqual([]);
+    // The configuration itself is clean; the only warning comes from the data file: the Pantheon header
+    // names 19 columns for 18 fields (../shared/data-real/pantheon2018/SOURCE.md).
+    expect(result.warnings.map((w) => w.code)).toEqual(['data.header_surplus_names']);
+    expect(result.summaryLines.some((line) => /40 supernovae before cuts/.test(line))).toBe(true);
   });
 });
 
@@ -60,7 +63,8 @@ describe('candela init', () => {
     expect(written.code).toBe(0);
     expect(readFileSync(file, 'utf8')).toContain('file: ../../../../shared/data-real/pantheon2018/Binned_data/lcparam_DS17f.txt');
     const checked = await run('check', file);
-    expect(checked.stderr).toBe('');
+    // Only the data file's known header quirk is reported (see ../shared/data-real/pantheon2018/SOURCE.md).
+    expect(checked.stderr.trim().split('\n').filter((line) => !/header names 19 columns/.test(line))).toEqual([]);
     expect(checked.code).toBe(0);
   });
 
