@@ -94,3 +94,5 @@ export type { ReportInput, ReportRunFacts, ReportSummaryTable, ReportDiagnostics
 export type { ConvergenceVerdicts, ParameterVerdict } from './report/index.js';
 export { summaryCells } from './tables/summaryCells.js';
 export type { SummaryCells } from './tables/summaryCells.js';
+export { darkEnergyBandsFigure } from './figures/darkEnergyBandsFigure.js';
+export type { DarkEnergyBand, DarkEnergyBandsInput, DarkEnergyBandsOptions } from './figures/darkEnergyBandsFigure.js';

@@ -80,7 +80,17 @@ function contourPairsOf(run: RunOnDisk, sampled: string[]): Array<[string, strin
   return pairs;
 }
 
-/** Rows kept for the summaries: after the burn-in, or (weighted rows) all but the lightest ones holding {@link NEGLIGIBLE_NESTED_MASS}. */
+/**
+ * Rows of chains.csv kept for the summaries: for equally weighted chains the
+ * rows after the burn-in; for weighted (nested-sampling) rows every row of
+ * positive weight except the lightest ones that together hold less than
+ * {@link NEGLIGIBLE_NESTED_MASS} of the total weight.
+ * Cost: O(rows log rows) for weighted rows, O(rows) otherwise.
+ * @param run the run folder read back.
+ * @returns the kept row indices, ascending.
+ * @throws nothing.
+ * @example keptRowsOf(readRunFolder('out/run')).length
+ */
 export function keptRowsOf(run: RunOnDisk): Int32Array {
   const { chains } = run;
   const weights = chains.weights;

@@ -9,6 +9,7 @@ import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
 import { readRunFolder, type RunOnDisk } from './runFiles.js';
 import { RUN_FILES } from './runFolder.js';
 import { summaryDocument } from './summaryDocument.js';
+import { nestedReportFacts } from './nestedReportFacts.js';
 import { arrayExtent } from './arrayExtent.js';
 import { stringify } from 'yaml';
 
@@ -36,7 +37,19 @@ function triangleParameters(analysis: RunAnalysis): string[] {
   return cosmological.length ? cosmological : analysis.sampled.slice(0, TRIANGLE_MAX_PARAMETERS);
 }
 
-/** Contours for every pair shown in a triangle figure (reusing the configured pairs already computed; weighted for nested runs). */
+/**
+ * Credible contours for every pair of `parameters` shown in a triangle
+ * figure: the configured pairs already computed are reused, the others are
+ * estimated from the kept draws (weighted for nested runs) with reflection at
+ * hard prior edges.
+ * Cost: one 2-D density grid per missing pair.
+ * @param run the run folder read back.
+ * @param analysis its analysis.
+ * @param parameters the triangle's parameters, in order.
+ * @returns one contour set per pair (i < j).
+ * @throws CandelaError from the density estimate (e.g. a parameter without spread).
+ * @example contoursForTriangle(run, analysis, ['omega_m', 'w0']).length // 1
+ */
 export function contoursForTriangle(run: RunOnDisk, analysis: RunAnalysis, parameters: string[]): ContourSet2D[] {
   const kept = analysis.keptRows;
   const column = (name: string) => Float64Array.from(kept, (r) => run.chains.columns[name][r]);
@@ -114,27 +127,13 @@ function traceSvg(run: RunOnDisk, analysis: RunAnalysis): string {
 
 function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
   const { record } = run;
-  const chiSquare = { label: 'chi-square at best fit', value: record.best_fit.chi_square === null ? 'n/a' : `${record.best_fit.chi_square.toFixed(2)} for ${record.best_fit.degrees_of_freedom} degrees of freedom` };
-  const common = { seed: record.run.seed, wallTimeSeconds: record.run.wall_seconds, version: record.tool.version, model: record.model.label };
-  if (analysis.method === 'ensemble') {
-    return {
-      ...common, steps: record.run.steps, walkers: record.run.walkers, ensembles: record.run.ensembles, stopReason: record.run.stop_reason,
-      extra: [{ label: 'supernovae', value: String(record.data.supernovae) }, chiSquare, { label: 'likelihood evaluations', value: String(record.run.evaluations) }],
-    };
-  }
-  const sampler = record.sampler;
-  const evidence = record.evidence;
+  if (analysis.method === 'nested') return nestedReportFacts(record, analysis);
   return {
-    ...common,
-    steps: record.run.steps,
-    stopReason: sampler?.stop === 'dlogz' ? `nested sampling: remaining evidence below dlogz = ${sampler.dlogz}` : 'nested sampling: iteration cap reached',
+    seed: record.run.seed, steps: record.run.steps, walkers: record.run.walkers, ensembles: record.run.ensembles,
+    stopReason: record.run.stop_reason, wallTimeSeconds: record.run.wall_seconds, version: record.tool.version, model: record.model.label,
     extra: [
-      { label: 'sampler', value: `nested sampling, ${sampler?.live_points} live points (convergence checks for Markov chains do not apply)` },
-      { label: 'ln Z (evidence)', value: evidence ? `${evidence.log_z.toFixed(3)} ± ${evidence.log_z_error.toFixed(3)}` : 'n/a' },
-      { label: 'information H', value: evidence ? `${evidence.information_nats.toFixed(2)} nats` : 'n/a' },
-      { label: 'effective sample size (Kish)', value: `${(analysis.effectiveSampleSize ?? 0).toFixed(0)} of ${analysis.keptSamples} weighted samples` },
       { label: 'supernovae', value: String(record.data.supernovae) },
-      chiSquare,
+      { label: 'chi-square at best fit', value: record.best_fit.chi_square === null ? 'n/a' : `${record.best_fit.chi_square.toFixed(2)} for ${record.best_fit.degrees_of_freedom} degrees of freedom` },
       { label: 'likelihood evaluations', value: String(record.run.evaluations) },
     ],
   };

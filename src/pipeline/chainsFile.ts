@@ -58,10 +58,18 @@ function cell(value: number): string {
   return Number.isFinite(value) ? String(value) : value === -Infinity ? '-inf' : '';
 }
 
-/** Name of the optional posterior-weight column. */
+/** Name of the optional posterior-weight column (nested-sampling runs). */
 export const WEIGHT_COLUMN = 'weight';
 
-/** Header names of chains.csv for these columns (with the weight column when `weighted`). */
+/**
+ * Header names of chains.csv for these columns (with the weight column when `weighted`).
+ * Cost: O(columns).
+ * @param columns sampled and derived names.
+ * @param weighted whether a weight column is written.
+ * @returns the header fields in file order.
+ * @throws nothing.
+ * @example chainHeader({ parameters: ['omega_m'], derived: [] }) // ['ensemble', 'walker', 'step', 'omega_m', 'log_prior', 'log_likelihood', 'log_posterior', 'burn_in']
+ */
 export function chainHeader(columns: ChainColumns, weighted = false): string[] {
   return ['ensemble', 'walker', 'step', ...columns.parameters, ...columns.derived, 'log_prior', 'log_likelihood', 'log_posterior', ...(weighted ? [WEIGHT_COLUMN] : []), 'burn_in'];
 }

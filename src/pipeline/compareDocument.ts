@@ -26,7 +26,15 @@ function finiteOrNull(value: number | null | undefined): number | null {
   return value === null || value === undefined || !Number.isFinite(value) ? null : value;
 }
 
-/** ln B01 of a pair from two evidences, with its error, or null when either run lacks one. */
+/**
+ * ln B01 = ln Z(simpler) - ln Z(extended) of a nested pair from the two
+ * runs' evidences, with the errors added in quadrature (independent runs).
+ * Cost: O(1).
+ * @param pair a detected pair.
+ * @returns ln B01 and its error (nats), or null when either run lacks an evidence (ensemble runs).
+ * @throws nothing.
+ * @example evidenceLogBayesFactor01(pair) // { value: 1.56, error: 0.17 }
+ */
 export function evidenceLogBayesFactor01(pair: DetectedNestedPair): { value: number; error: number } | null {
   const simple = pair.base.run.record.evidence;
   const wide = pair.extended.run.record.evidence;

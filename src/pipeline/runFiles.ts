@@ -13,7 +13,14 @@ import type { RunRecord } from './runRecord.js';
  */
 export type StoredRunRecord = RunRecord & Partial<NestedRunFacts>;
 
-/** The sampler that wrote a run: `nested` when run.json says so, else `ensemble`. */
+/**
+ * The sampler that wrote a run: `nested` when run.json says so, else `ensemble`.
+ * Cost: O(1).
+ * @param record run.json as read back.
+ * @returns the method.
+ * @throws nothing.
+ * @example samplerMethodOf({ ...record, sampler: { method: 'nested', ... } }) // 'nested'
+ */
 export function samplerMethodOf(record: StoredRunRecord): 'ensemble' | 'nested' {
   return record.sampler?.method === 'nested' ? 'nested' : 'ensemble';
 }

@@ -28,7 +28,8 @@ export interface StandardizedTable {
  * sigma_mu, mu_model, residual) of a configuration's data for one model, at
  * the parameter values given; parameters not given are set to the maximum of
  * the posterior with the others held at the given values (Nelder & Mead 1965
- * searches from prior draws).
+ * searches from prior draws). With the hierarchical standardization the table
+ * also holds each supernova's posterior-mean latent x1 and c and their sds.
  */
 export async function standardizeTable(configPath: string, given: Record<string, number>, modelLabel?: string): Promise<StandardizedTable> {
   const config = loadConfigFile(configPath);
@@ -79,5 +80,16 @@ export async function standardizeTable(configPath: string, given: Record<string,
   const values = { ...model.posterior.values(theta) };
   const diagram = model.supernovae.hubbleDiagram(values);
   const extras = model.supernovae.bestFitExtras?.(values) ?? {};
-  return { csv: hubbleDiagramCsv(diagram, model.samples), values, fitted: fittedIndices.map((i) => names[i]), chiSquare: extras.chi_square ?? null, model: model.label };
+  let csv = hubbleDiagramCsv(diagram, model.samples);
+  if ('latentEstimates' in model.supernovae) {
+    // Hierarchical standardization: append the posterior mean and sd of each supernova's true x1 and c.
+    const latent = model.supernovae.latentEstimates(values);
+    const lines = csv.trimEnd().split('\n');
+    lines[0] += ',x1_latent,x1_latent_sd,color_latent,color_latent_sd';
+    for (let i = 1; i < lines.length; i++) {
+      lines[i] += `,${latent.stretchMean[i - 1]},${latent.stretchSd[i - 1]},${latent.colorMeanMag[i - 1]},${latent.colorSdMag[i - 1]}`;
+    }
+    csv = `${lines.join('\n')}\n`;
+  }
+  return { csv, values, fitted: fittedIndices.map((i) => names[i]), chiSquare: extras.chi_square ?? null, model: model.label };
 }
