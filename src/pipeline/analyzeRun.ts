@@ -1,4 +1,5 @@
-import { acceptanceSummary, diagnoseEnsembleChains, type ParameterDiagnostics } from '../diagnostics/index.js';
+import { acceptanceSummary, type ParameterDiagnostics } from '../diagnostics/index.js';
+import { diagnoseTraces } from './diagnoseTraces.js';
 import {
   credibleContours, densityGrid2D, kishEffectiveCount, marginalDensity1D, sampleStatistics, summarizePosterior,
   type ContourSet2D, type HardBounds, type MarginalDensity1D, type ParameterSummary, type RunSummary,
@@ -118,11 +119,14 @@ function ensembleDiagnostics(run: RunOnDisk, names: string[], layout: { ensemble
   const { chains } = run;
   const { ensembles, walkers, steps, burnInSteps } = layout;
   const diagnostics: Record<string, ParameterDiagnostics> = {};
-  for (const name of names) {
-    const column = chains.columns[name];
-    if (column.some((v) => !Number.isFinite(v))) continue;
-    const traces = Array.from({ length: ensembles }, (_, k) => ({ steps, walkers, values: column.subarray(k * steps * walkers, (k + 1) * steps * walkers) }));
-    diagnostics[name] = diagnoseEnsembleChains(traces, burnInSteps);
+  // Same computation as the stopping rule (diagnoseTraces): burn-in from the file, thinning from the sampled parameters' tau.
+  const usable = names.filter((name) => chains.columns[name].every((v) => Number.isFinite(v)));
+  const sampledCount = usable.filter((name) => run.record.parameters.sampled.some((p) => p.name === name)).length;
+  const ordered = [...usable.slice(0, sampledCount), ...usable.slice(sampledCount)];
+  if (ordered.length > 0 && steps - burnInSteps >= 6) {
+    const traces = ordered.map((name) => Array.from({ length: ensembles }, (_, k) => ({ steps, walkers, values: chains.columns[name].subarray(k * steps * walkers, (k + 1) * steps * walkers) })));
+    const diagnosis = diagnoseTraces(traces, { burnInSteps, burnInFrom: Math.max(1, sampledCount) });
+    ordered.forEach((name, index) => { diagnostics[name] = diagnosis.diagnostics[index]; });
   }
   const acceptance = new Float64Array(ensembles * walkers);
   for (let k = 0; k < ensembles; k++) {

@@ -1,4 +1,5 @@
-import { acceptanceSummary, chooseBurnIn, diagnoseEnsembleChains, integratedAutocorrelationTime, type ParameterDiagnostics } from '../diagnostics/index.js';
+import { acceptanceSummary, type ParameterDiagnostics } from '../diagnostics/index.js';
+import { diagnoseTraces } from './diagnoseTraces.js';
 import type { EnsembleSampler } from '../sampler/index.js';
 
 /** Why sampling ended. */
@@ -26,12 +27,6 @@ export interface StoppingRule {
   maxRhat: number;
 }
 
-/** Thinning of the chains for the convergence checks while sampling: keep one step per tau/5. */
-const CHECK_THINNING_PER_TAU = 5;
-
-/** Fewest thinned steps per walker worth diagnosing; below it the checks use every step. */
-const MINIMUM_THINNED_STEPS = 20;
-
 /** Steps needed before the first diagnostics are attempted (the diagnostics need a few draws per split chain). */
 const MINIMUM_STEPS_FOR_CHECK = 40;
 
@@ -58,37 +53,7 @@ export function checkConvergence(sampler: EnsembleSampler, rule: StoppingRule): 
     for (let i = 0; i < steps * walkers; i++) values[i] = chain.positions[i * dimension + d];
     return { steps, walkers, values };
   }));
-  // The burn-in comes from the autocorrelation times of the whole chain (FFT only: cheap); the rank-based
-  // diagnostics, the costly part, then run once on what follows it.
-  const taus = traces.map((trace) => {
-    const series: Float64Array[] = [];
-    for (const { values } of trace) {
-      for (let w = 0; w < walkers; w++) {
-        const walker = new Float64Array(steps);
-        for (let s = 0; s < steps; s++) walker[s] = values[s * walkers + w];
-        series.push(walker);
-      }
-    }
-    try {
-      return integratedAutocorrelationTime(series).tauSteps;
-    } catch {
-      return Number.NaN;
-    }
-  });
-  const burnInSteps = taus.every((tau) => Number.isFinite(tau) && tau > 0) ? chooseBurnIn(taus, steps) : Math.floor(steps / 2);
-  // While sampling, the rank-based diagnostics run on the kept steps thinned by a fifth of the shortest
-  // autocorrelation time: draws that close together carry almost no extra information, so the ESS and
-  // R-hat of the thinned chains estimate those of the full ones (Geyer 1992 on thinning) at a fraction of
-  // the cost. The final summary (analyzeRun) uses every draw.
-  const minTau = Math.min(...taus.filter((tau) => Number.isFinite(tau) && tau > 0));
-  let thin = Number.isFinite(minTau) ? Math.max(1, Math.floor(minTau / CHECK_THINNING_PER_TAU)) : 1;
-  if (Math.floor((steps - burnInSteps) / thin) < MINIMUM_THINNED_STEPS) thin = 1;
-  const keptSteps = Math.floor((steps - burnInSteps) / thin);
-  const diagnostics = traces.map((trace) => diagnoseEnsembleChains(trace.map(({ values }) => {
-    const thinned = new Float64Array(keptSteps * walkers);
-    for (let j = 0; j < keptSteps; j++) thinned.set(values.subarray((burnInSteps + j * thin) * walkers, (burnInSteps + j * thin + 1) * walkers), j * walkers);
-    return { steps: keptSteps, walkers, values: thinned };
-  }), 0));
+  const { tauSteps: taus, burnInSteps, thin, diagnostics } = diagnoseTraces(traces);
   const values = (pick: (d: ParameterDiagnostics) => number | null) => diagnostics.map(pick);
   const essList = values((d) => d.essBulk);
   const rhatList = values((d) => d.rhat);
