@@ -8,6 +8,7 @@ import type { HierarchicalTerm } from '../likelihood/index.js';
 export type SupernovaLikelihood = SupernovaTerm | HierarchicalTerm;
 import type { LogProbabilityModel } from '../sampler/index.js';
 import { createDerivedParameters } from './derivedParameters.js';
+import { termStandardization } from './termStandardization.js';
 import type { LoadedSupernovae } from './loadSupernovae.js';
 
 /** Photon temperature and neutrino species when a model includes radiation (the cosmology layer's convention). */
@@ -60,17 +61,7 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
       cmbTemperatureK: model.radiation ? CMB_TEMPERATURE_K : 0,
       effectiveNeutrinoSpecies: EFFECTIVE_NEUTRINO_SPECIES,
     },
-    standardization: {
-      massStep: { ...standardization.hostMassStep },
-      scatter: {
-        lensingPerRedshift: standardization.scatter.lensingPerRedshift,
-        peculiarVelocityKmPerS: standardization.scatter.peculiarVelocityKmPerS,
-        includeRedshiftErrors: standardization.scatter.redshiftErrors,
-      },
-      intrinsicScatter: standardization.scatter.intrinsic,
-      alphaBetaCovariance: standardization.alphaBetaCovariance,
-      frozenAt: standardization.frozenAt ?? undefined,
-    },
+    standardization: termStandardization(standardization),
     offset: standardization.offset,
     fixed,
   };

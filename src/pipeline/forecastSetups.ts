@@ -2,6 +2,7 @@ import type { CandelaConfig, PriorSpec, SurveyDescription, SurveyTruth } from '.
 import { PARAMETER_ORDER, parametersForModel, parseParameterName } from '../config/index.js';
 import type { DarkEnergyLaw } from '../cosmology/index.js';
 import { CandelaError } from '../errors.js';
+import { termStandardization } from './termStandardization.js';
 import type { SupernovaTermOptions } from '../likelihood/index.js';
 
 /** Relative difference below which a fixed value counts as equal to the truth (rounding of a value typed in two files). */
@@ -124,17 +125,7 @@ export function forecastSetups(survey: SurveyDescription, config: CandelaConfig 
     if (model.radiation) notes.push('the model includes radiation, the mock truth does not (a difference of order 1e-4 in distances)');
     return {
       label: model.label, darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', radiation: model.radiation,
-      standardization: {
-        massStep: { ...standardization.hostMassStep },
-        scatter: {
-          lensingPerRedshift: standardization.scatter.lensingPerRedshift,
-          peculiarVelocityKmPerS: standardization.scatter.peculiarVelocityKmPerS,
-          includeRedshiftErrors: standardization.scatter.redshiftErrors,
-        },
-        intrinsicScatter: standardization.scatter.intrinsic,
-        alphaBetaCovariance: standardization.alphaBetaCovariance,
-        frozenAt: standardization.frozenAt ?? undefined,
-      },
+      standardization: termStandardization(standardization),
       free: parameters, fixed, notes,
       fiducial: fiducialTruth(survey, model, standardization.hostMassStep, parameters, fixed),
     };

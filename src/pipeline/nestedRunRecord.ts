@@ -1,10 +1,8 @@
-import { configToPlainObject, type CandelaConfig } from '../config/index.js';
+import type { CandelaConfig } from '../config/index.js';
 import type { NestedResult } from '../sampler/index.js';
 import type { BuiltModel } from './buildModel.js';
 import type { LoadedSupernovae } from './loadSupernovae.js';
-import { arrayExtent } from './arrayExtent.js';
-import { fileSha256, type RunRecord } from './runRecord.js';
-import { VERSION } from './version.js';
+import { commonRunSections, type RunRecord } from './runRecord.js';
 
 /** What run.json adds for a nested-sampling run (snake_case, as written). */
 export interface NestedRunFacts {
@@ -56,55 +54,16 @@ export function createNestedRunRecord(input: {
   config: CandelaConfig; modelIndex: number; model: BuiltModel; data: LoadedSupernovae;
   result: NestedResult; best: NestedBestSample; enlargement: number; wallSeconds: number;
 }): NestedRunRecord {
-  const { config, model, data, result, best } = input;
-  const spec = config.models[input.modelIndex];
-  const values = model.posterior.values(best.theta);
-  const extras = model.supernovae.bestFitExtras?.(values) ?? {};
-  const bestParameters: Record<string, number> = {};
-  model.parameterNames.forEach((name, d) => { bestParameters[name] = best.theta[d]; });
-  const counts = new Map<string, number>();
-  for (const sample of data.table.samples) counts.set(sample, (counts.get(sample) ?? 0) + 1);
-  const seen = new Set<string>();
-  const inputFiles = [config.source.file, ...data.inputFiles].filter((file) => !seen.has(file.resolved) && seen.add(file.resolved));
+  const { config, result, best } = input;
   const rows = result.logLikelihoods.length;
   return {
-    tool: { name: 'candela', version: VERSION },
-    title: config.title,
-    model: { label: spec.label, dark_energy: spec.darkEnergy, curvature: spec.curvature, radiation: spec.radiation },
-    parameters: {
-      sampled: model.priors.map((entry) => ({ name: entry.name, prior: { ...entry.prior } })),
-      fixed: { ...model.fixed },
-      derived: [...model.derivedNames],
-    },
-    data: {
-      supernovae: data.table.count,
-      samples: [...counts].map(([sample, count]) => ({ sample, count })),
-      redshift_range: arrayExtent(data.table.redshift),
-      cuts: data.cutReports.map(({ label, report }) => ({
-        label, initial: report.initialCount, final: report.finalCount,
-        steps: report.steps.map((step) => ({ cut: step.description, removed: step.removed, remaining: step.remaining })),
-      })),
-      warnings: data.warnings.map((w) => w.message),
-    },
-    likelihood: { description: model.supernovae.describe(), path: model.supernovae.path },
-    best_fit: {
-      parameters: bestParameters,
-      chi_square: Number.isFinite(extras.chi_square) ? extras.chi_square : null,
-      n_data: model.posterior.dataCount,
-      n_free: model.parameterNames.length,
-      degrees_of_freedom: model.posterior.dataCount - model.parameterNames.length,
-      log_likelihood: best.logLikelihood,
-      log_posterior: best.logPosterior,
-      abs_mag: Number.isFinite(extras.abs_mag_best_fit) ? extras.abs_mag_best_fit : (values.abs_mag ?? null),
-    },
+    ...commonRunSections({ ...input, best: { theta: best.theta, logProb: best.logPosterior, logLikelihood: best.logLikelihood } }),
     run: {
       seed: String(config.seed), steps: rows, burn_in_steps: 0, walkers: 1, ensembles: 1,
       evaluations: result.likelihoodCalls, wall_seconds: Math.round(input.wallSeconds * 1000) / 1000, worker_threads: 1,
       stop_reason: result.stopReason === 'dlogz' ? 'converged' : 'max_steps',
       target_ess: config.sampler.targetEss, max_rhat: config.sampler.maxRhat,
     },
-    inputs: inputFiles.map((file) => ({ path: file.written, sha256: fileSha256(file.resolved) })),
-    configuration: configToPlainObject(config),
     sampler: {
       method: 'nested',
       live_points: config.sampler.nested.livePoints,

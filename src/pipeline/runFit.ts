@@ -20,6 +20,7 @@ import { writeHubbleFiles } from './hubbleFiles.js';
 import { buildRunOutputs } from './buildRunOutputs.js';
 import { workerModelUrl } from './workerModel.js';
 import { fitNestedModel } from './nestedFit.js';
+import { locatePart, type FitPart, type PartFacts } from './slurmPart.js';
 
 /** Steps advanced between looks at the stop signal and the clock (keeps Ctrl-C responsive). */
 const STEPS_PER_SLICE = 25;
@@ -33,6 +34,12 @@ export interface FitRequest {
   resume?: boolean;
   /** Replaces sampler.workers. */
   workers?: number;
+  /**
+   * Runs only part I of the configuration (one ensemble of one model, see
+   * locatePart) into `<out>/parts/<label>/ensemble-<k>/`; `candela merge`
+   * combines the parts of a model into one run folder.
+   */
+  part?: number;
   /** Set when the user interrupts (SIGINT, SIGTERM): checkpoint, write outputs so far, return. */
   signal?: AbortSignal;
   /** Progress after every slice of steps. */
@@ -87,7 +94,13 @@ export function runFolderFor(config: CandelaConfig, index: number, outDir?: stri
  */
 export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
   const config = loadConfigFile(request.configPath);
+  const part = request.part === undefined ? null : locatePart(config, request.part, request.outDir);
   const data = loadSupernovae(config);
+  if (part) {
+    const model = buildModel(config, part.modelIndex, data);
+    prepareRunFolder(part.runDir, { force: Boolean(request.force), resume: Boolean(request.resume) });
+    return [await fitOneModel(config, part.modelIndex, model, data, part.runDir, request, part)];
+  }
   const models = config.models.map((_, index) => buildModel(config, index, data));
   const folders = config.models.map((_, index) => runFolderFor(config, index, request.outDir));
   for (const folder of folders) prepareRunFolder(folder, { force: Boolean(request.force), resume: Boolean(request.resume) });
@@ -109,7 +122,16 @@ async function createEvaluator(config: CandelaConfig, index: number, model: Buil
   return createWorkerPoolEvaluator({ moduleUrl: workerModelUrl(), exportName: 'createWorkerModel', init: { config, modelIndex: index } }, workers);
 }
 
-async function fitOneModel(config: CandelaConfig, index: number, model: BuiltModel, data: LoadedSupernovae, runDir: string, request: FitRequest): Promise<FitOutcome> {
+/**
+ * Samples one model into `runDir`. With `part`, the sampler holds only the
+ * part's ensemble k: the walkers of every ensemble are initialized as in a
+ * full run (initializeWalkers is deterministic from the seed) and ensemble
+ * k's are kept, and its random stream is derived from k (ensembleIndices),
+ * so its chain is bit-identical to ensemble k of the full run. A part stops
+ * at max_steps, at max_minutes, or when its own ensemble (every walker a
+ * chain) has bulk ESS >= target_ess / ensembles and R-hat <= max_rhat.
+ */
+async function fitOneModel(config: CandelaConfig, index: number, model: BuiltModel, data: LoadedSupernovae, runDir: string, request: FitRequest, part?: FitPart): Promise<FitOutcome> {
   if (config.sampler.method === 'nested') return fitNestedModel(config, index, model, data, runDir, request);
   const started = Date.now();
   const settings = config.sampler;
@@ -117,7 +139,9 @@ async function fitOneModel(config: CandelaConfig, index: number, model: BuiltMod
   const checkpointPath = join(runDir, RUN_FILES.checkpoint);
   const say = request.onLine ?? (() => undefined);
   const workers = workerCount(config, request);
-  say(`model ${model.label}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
+  const partNote = part ? ` (part ${part.index}: ensemble ${part.ensemble} of ${part.ensembles})` : '';
+  const rule = { targetEss: part ? settings.targetEss / part.ensembles : settings.targetEss, maxRhat: settings.maxRhat };
+  say(`model ${model.label}${partNote}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
   for (const line of model.supernovae.describe()) say(`  ${line}`);
   const evaluator = await createEvaluator(config, index, model, workers);
   try {
@@ -139,13 +163,15 @@ async function fitOneModel(config: CandelaConfig, index: number, model: BuiltMod
         sampleStart: (rng, out) => model.priors.forEach((entry, d) => { out[d] = samplePrior(entry.prior, rng); }),
         describeRejection: rejection,
       }, evaluator);
-      evaluations += start.optimizer.evaluations + settings.walkers * settings.ensembles;
+      const held = part ? [part.ensemble] : null;
+      evaluations += start.optimizer.evaluations + settings.walkers * (held ? held.length : settings.ensembles);
       sampler = await EnsembleSampler.start({
-        dimension: model.parameterNames.length, walkers: settings.walkers, ensembles: settings.ensembles, seed,
+        dimension: model.parameterNames.length, walkers: settings.walkers, seed,
         stretchScale: settings.stretchScale, differentialEvolutionWeight: settings.differentialEvolutionWeight,
-      }, evaluator, start.positions);
+        ...(held ? { ensembleIndices: held } : { ensembles: settings.ensembles }),
+      }, evaluator, held ? held.map((k) => start.positions[k]) : start.positions);
     }
-    const stepsPerEvaluation = settings.walkers * settings.ensembles;
+    const stepsPerEvaluation = settings.walkers * sampler.options.ensembles;
     const saveCheckpoint = () => {
       const seconds = previousSeconds + (Date.now() - started) / 1000;
       writeFileAtomic(checkpointPath, encodeBinaryState({ snapshot: sampler.snapshot(), wallSeconds: seconds, evaluations }));
@@ -154,7 +180,7 @@ async function fitOneModel(config: CandelaConfig, index: number, model: BuiltMod
     let check: ConvergenceCheck | null = null;
     let lastCheckpoint = sampler.stepCount;
     let lastCheck = sampler.stepCount - (sampler.stepCount % settings.checkEvery);
-    if (sampler.stepCount > 0) check = checkConvergence(sampler, settings);
+    if (sampler.stepCount > 0) check = checkConvergence(sampler, rule);
     if (check?.converged) stopReason = 'converged';
     while (stopReason === null) {
       if (request.signal?.aborted) { stopReason = 'interrupted'; break; }
@@ -166,29 +192,34 @@ async function fitOneModel(config: CandelaConfig, index: number, model: BuiltMod
       evaluations += slice * stepsPerEvaluation;
       if (sampler.stepCount - lastCheck >= settings.checkEvery) {
         lastCheck = sampler.stepCount;
-        check = checkConvergence(sampler, settings);
+        check = checkConvergence(sampler, rule);
         if (check.converged) stopReason = 'converged';
       }
       if (settings.checkpointEvery > 0 && sampler.stepCount - lastCheckpoint >= settings.checkpointEvery) {
         saveCheckpoint();
         lastCheckpoint = sampler.stepCount;
       }
-      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps: settings.maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: settings.targetEss, acceptance: meanAcceptance(sampler) });
+      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps: settings.maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: rule.targetEss, acceptance: meanAcceptance(sampler) });
     }
     saveCheckpoint();
     if (sampler.stepCount < 2 * 40) {
       throw new CandelaError({ code: 'run.too_short', message: `the run stopped after ${sampler.stepCount} steps, too few to summarize`, fix: 'raise sampler.max_steps or sampler.max_minutes (or resume the run with --resume)' });
     }
-    check = checkConvergence(sampler, settings);
+    check = checkConvergence(sampler, rule);
     const wallSeconds = previousSeconds + (Date.now() - started) / 1000;
-    const ensembles = Array.from({ length: settings.ensembles }, (_, k) => ({ ...sampler.chain(k) }));
+    const ensembles = Array.from({ length: sampler.options.ensembles }, (_, k) => ({ ...sampler.chain(k) }));
     writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps);
-    const record = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, sampler });
+    const fullRecord = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, sampler });
+    const record: RunRecord & { part?: PartFacts } = part ? {
+      ...fullRecord,
+      run: { ...fullRecord.run, ensembles: 1, target_ess: rule.targetEss },
+      part: { index: part.index, model_index: part.modelIndex, ensemble: part.ensemble, ensembles_total: part.ensembles, part_target_ess: rule.targetEss },
+    } : fullRecord;
     writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
     writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
     writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, seed);
     buildRunOutputs([runDir], runDir);
-    say(`model ${model.label}: ${stopReason} after ${sampler.stepCount} steps in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
+    say(`model ${model.label}${partNote}: ${stopReason} after ${sampler.stepCount} steps in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
     const warnings: Issue[] = [...data.warnings, ...model.supernovae.warnings.map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
     return { model: model.label, runDir, record, warnings };
   } finally {

@@ -53,23 +53,29 @@ export function fileSha256(path: string): string {
   return createHash('sha256').update(readFileSync(path)).digest('hex');
 }
 
-/** Assembles run.json for a finished (or interrupted) run. */
-export function createRunRecord(input: {
-  config: CandelaConfig; modelIndex: number; model: BuiltModel; data: LoadedSupernovae; check: ConvergenceCheck;
-  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; sampler: EnsembleSampler;
-}): RunRecord {
-  const { config, model, data, check, sampler } = input;
+/** The best sample of a run: its parameters, log posterior and log likelihood. */
+export interface BestSample {
+  theta: Float64Array;
+  logProb: number;
+  logLikelihood: number;
+}
+
+/**
+ * The parts of run.json shared by every sampler: tool, model, parameters,
+ * data and cut report, likelihood description, best fit, input checksums and
+ * the resolved configuration.
+ */
+export function commonRunSections(input: { config: CandelaConfig; modelIndex: number; model: BuiltModel; data: LoadedSupernovae; best: BestSample }): Omit<RunRecord, 'run'> {
+  const { config, model, data, best } = input;
   const spec = config.models[input.modelIndex];
-  const best = locateBestSample(sampler, check.burnInSteps);
   const values = model.posterior.values(best.theta);
   const extras = model.supernovae.bestFitExtras?.(values) ?? {};
   const bestParameters: Record<string, number> = {};
   model.parameterNames.forEach((name, d) => { bestParameters[name] = best.theta[d]; });
-  const z = data.table.redshift;
   const counts = new Map<string, number>();
   for (const sample of data.table.samples) counts.set(sample, (counts.get(sample) ?? 0) + 1);
-  const inputFiles = [config.source.file, ...data.inputFiles];
   const seen = new Set<string>();
+  const inputFiles = [config.source.file, ...data.inputFiles].filter((file) => !seen.has(file.resolved) && seen.add(file.resolved));
   return {
     tool: { name: 'candela', version: VERSION },
     title: config.title,
@@ -82,7 +88,7 @@ export function createRunRecord(input: {
     data: {
       supernovae: data.table.count,
       samples: [...counts].map(([sample, count]) => ({ sample, count })),
-      redshift_range: arrayExtent(z),
+      redshift_range: arrayExtent(data.table.redshift),
       cuts: data.cutReports.map(({ label, report }) => ({
         label, initial: report.initialCount, final: report.finalCount,
         steps: report.steps.map((step) => ({ cut: step.description, removed: step.removed, remaining: step.remaining })),
@@ -100,19 +106,31 @@ export function createRunRecord(input: {
       log_posterior: best.logProb,
       abs_mag: Number.isFinite(extras.abs_mag_best_fit) ? extras.abs_mag_best_fit : (values.abs_mag ?? null),
     },
+    inputs: inputFiles.map((file) => ({ path: file.written, sha256: fileSha256(file.resolved) })),
+    configuration: configToPlainObject(config),
+  };
+}
+
+/** Assembles run.json for a finished (or interrupted) ensemble run. */
+export function createRunRecord(input: {
+  config: CandelaConfig; modelIndex: number; model: BuiltModel; data: LoadedSupernovae; check: ConvergenceCheck;
+  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; sampler: EnsembleSampler;
+}): RunRecord {
+  const { config, check, sampler } = input;
+  const best = locateBestSample(sampler, check.burnInSteps);
+  return {
+    ...commonRunSections({ ...input, best }),
     run: {
       seed: String(config.seed), steps: input.steps, burn_in_steps: check.burnInSteps,
       walkers: config.sampler.walkers, ensembles: config.sampler.ensembles,
       evaluations: input.evaluations, wall_seconds: Math.round(input.wallSeconds * 1000) / 1000,
       worker_threads: input.workers, stop_reason: input.stopReason, target_ess: config.sampler.targetEss, max_rhat: config.sampler.maxRhat,
     },
-    inputs: inputFiles.filter((file) => !seen.has(file.resolved) && seen.add(file.resolved)).map((file) => ({ path: file.written, sha256: fileSha256(file.resolved) })),
-    configuration: configToPlainObject(config),
   };
 }
 
 /** The stored sample with the highest log posterior after the burn-in. */
-export function locateBestSample(sampler: EnsembleSampler, burnInSteps: number): { theta: Float64Array; logProb: number; logLikelihood: number } {
+export function locateBestSample(sampler: EnsembleSampler, burnInSteps: number): BestSample {
   const { ensembles, walkers, dimension } = sampler.options;
   let bestLogProb = -Infinity;
   let theta = new Float64Array(dimension);

@@ -1,0 +1,143 @@
+import { existsSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { configToPlainObject, loadConfigFile, resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
+import { CandelaError } from '../errors.js';
+import { writeFileAtomic } from '../output/index.js';
+import { createInProcessEvaluator, EnsembleSampler, type EnsembleSnapshot, type SamplerSnapshot } from '../sampler/index.js';
+import { buildModel } from './buildModel.js';
+import { buildRunOutputs } from './buildRunOutputs.js';
+import { writeChainsFile } from './chainsFile.js';
+import { writeHubbleFiles } from './hubbleFiles.js';
+import { loadSupernovae } from './loadSupernovae.js';
+import { readPartsForMerge, type PartOnDisk, type PartRecord } from './mergeChecks.js';
+import { createRunRecord, type RunRecord } from './runRecord.js';
+import { prepareRunFolder, RUN_FILES } from './runFolder.js';
+import { checkConvergence, type StopReason } from './samplingLoop.js';
+
+/** Fewest steps a merged run may keep (as for a fit: the diagnostics need a few draws per split chain). */
+const MINIMUM_MERGED_STEPS = 80;
+
+/** What `candela merge` is asked. */
+export interface MergeRequest {
+  /** Finished part folders of one model. */
+  partDirs: string[];
+  /** The merged run folder. */
+  outDir: string;
+  /** Replace a non-empty output folder. */
+  force?: boolean;
+}
+
+/** run.json of a merged run: a fit's record with stop_reason `merged` and the parts it came from. */
+export type MergedRunRecord = Omit<RunRecord, 'run'> & {
+  run: Omit<RunRecord['run'], 'stop_reason'> & { stop_reason: StopReason | 'merged' };
+  merge: {
+    ensembles_total: number;
+    truncated_to_steps: number;
+    parts: Array<{ dir: string; ensemble: number; steps: number; stop_reason: string; evaluations: number; wall_seconds: number }>;
+  };
+};
+
+/** The configuration the parts ran, loaded again from its file and checked against their records. */
+function loadPartConfiguration(first: PartRecord, dir: string): CandelaConfig {
+  const file = resolve(first.inputs[0].path);
+  const runPath = join(dir, RUN_FILES.run);
+  if (!existsSync(file)) {
+    throw new CandelaError({ code: 'merge.configuration_missing', file: runPath, message: `the configuration file ${first.inputs[0].path} the parts ran is not found from this folder`, fix: 'run candela merge from the folder the parts ran in (the merge script does)' });
+  }
+  const config = loadConfigFile(file);
+  if (JSON.stringify(configToPlainObject(config)) !== JSON.stringify(first.configuration)) {
+    throw new CandelaError({ code: 'merge.configuration_changed', file, message: `the configuration file changed since the parts in ${dir} ran`, fix: 'restore the configuration the parts ran with, or rerun the parts' });
+  }
+  return config;
+}
+
+/** One part's ensemble cut to `steps` stored steps. Acceptance counts of a cut chain are recounted from its moves. */
+function truncatedEnsemble(part: PartOnDisk, steps: number): EnsembleSnapshot {
+  const saved = part.snapshot.ensembles[0];
+  const { walkers, dimension } = part.snapshot.options;
+  const blobCount = part.snapshot.blobCount;
+  let acceptedCounts = saved.acceptedCounts;
+  if (steps < part.snapshot.stepCount) {
+    acceptedCounts = new Float64Array(walkers);
+    for (let s = 1; s < steps; s++) {
+      for (let w = 0; w < walkers; w++) if (saved.chainLogProb[s * walkers + w] !== saved.chainLogProb[(s - 1) * walkers + w]) acceptedCounts[w] += 1;
+    }
+  }
+  return {
+    ...saved, acceptedCounts,
+    chainPositions: saved.chainPositions.subarray(0, steps * walkers * dimension),
+    chainLogProb: saved.chainLogProb.subarray(0, steps * walkers),
+    chainBlobs: saved.chainBlobs.subarray(0, steps * walkers * blobCount),
+  };
+}
+
+/**
+ * `candela merge`: combines finished part folders of one model (written by
+ * `candela fit CONFIG --part I`) into one run folder, as if one fit had run
+ * their ensembles together: the parts are checked (readPartsForMerge), cut
+ * to the shortest part's step count, ordered by their original ensemble
+ * index (ensemble column 0, 1, ... in that order), and the burn-in is chosen
+ * again from the merged chains with the fit's rule, so R-hat compares the
+ * parts' ensembles. Writes chains.csv, run.json (stop_reason `merged`, the
+ * parts' evaluations summed, the longest part's wall time, the parts listed),
+ * config.resolved.yaml, the Hubble-diagram files (from the model rebuilt from
+ * the configuration and data) and every output of buildRunOutputs. No
+ * checkpoint: a merged run cannot be resumed (resume the parts, then merge
+ * again). When the parts hold every ensemble and ran to the same step count,
+ * chains.csv equals that of a single `candela fit` byte for byte.
+ *
+ * Cost: reading the parts, rebuilding the likelihood, the diagnostics and outputs of a fit.
+ * @param request part folders, output folder, force.
+ * @returns the merged folder and its record.
+ * @throws CandelaError: those of readPartsForMerge; `merge.configuration_missing`,
+ *   `merge.configuration_changed`, `merge.inputs_changed` (data files changed since the parts ran),
+ *   `merge.too_short`; `run.folder_not_empty` without force. Nothing is written when it throws before sampling outputs.
+ * @example await mergeParts({ partDirs: ['out/parts/flat_lcdm/ensemble-0', 'out/parts/flat_lcdm/ensemble-1'], outDir: 'out/flat_lcdm' })
+ */
+export async function mergeParts(request: MergeRequest): Promise<{ runDir: string; record: MergedRunRecord }> {
+  const parts = readPartsForMerge(request.partDirs, request.outDir);
+  const first = parts[0];
+  const config = loadPartConfiguration(first.record, first.dir);
+  const modelIndex = config.models.findIndex((model) => model.label === first.record.model.label);
+  const data = loadSupernovae(config);
+  const model = buildModel(config, modelIndex, data);
+  const steps = Math.min(...parts.map((part) => part.snapshot.stepCount));
+  if (steps < MINIMUM_MERGED_STEPS) {
+    const shortest = parts.find((part) => part.snapshot.stepCount === steps) as PartOnDisk;
+    throw new CandelaError({ code: 'merge.too_short', file: shortest.dir, message: `the part ${shortest.dir} holds ${steps} steps, too few to summarize`, expected: `>= ${MINIMUM_MERGED_STEPS} steps`, found: String(steps), fix: 'continue that part with `candela fit CONFIG --part I --resume` and a larger sampler.max_steps' });
+  }
+  const indices = parts.map((part) => part.record.part.ensemble);
+  const merged: SamplerSnapshot = {
+    ...first.snapshot, stepCount: steps,
+    options: { ...first.snapshot.options, ensembles: parts.length, ensembleIndices: indices },
+    ensembles: parts.map((part) => truncatedEnsemble(part, steps)),
+  };
+  const evaluator = createInProcessEvaluator(model.logProbability);
+  const sampler = await EnsembleSampler.restore(merged, evaluator);
+  const check = checkConvergence(sampler, { targetEss: config.sampler.targetEss, maxRhat: config.sampler.maxRhat });
+  const wallSeconds = Math.max(...parts.map((part) => part.wallSeconds));
+  const evaluations = parts.reduce((sum, part) => sum + part.evaluations, 0);
+  const workers = Math.max(...parts.map((part) => part.record.run.worker_threads));
+  const base = createRunRecord({ config, modelIndex, model, data, check, stopReason: 'max_steps', wallSeconds, evaluations, steps, workers, sampler });
+  const recorded = JSON.stringify(first.record.inputs.map((input) => input.sha256));
+  if (JSON.stringify(base.inputs.map((input) => input.sha256)) !== recorded) {
+    throw new CandelaError({ code: 'merge.inputs_changed', file: join(first.dir, RUN_FILES.run), message: 'an input file (configuration or data) changed since the parts ran: its SHA-256 differs from the parts\' records', fix: 'restore the files the parts ran with, or rerun the parts' });
+  }
+  const record: MergedRunRecord = {
+    ...base,
+    run: { ...base.run, ensembles: parts.length, stop_reason: 'merged' },
+    merge: {
+      ensembles_total: first.record.part.ensembles_total,
+      truncated_to_steps: steps,
+      parts: parts.map((part) => ({ dir: part.dir, ensemble: part.record.part.ensemble, steps: part.snapshot.stepCount, stop_reason: part.record.run.stop_reason, evaluations: part.evaluations, wall_seconds: part.record.run.wall_seconds })),
+    },
+  };
+  prepareRunFolder(request.outDir, { force: Boolean(request.force), resume: false });
+  const ensembles = parts.map((_, k) => ({ ...sampler.chain(k) }));
+  writeChainsFile(join(request.outDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps);
+  writeFileAtomic(join(request.outDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
+  writeFileAtomic(join(request.outDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
+  writeHubbleFiles(request.outDir, model, ensembles, check.burnInSteps, String(config.seed));
+  buildRunOutputs([request.outDir], request.outDir);
+  return { runDir: request.outDir, record };
+}

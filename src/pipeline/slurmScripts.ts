@@ -1,0 +1,154 @@
+/*
+ * Text of the two scripts of a cluster plan: the Slurm batch script of the
+ * job array (one task per part) and the merge script. Slurm reads its
+ * options from `#SBATCH` comment lines before the first command (Slurm
+ * sbatch manual, "batch script"); the array task id arrives in the
+ * environment variable SLURM_ARRAY_TASK_ID and the granted CPUs in
+ * SLURM_CPUS_PER_TASK (same manual, "output environment variables").
+ */
+
+/** Extra wall time granted to a part beyond sampler.max_minutes, as a fraction of it: data loading and the walker search before sampling. */
+export const PART_TIME_MARGIN_FRACTION = 0.1;
+/** Extra minutes granted to a part beyond sampler.max_minutes: the final diagnostics, figures and report page. */
+export const PART_TIME_MARGIN_MINUTES = 10;
+/** Time limit of the merge job, minutes (it reads the parts, rediagnoses and redraws; no sampling). */
+export const MERGE_TIME_MINUTES = 60;
+
+/** What both scripts need to know. */
+export interface SlurmScriptInput {
+  /** Job name (letters, digits, '-', '_', '.'). */
+  jobName: string;
+  /** Number of parts (array tasks 0 .. count - 1). */
+  partCount: number;
+  /** CPUs per array task, also the worker threads of a part when Slurm does not say. */
+  cpusPerTask: number;
+  /** sampler.max_minutes of the configuration. */
+  maxMinutes: number;
+  /** Absolute folder the scripts `cd` into before running candela. */
+  workingDir: string;
+  /** The command that starts candela, one word per entry (e.g. node and the entry script, or npx candela). */
+  launcher: readonly string[];
+  /** Absolute path of the configuration file. */
+  configPath: string;
+  /** Absolute output folder of the run. */
+  outDir: string;
+  /** Absolute folder of the log files. */
+  logsDir: string;
+  /** Absolute path of the batch script itself (named in its comments). */
+  sbatchPath: string;
+  /** Absolute path of the merge script. */
+  mergePath: string;
+  /** One line per part: index, model label, ensemble. */
+  parts: Array<{ index: number; label: string; ensemble: number }>;
+  /** One merge per model: its part folders and the merged folder, absolute. */
+  merges: Array<{ label: string; partDirs: string[]; runDir: string }>;
+}
+
+/**
+ * Quotes one word for a POSIX shell: unchanged when it holds only safe
+ * characters, else in single quotes (a single quote written as '\'').
+ * Cost: O(length).
+ * @param word any text.
+ * @returns the quoted word.
+ * @throws nothing.
+ * @example shellQuote("my run") // "'my run'"
+ */
+export function shellQuote(word: string): string {
+  return /^[A-Za-z0-9_./:=@%+-]+$/.test(word) ? word : `'${word.replace(/'/g, `'\\''`)}'`;
+}
+
+/**
+ * A Slurm time limit for `minutes` (rounded up to whole minutes), as
+ * HH:MM:SS or, from one day on, D-HH:MM:SS (formats accepted by --time,
+ * Slurm sbatch manual).
+ * Cost: O(1).
+ * @param minutes the limit, minutes (> 0).
+ * @returns the --time value.
+ * @throws nothing.
+ * @example slurmTimeLimit(90) // '01:30:00'
+ */
+export function slurmTimeLimit(minutes: number): string {
+  const total = Math.max(1, Math.ceil(minutes));
+  const days = Math.floor(total / 1440);
+  const hours = Math.floor((total % 1440) / 60);
+  const clock = `${String(hours).padStart(2, '0')}:${String(total % 60).padStart(2, '0')}:00`;
+  return days > 0 ? `${days}-${clock}` : clock;
+}
+
+/**
+ * Time limit of one part: max_minutes plus the margins above, minutes.
+ * @param maxMinutes sampler.max_minutes.
+ * @returns minutes, rounded up.
+ * @throws nothing.
+ * @example partTimeMinutes(60) // 76
+ */
+export function partTimeMinutes(maxMinutes: number): number {
+  return Math.ceil(maxMinutes * (1 + PART_TIME_MARGIN_FRACTION) + PART_TIME_MARGIN_MINUTES);
+}
+
+const quoteAll = (words: readonly string[]) => words.map(shellQuote).join(' ');
+
+/**
+ * The job-array batch script: task I runs `candela fit CONFIG --out DIR --part I`.
+ * Cost: O(parts).
+ * @param input the plan.
+ * @returns the script text (bash).
+ * @throws nothing.
+ * @example slurmBatchScript(input).includes('#SBATCH --array=0-7') // for 8 parts
+ */
+export function slurmBatchScript(input: SlurmScriptInput): string {
+  const command = [quoteAll(input.launcher), 'fit', shellQuote(input.configPath), '--out', shellQuote(input.outDir),
+    '--part', '"$SLURM_ARRAY_TASK_ID"', '--workers', `"\${SLURM_CPUS_PER_TASK:-${input.cpusPerTask}}"`].join(' ');
+  return [
+    '#!/bin/bash',
+    `#SBATCH --job-name=${input.jobName}`,
+    `#SBATCH --array=0-${input.partCount - 1}`,
+    '#SBATCH --ntasks=1',
+    `#SBATCH --cpus-per-task=${input.cpusPerTask}`,
+    `#SBATCH --time=${slurmTimeLimit(partTimeMinutes(input.maxMinutes))}`,
+    `#SBATCH --output=${input.logsDir}/part-%A_%a.log`,
+    '#',
+    '# Written by `candela fit CONFIG --plan slurm`. One array task per part:',
+    '# part I = model index x ensembles + ensemble, sampled into',
+    '# <out>/parts/<model>/ensemble-<k>/. Parts of this configuration:',
+    ...input.parts.map((part) => `#   ${part.index}: model ${part.label}, ensemble ${part.ensemble}`),
+    '#',
+    `# Submit:     sbatch ${shellQuote(input.sbatchPath)}`,
+    `# Then merge: sbatch --dependency=afterok:<jobid> ${shellQuote(input.mergePath)}`,
+    '# A task that failed or ran out of time continues with the same command plus --resume.',
+    'set -euo pipefail',
+    `cd ${shellQuote(input.workingDir)}`,
+    command,
+    '',
+  ].join('\n');
+}
+
+/**
+ * The merge script: one `candela merge` per model, each into `<out>/<model>`.
+ * Runs as a Slurm job after the array (`sbatch --dependency=afterok:<jobid>`)
+ * or directly with bash.
+ * Cost: O(parts).
+ * @param input the plan.
+ * @returns the script text (bash).
+ * @throws nothing.
+ * @example slurmMergeScript(input).split('\n').filter((line) => line.includes(' merge ')).length // models
+ */
+export function slurmMergeScript(input: SlurmScriptInput): string {
+  return [
+    '#!/bin/bash',
+    `#SBATCH --job-name=${input.jobName}-merge`,
+    '#SBATCH --ntasks=1',
+    '#SBATCH --cpus-per-task=1',
+    `#SBATCH --time=${slurmTimeLimit(MERGE_TIME_MINUTES)}`,
+    `#SBATCH --output=${input.logsDir}/merge-%j.log`,
+    '#',
+    '# Combines the parts of each model into one run folder once every array task',
+    '# has finished. Submit it so that it waits for the array job:',
+    `#   sbatch --dependency=afterok:<jobid> ${shellQuote(input.mergePath)}`,
+    '# or run it with bash when the array is done.',
+    'set -euo pipefail',
+    `cd ${shellQuote(input.workingDir)}`,
+    ...input.merges.map((merge) => [quoteAll(input.launcher), 'merge', ...merge.partDirs.map(shellQuote), '--out', shellQuote(merge.runDir)].join(' ')),
+    '',
+  ].join('\n');
+}
