@@ -3,7 +3,7 @@ import { diagnoseTraces } from './diagnoseTraces.js';
 import type { EnsembleSampler } from '../sampler/index.js';
 
 /** Why sampling ended. */
-export type StopReason = 'converged' | 'max_steps' | 'wall_time' | 'interrupted';
+export type StopReason = 'converged' | 'max_steps' | 'wall_time' | 'interrupted' | 'merged';
 
 /** Convergence state at one check. */
 export interface ConvergenceCheck {

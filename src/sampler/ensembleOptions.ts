@@ -20,6 +20,14 @@ export interface EnsembleRunOptions {
   stretchScale?: number;
   /** Probability in [0, 1] that a walker proposes a differential-evolution move instead of a stretch (default 0). */
   differentialEvolutionWeight?: number;
+  /**
+   * Original index of each ensemble held, when the sampler runs a subset of a
+   * larger run (one part of a cluster job): held ensemble j draws from
+   * `deriveSeed(seed, 'ensemble', ensembleIndices[j])`, so its chain equals
+   * that ensemble's chain in the full run. Distinct integers >= 0, one per
+   * ensemble; `ensembles` defaults to their count. Omitted: 0, 1, 2, ...
+   */
+  ensembleIndices?: readonly number[];
 }
 
 /** The options with every default filled in, as stored in snapshots. */
@@ -30,6 +38,8 @@ export interface ResolvedEnsembleOptions {
   seed: string;
   stretchScale: number;
   differentialEvolutionWeight: number;
+  /** Present only when given: original index of each held ensemble (see EnsembleRunOptions). */
+  ensembleIndices?: number[];
 }
 
 function isPositiveInteger(value: unknown): value is number {
@@ -43,7 +53,9 @@ function isPositiveInteger(value: unknown): value is number {
  *
  * Cost: O(1). Throws one CandelaError listing all problems: codes
  * `sampler.invalid_option`, `sampler.too_few_walkers`,
- * `sampler.dimension_mismatch` (when `evaluatorDimension` differs).
+ * `sampler.dimension_mismatch` (when `evaluatorDimension` differs); a bad
+ * `ensembleIndices` (repeated, negative, or not one per ensemble) is a
+ * `sampler.invalid_option` at path `ensembleIndices`.
  * @example resolveEnsembleOptions({ dimension: 3, walkers: 8, seed: '1' }).ensembles // 4
  */
 export function resolveEnsembleOptions(options: EnsembleRunOptions, evaluatorDimension?: number): ResolvedEnsembleOptions {
@@ -54,11 +66,17 @@ export function resolveEnsembleOptions(options: EnsembleRunOptions, evaluatorDim
   const resolved: ResolvedEnsembleOptions = {
     dimension: options.dimension,
     walkers: options.walkers,
-    ensembles: options.ensembles ?? DEFAULT_ENSEMBLE_COUNT,
+    ensembles: options.ensembles ?? options.ensembleIndices?.length ?? DEFAULT_ENSEMBLE_COUNT,
     seed: options.seed,
     stretchScale: options.stretchScale ?? DEFAULT_STRETCH_SCALE,
     differentialEvolutionWeight: options.differentialEvolutionWeight ?? 0,
   };
+  if (options.ensembleIndices !== undefined) {
+    const indices = [...options.ensembleIndices];
+    resolved.ensembleIndices = indices;
+    const valid = indices.every((index) => Number.isInteger(index) && index >= 0) && new Set(indices).size === indices.length;
+    if (!valid || indices.length !== resolved.ensembles) invalid('ensembleIndices', `${resolved.ensembles} distinct integers >= 0, one per ensemble`, JSON.stringify(indices));
+  }
   if (!isPositiveInteger(resolved.dimension)) invalid('dimension', 'an integer >= 1', resolved.dimension);
   if (!isPositiveInteger(resolved.ensembles)) invalid('ensembles', 'an integer >= 1', resolved.ensembles);
   if (typeof resolved.seed !== 'string' || resolved.seed.length === 0) invalid('seed', 'a non-empty string', resolved.seed);

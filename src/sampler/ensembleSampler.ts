@@ -55,7 +55,10 @@ export class EnsembleSampler {
    * Validates the options, evaluates the initial walkers of every ensemble in
    * one batch and returns a sampler at step 0.
    * `initialPositions[k]` holds ensemble k's walkers, walkers x dimension
-   * (for example `initializeWalkers(...).positions`).
+   * (for example `initializeWalkers(...).positions`). With
+   * `options.ensembleIndices`, held ensemble k draws from the stream of
+   * ensemble `ensembleIndices[k]` of the full run (give it that ensemble's
+   * initial walkers to reproduce its chain exactly).
    * Throws CandelaError: option problems (see resolveEnsembleOptions) and
    * start problems (see evaluateInitialWalkers).
    */
@@ -65,7 +68,7 @@ export class EnsembleSampler {
     const blobCount = evaluator.blobCount;
     const { logProb, blobs } = await evaluateInitialWalkers(settings, evaluator, initialPositions);
     const states = initialPositions.map((positions, k): EnsembleState => ({
-      rng: createRandomStream(deriveSeed(settings.seed, 'ensemble', k)),
+      rng: createRandomStream(deriveSeed(settings.seed, 'ensemble', settings.ensembleIndices?.[k] ?? k)),
       positions: Float64Array.from(positions),
       logProb: logProb.slice(k * walkers, (k + 1) * walkers),
       blobs: blobs.slice(k * walkers * blobCount, (k + 1) * walkers * blobCount),

@@ -1,7 +1,8 @@
+import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
 import cliProgress from 'cli-progress';
-import { formatIssue } from '../../errors.js';
-import { runFit, terminalRunReport, type FitProgress } from '../../pipeline/index.js';
+import { CandelaError, formatIssue } from '../../errors.js';
+import { planSlurmArray, runFit, terminalRunReport, type FitProgress } from '../../pipeline/index.js';
 
 /** Seconds between status lines when the output is not a terminal. */
 const STATUS_INTERVAL_SECONDS = 5;
@@ -27,6 +28,20 @@ function statusLine(progress: FitProgress): string {
 }
 
 /**
+ * The words that start this very candela on a cluster node: this node binary
+ * and the entry script of this build (dist/src/cli/main.js once built),
+ * absolute, whichever way the current process was started.
+ */
+function currentLauncher(): string[] {
+  return [process.execPath, fileURLToPath(new URL('../main.js', import.meta.url))];
+}
+
+function parsePart(text: string): number {
+  if (!/^\d+$/.test(text.trim())) throw new CandelaError({ code: 'fit.bad_part', path: '--part', message: 'the part index must be a whole number >= 0', found: text, fix: 'use a task id of the array written by --plan slurm' });
+  return Number(text);
+}
+
+/**
  * `candela fit CONFIG`: samples the posterior of every model in the
  * configuration, proves convergence, writes the run folders.
  */
@@ -40,8 +55,17 @@ export function registerFitCommand(program: Command): void {
     .option('--resume', 'continue an interrupted run from its last checkpoint')
     .option('--workers <n>', 'worker threads (replaces sampler.workers)', (text) => Number.parseInt(text, 10))
     .option('--quiet', 'print nothing but errors')
-    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n\nCtrl-C writes a checkpoint and the outputs so far; --resume continues the run.\n')
-    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean }) => {
+    .option('--part <index>', 'run only part I = model index x ensembles + ensemble, into <out>/parts/<model>/ensemble-<k>', parsePart)
+    .option('--plan <scheduler>', 'write a job-array plan for a cluster scheduler instead of sampling (slurm)')
+    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n  candela fit configs/demo.yaml --out out/demo --plan slurm\n  candela fit configs/demo.yaml --out out/demo --part 3\n\nCtrl-C writes a checkpoint and the outputs so far; --resume continues the run.\n')
+    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string }) => {
+      if (options.plan !== undefined) {
+        if (options.plan !== 'slurm') throw new CandelaError({ code: 'fit.unknown_plan', path: '--plan', message: 'this scheduler is not supported', expected: 'slurm', found: options.plan });
+        if (options.part !== undefined) throw new CandelaError({ code: 'fit.plan_with_part', path: '--part', message: '--plan writes the scripts of every part; it takes no --part', fix: 'drop --part' });
+        const plan = planSlurmArray({ configPath, outDir: options.out, force: options.force, launcher: currentLauncher(), workingDir: process.cwd() });
+        process.stdout.write(`wrote ${plan.batchPath} (${plan.parts} array tasks) and ${plan.mergePath}\nsubmit with:\n  ${plan.submitCommand}\nthen merge when every task has succeeded:\n  sbatch --dependency=afterok:<jobid> ${plan.mergePath}\n`);
+        return;
+      }
       const controller = new AbortController();
       const stop = () => controller.abort();
       process.once('SIGINT', stop);
@@ -53,7 +77,7 @@ export function registerFitCommand(program: Command): void {
       let lastStatus = 0;
       try {
         const outcomes = await runFit({
-          configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, signal: controller.signal,
+          configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, part: options.part, signal: controller.signal,
           onLine: (line) => {
             if (quiet) return;
             if (bar && barStarted) { bar.stop(); barStarted = false; }

@@ -7,6 +7,7 @@ import { registerStandardizeCommand } from './standardize.js';
 import { registerReportCommand } from './report.js';
 import { registerSimulateCommand } from './simulate.js';
 import { registerCompareCommand } from './compare.js';
+import { registerMergeCommand } from './merge.js';
 
 /**
  * Every sub-command registers itself here: one import and one call per
@@ -22,4 +23,5 @@ export function registerCommands(program: Command): void {
   registerReportCommand(program);
   registerSimulateCommand(program);
   registerCompareCommand(program);
+  registerMergeCommand(program);
 }
