@@ -206,6 +206,7 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
       }),
       chainLengthSteps: analysis.steps, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess, tauMultiple: 50,
       ...(analysis.acceptanceMean !== null ? { acceptanceFraction: analysis.acceptanceMean } : {}),
+      ...(analysis.method === 'nested' ? { notApplicable: `Nested sampling draws independent weighted samples: R-hat and autocorrelation times do not apply. Kish effective sample size of the weights: ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}.` } : {}),
     },
     figures,
     configurationYaml: stringify(run.record.configuration),

@@ -1,6 +1,7 @@
 import type { ParameterSymbol } from '../figures/index.js';
 import { convergenceVerdicts } from './convergenceVerdicts.js';
 import { htmlElement } from './htmlElement.js';
+import { escapeXml } from '../figures/index.js';
 import type { ReportDiagnostics } from './reportInput.js';
 import { parameterHeadingHtml } from './summarySection.js';
 
@@ -27,6 +28,9 @@ function shown(value: number, digits: number): string {
  * @example convergenceSection(diagnostics, symbols)
  */
 export function convergenceSection(diagnostics: ReportDiagnostics, symbols?: Readonly<Record<string, ParameterSymbol>>): string {
+  if (diagnostics.notApplicable !== undefined) {
+    return htmlElement('section', { id: 'convergence' }, [htmlElement('h2', {}, 'Convergence checks'), '\n', htmlElement('p', { class: 'note' }, escapeXml(diagnostics.notApplicable)), '\n']);
+  }
   const verdicts = convergenceVerdicts(diagnostics);
   const columns = ['R-hat', 'ESS', '\u03c4 (steps)', 'chain length / \u03c4'];
   const head = htmlElement('thead', {}, htmlElement('tr', {}, [htmlElement('th', { scope: 'col' }, 'parameter'), ...columns.map((text) => htmlElement('th', { scope: 'col', class: 'number' }, text))]));
@@ -40,7 +44,7 @@ export function convergenceSection(diagnostics: ReportDiagnostics, symbols?: Rea
       markedCell(verdict.lengthInTaus > 0 ? verdict.lengthInTaus.toFixed(0) : 'not finite', verdict.lengthPass),
     ]);
   });
-  let criteria = `\u03c4 is the integrated autocorrelation time. Checks: R-hat at most ${diagnostics.rHatMax}, ESS at least ${diagnostics.essMin}, chain of ${diagnostics.chainLengthSteps} steps after burn-in at least ${diagnostics.tauMultiple} autocorrelation times long.`;
+  let criteria = `\u03c4 is the integrated autocorrelation time. Checks: R-hat at most ${diagnostics.rHatMax}, ESS at least ${diagnostics.essMin}, chain of ${diagnostics.chainLengthSteps} steps at least ${diagnostics.tauMultiple} autocorrelation times long.`;
   if (diagnostics.acceptanceFraction !== undefined && Number.isFinite(diagnostics.acceptanceFraction)) criteria += ` Mean acceptance fraction ${diagnostics.acceptanceFraction.toFixed(3)}.`;
   return htmlElement('section', { id: 'convergence' }, [
     htmlElement('h2', {}, 'Convergence checks'),

@@ -35,14 +35,16 @@ export function reportHtml(input: ReportInput): string {
   const symbols = input.symbols;
   const verdict = convergenceVerdicts(input.diagnostics);
   const failing = verdict.parameters.filter((parameter) => !parameter.pass).map((parameter) => parameter.parameter);
-  const verdictText = verdict.pass
+  const verdictText = input.diagnostics.notApplicable !== undefined
+    ? 'Markov-chain convergence checks do not apply to this run'
+    : verdict.pass
     ? '\u2713 every convergence check passes'
     : verdict.parameters.length === 0
       ? '\u2717 no convergence numbers were given'
       : `\u2717 convergence checks fail for ${failing.join(', ')}`;
   const header = htmlElement('header', {}, [
     htmlElement('h1', {}, escapeXml(input.title)),
-    htmlElement('p', { class: `verdict ${verdict.pass ? 'pass' : 'fail'}`, role: 'status' }, escapeXml(verdictText)),
+    htmlElement('p', { class: `verdict ${verdict.pass || input.diagnostics.notApplicable !== undefined ? 'pass' : 'fail'}`, role: 'status' }, escapeXml(verdictText)),
   ]);
   const warnings = input.warnings?.length
     ? htmlElement('aside', { class: 'warnings' }, [htmlElement('strong', {}, 'Warnings'), htmlElement('ul', {}, input.warnings.map((warning) => htmlElement('li', {}, escapeXml(warning))))])

@@ -47,7 +47,7 @@ export interface ReportDiagnosticRow {
 /** Convergence numbers and the thresholds they are judged against. */
 export interface ReportDiagnostics {
   rows: readonly ReportDiagnosticRow[];
-  /** Steps per walker after burn-in (steps). */
+  /** Steps per walker in the whole chain (steps). */
   chainLengthSteps: number;
   /** Largest acceptable R-hat (e.g. 1.01, Vehtari et al. 2021). */
   rHatMax: number;
@@ -57,6 +57,8 @@ export interface ReportDiagnostics {
   tauMultiple: number;
   /** Mean acceptance fraction of the stretch move, if known (0..1). */
   acceptanceFraction?: number;
+  /** When set, Markov-chain checks do not apply to this run (e.g. nested sampling): this sentence says why and what stands instead. */
+  notApplicable?: string;
 }
 
 /** One figure of the report. */
