@@ -183,7 +183,10 @@ export function triangleFigure(runs: readonly TriangleRun[], parameters: readonl
   if (Object.keys(reference).some((name) => parameters.includes(name))) {
     entries.push({ label: options.referenceLabel ?? 'reference', color: FIGURE_STYLE.referenceColor, key: 'dashed' });
   }
-  const legendX = count >= 2 ? frameAt(0, 1).leftPx + GAP_PX : MARGIN.left + panelPx * 0.55;
-  body.push(drawLegend(entries, legendX, MARGIN.top, { boxed: count < 2 }).svg);
-  return svgDocument(widthPx, heightPx, `Posterior triangle figure of ${parameters.join(', ')}`, definitions, body);
+  // With one parameter there is no empty upper triangle: the legend goes to the right of the panel and the figure widens to hold it.
+  const legendX = count >= 2 ? frameAt(0, 1).leftPx + GAP_PX : MARGIN.left + panelPx + GAP_PX;
+  const legend = drawLegend(entries, legendX, MARGIN.top, { boxed: count < 2 });
+  body.push(legend.svg);
+  const figureWidthPx = count >= 2 ? widthPx : Math.round(Math.max(widthPx, legendX + legend.widthPx + MARGIN.right));
+  return svgDocument(figureWidthPx, heightPx, `Posterior triangle figure of ${parameters.join(', ')}`, definitions, body);
 }
