@@ -2,6 +2,7 @@ import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildRunOutputs, runFit } from '../../src/pipeline/index.js';
+import { pantheonBinnedConfig } from '../support/pantheonBinnedConfig.js';
 import { isCandelaError } from '../../src/errors.js';
 
 // End-to-end runs of `candela fit` on the Pantheon 2018 binned Hubble diagram
@@ -9,28 +10,16 @@ import { isCandelaError } from '../../src/errors.js';
 // they check run control (determinism across worker counts, resume, refusal
 // to overwrite, report reproducibility), not the posterior itself.
 const scratch = resolve('.candela-tmp/fit-run');
-const dataFolder = resolve('../shared/data-real/pantheon2018/Binned_data');
 
 function writeConfig(name: string, extra: { maxSteps: number; workers: number }): string {
   const path = join(scratch, `${name}.yaml`);
-  writeFileSync(path, `title: "run-control test"
-seed: 11
-supernovae:
-  - label: bins
-    kind: magnitudes
-    table: { file: ${join(dataFolder, 'lcparam_DS17f.txt')}, delimiter: whitespace }
-    columns: { id: name, z: zcmb, z_helio: zhel, magnitude: mb, magnitude_err: dmb }
-    covariances:
-      - { file: ${join(dataFolder, 'sys_DS17f.txt')}, applies_to: magnitudes }
-standardization:
-  scatter: { intrinsic: off, lensing_per_redshift: 0, peculiar_velocity_km_s: 0, redshift_errors: false }
-models:
-  - { label: flat_wcdm, dark_energy: constant_w, curvature: flat }
-parameters:
-  w0: { prior: uniform, min: -2.5, max: -0.3 }
-sampler: { walkers: 8, ensembles: 2, max_steps: ${extra.maxSteps}, check_every: 50, checkpoint_every: 50, target_ess: 1000000, workers: ${extra.workers} }
-output: { dir: ${join(scratch, name)}, figures: [triangle, hubble, trace], png: false }
-`);
+  writeFileSync(path, pantheonBinnedConfig({
+    title: 'run-control test', seed: 11,
+    models: '  - { label: flat_wcdm, dark_energy: constant_w, curvature: flat }',
+    parameters: '  w0: { prior: uniform, min: -2.5, max: -0.3 }',
+    sampler: `{ walkers: 8, ensembles: 2, max_steps: ${extra.maxSteps}, check_every: 50, checkpoint_every: 50, target_ess: 1000000, workers: ${extra.workers} }`,
+    output: `{ dir: ${join(scratch, name)}, figures: [triangle, hubble, trace], png: false }`,
+  }));
   return path;
 }
 

@@ -5,6 +5,7 @@ import { loadConfigFile } from '../../src/config/index.js';
 import { buildRunOutputs, runFit, type FitOutcome } from '../../src/pipeline/index.js';
 import { buildModel } from '../../src/pipeline/buildModel.js';
 import { loadSupernovae } from '../../src/pipeline/loadSupernovae.js';
+import { pantheonBinnedConfig } from '../support/pantheonBinnedConfig.js';
 import { readChainsFile } from '../../src/pipeline/chainsFile.js';
 
 // Nested-sampling runs of `candela fit` (sampler.method: nested) on the
@@ -13,7 +14,6 @@ import { readChainsFile } from '../../src/pipeline/chainsFile.js';
 // offset marginalized analytically, so the posterior is one-dimensional in
 // omega_m and the evidence can be checked by direct quadrature.
 const scratch = resolve('.candela-tmp/nested-fit');
-const dataFolder = resolve('../shared/data-real/pantheon2018/Binned_data');
 /** Live points of the test runs: ln Z error sqrt(H / N) ~ 0.13 nats for H ~ 3.3 nats (Skilling 2006). */
 const LIVE_POINTS = 200;
 /** Grid intervals of the Simpson quadrature over omega_m in [0, 1] (even; the posterior sd ~0.022 spans ~90 intervals). */
@@ -21,24 +21,13 @@ const QUADRATURE_INTERVALS = 4000;
 
 function writeConfig(name: string, seed: number): string {
   const path = join(scratch, `${name}.yaml`);
-  writeFileSync(path, `title: "nested test"
-seed: ${seed}
-supernovae:
-  - label: bins
-    kind: magnitudes
-    table: { file: ${join(dataFolder, 'lcparam_DS17f.txt')}, delimiter: whitespace }
-    columns: { id: name, z: zcmb, z_helio: zhel, magnitude: mb, magnitude_err: dmb }
-    covariances:
-      - { file: ${join(dataFolder, 'sys_DS17f.txt')}, applies_to: magnitudes }
-standardization:
-  scatter: { intrinsic: off, lensing_per_redshift: 0, peculiar_velocity_km_s: 0, redshift_errors: false }
-models:
-  - { label: flat_lcdm, dark_energy: lambda, curvature: flat }
-parameters:
-  omega_m: { prior: uniform, min: 0, max: 1 }
-sampler: { method: nested, nested: { live_points: ${LIVE_POINTS}, dlogz: 0.05 } }
-output: { dir: ${join(scratch, name)}, figures: [triangle, hubble, trace], png: false }
-`);
+  writeFileSync(path, pantheonBinnedConfig({
+    title: 'nested test', seed,
+    models: '  - { label: flat_lcdm, dark_energy: lambda, curvature: flat }',
+    parameters: '  omega_m: { prior: uniform, min: 0, max: 1 }',
+    sampler: `{ method: nested, nested: { live_points: ${LIVE_POINTS}, dlogz: 0.05 } }`,
+    output: `{ dir: ${join(scratch, name)}, figures: [triangle, hubble, trace], png: false }`,
+  }));
   return path;
 }
 

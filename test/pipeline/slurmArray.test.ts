@@ -3,6 +3,7 @@ import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { main } from '../../src/cli/main.js';
 import { isCandelaError } from '../../src/errors.js';
+import { pantheonBinnedConfig } from '../support/pantheonBinnedConfig.js';
 import { mergeParts, runFit } from '../../src/pipeline/index.js';
 
 // A Slurm job array run without Slurm: the suite cannot rely on a scheduler
@@ -18,29 +19,17 @@ import { mergeParts, runFit } from '../../src/pipeline/index.js';
 // Scolnic et al. 2018); target_ess is out of reach so every run stops at
 // max_steps.
 const scratch = resolve('.candela-tmp/slurm-array');
-const dataFolder = resolve('../shared/data-real/pantheon2018/Binned_data');
 const STEPS = 150;
 
 function writeConfig(name: string, seed = 11): string {
   const path = join(scratch, `${name}.yaml`);
-  writeFileSync(path, `title: "cluster parts test"
-seed: ${seed}
-supernovae:
-  - label: bins
-    kind: magnitudes
-    table: { file: ${join(dataFolder, 'lcparam_DS17f.txt')}, delimiter: whitespace }
-    columns: { id: name, z: zcmb, z_helio: zhel, magnitude: mb, magnitude_err: dmb }
-    covariances:
-      - { file: ${join(dataFolder, 'sys_DS17f.txt')}, applies_to: magnitudes }
-standardization:
-  scatter: { intrinsic: off, lensing_per_redshift: 0, peculiar_velocity_km_s: 0, redshift_errors: false }
-models:
-  - { label: flat_wcdm, dark_energy: constant_w, curvature: flat }
-parameters:
-  w0: { prior: uniform, min: -2.5, max: -0.3 }
-sampler: { walkers: 8, ensembles: 2, max_steps: ${STEPS}, max_minutes: 30, check_every: 50, checkpoint_every: 50, target_ess: 1000000, workers: 1 }
-output: { dir: ${join(scratch, name)}, figures: [triangle, hubble, trace], png: false }
-`);
+  writeFileSync(path, pantheonBinnedConfig({
+    title: 'cluster parts test', seed,
+    models: '  - { label: flat_wcdm, dark_energy: constant_w, curvature: flat }',
+    parameters: '  w0: { prior: uniform, min: -2.5, max: -0.3 }',
+    sampler: `{ walkers: 8, ensembles: 2, max_steps: ${STEPS}, max_minutes: 30, check_every: 50, checkpoint_every: 50, target_ess: 1000000, workers: 1 }`,
+    output: `{ dir: ${join(scratch, name)}, figures: [triangle, hubble, trace], png: false }`,
+  }));
   return path;
 }
 

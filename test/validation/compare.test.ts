@@ -6,6 +6,7 @@ import { createRandomStream } from '../../src/math/index.js';
 import { compareRuns, runFit } from '../../src/pipeline/index.js';
 import { loadConfigFile } from '../../src/config/index.js';
 import { buildModel } from '../../src/pipeline/buildModel.js';
+import { pantheonBinnedConfig } from '../support/pantheonBinnedConfig.js';
 import { loadSupernovae } from '../../src/pipeline/loadSupernovae.js';
 
 // The Savage-Dickey density ratio (Dickey 1971; Trotta 2007, MNRAS 378, 72) equals the Bayes
@@ -108,30 +109,19 @@ describe.skipIf(!process.env.CANDELA_VALIDATE)('Savage-Dickey against evidences 
   }, 900_000);
 
   it('nested ln Z of the Pantheon 2018 binned flat LambdaCDM fit has pulls against quadrature of mean 0 (within 3 / sqrt(20)) and spread 0.5 to 1.5 over 20 seeds', async () => {
-    const dataFolder = resolve('../shared/data-real/pantheon2018/Binned_data');
     const pulls: number[] = [];
     let quadrature = Number.NaN;
     for (let seed = 1; seed <= 20; seed++) {
       const folder = join(scratch, `pantheon-${seed}`);
       mkdirSync(folder, { recursive: true });
       const path = join(folder, 'pantheon.yaml');
-      writeFileSync(path, `seed: ${seed}
-supernovae:
-  - label: bins
-    kind: magnitudes
-    table: { file: ${join(dataFolder, 'lcparam_DS17f.txt')}, delimiter: whitespace }
-    columns: { id: name, z: zcmb, z_helio: zhel, magnitude: mb, magnitude_err: dmb }
-    covariances:
-      - { file: ${join(dataFolder, 'sys_DS17f.txt')}, applies_to: magnitudes }
-standardization:
-  scatter: { intrinsic: off, lensing_per_redshift: 0, peculiar_velocity_km_s: 0, redshift_errors: false }
-models:
-  - { label: flat_lcdm, dark_energy: lambda, curvature: flat }
-parameters:
-  omega_m: { prior: uniform, min: 0, max: 1 }
-sampler: { method: nested, nested: { live_points: 200, dlogz: 0.05 } }
-output: { dir: ${join(folder, 'fit')}, figures: [], png: false }
-`);
+      writeFileSync(path, pantheonBinnedConfig({
+        seed,
+        models: '  - { label: flat_lcdm, dark_energy: lambda, curvature: flat }',
+        parameters: '  omega_m: { prior: uniform, min: 0, max: 1 }',
+        sampler: '{ method: nested, nested: { live_points: 200, dlogz: 0.05 } }',
+        output: `{ dir: ${join(folder, 'fit')}, figures: [], png: false }`,
+      }));
       if (Number.isNaN(quadrature)) {
         // Composite Simpson over omega_m in [0, 1] with 4000 intervals, prior density 1 (as in test/pipeline/nestedFit.test.ts).
         const config = loadConfigFile(path);
