@@ -24,11 +24,14 @@ import { mockOptions, mockTermOptions, quietCovariatesDesign } from './support/v
  * of 10 ranks; uniformity is Pearson's chi-square test with 9 degrees of freedom, p > 0.001.
  */
 const SUPERNOVAE = 200;
+/** Steps per walker of each fit before any extension: burn-in (5 tau; tau ~ 25-60 steps here) plus ~20 tau kept. */
+const STEPS_PER_FIT = 1000;
+const PARAMETERS = ['omega_m', 'w0'] as const;
 const DRAWS_PER_FIT = 99;
 const RANK_BINS = 10;
 /** Draws are taken every THINNING_TAU_MULTIPLE autocorrelation times (lag-2-tau correlation ~ e^-4 for an AR(1) chain). */
 const THINNING_TAU_MULTIPLE = 2;
-/** Kept chains must span at least this many tau, so that tau and the burn-in are trustworthy (common practice: tens of tau). */
+/** Kept chains span at least this many tau (chains are extended until they do), so that tau, the burn-in and the thinning are trustworthy (common practice: tens of tau). */
 const MIN_KEPT_TAU = 20;
 const PRIORS: Record<'omega_m' | 'w0', Prior> = {
   omega_m: { kind: 'uniform', min: 0.1, max: 0.5 },
@@ -50,7 +53,7 @@ async function calibrateOnce(index: number, steps: number): Promise<CalibrationR
   const { table } = generateMockSurvey(mockOptions([quietCovariatesDesign('sbc', SUPERNOVAE, 0.02, 1.0)], truth, deriveSeed('calibration', index, 'survey'), scatter));
   const term = createSupernovaTerm(mockTermOptions(table, { darkEnergy: 'constant_w', flat: true }, { massStep: false, ...scatter, offset: 'marginalize', fixed: FIXED }));
   const posterior = createPosterior({ free: [{ name: 'omega_m', prior: PRIORS.omega_m }, { name: 'w0', prior: PRIORS.w0 }], fixed: FIXED, terms: [term] });
-  const fit = await quickFit(posteriorModel(posterior), posterior.names, (r, out) => posterior.samplePrior(r, out), { walkers: 16, ensembles: 2, steps, seed: deriveSeed('calibration', index, 'fit') });
+  const fit = await quickFit(posteriorModel(posterior), posterior.names, (r, out) => posterior.samplePrior(r, out), { walkers: 16, ensembles: 2, steps, seed: deriveSeed('calibration', index, 'fit'), minKeptTau: MIN_KEPT_TAU });
   const stride = Math.ceil(THINNING_TAU_MULTIPLE * Math.max(...fit.tauSteps));
   const values = [omegaMatter, w0];
   const ranks = values.map((value, d) => rankOfTruth(spacedDraws(fit, d, DRAWS_PER_FIT, stride), value)) as [number, number];
@@ -62,10 +65,6 @@ async function calibrateOnce(index: number, steps: number): Promise<CalibrationR
     keptTau: keptStepsOverTau(fit), tau: Math.max(...fit.tauSteps),
   };
 }
-
-/** Steps per walker of each fit: burn-in (5 tau, tau ~ 25-35 steps here) plus 25-35 tau kept. */
-const STEPS_PER_FIT = 1200;
-const PARAMETERS = ['omega_m', 'w0'] as const;
 
 async function calibrate(count: number): Promise<CalibrationRecord[]> {
   const records: CalibrationRecord[] = [];
@@ -129,6 +128,20 @@ describe('simulation-based calibration helpers', () => {
     const test = chiSquareUniformity([16, 4, 10, 10, 10, 10, 10, 10, 10, 10]);
     expect(test.statistic).toBeCloseTo(7.2, 12);
     expect(test.pValue).toBeCloseTo(chiSquareSurvival(7.2, 9), 15);
+  });
+
+  it('quickFit samples a correlated 2-D Gaussian with its closed-form spread, and spacedDraws picks whole walker slices', async () => {
+    // Unit variances, correlation 0.9 (the distribution's parameters). Sample sd: Monte Carlo relative error 1 / sqrt(2 ESS)
+    // with ESS = walkers x kept steps / tau > 3000 is at most 1.3%, so 7% is more than 5 standard errors.
+    const rho = 0.9;
+    const model = { dimension: 2, blobCount: 0, evaluate: (t: Float64Array) => -(t[0] * t[0] - 2 * rho * t[0] * t[1] + t[1] * t[1]) / (2 * (1 - rho * rho)) };
+    const fit = await quickFit(model, ['x', 'y'], (rng, out) => { out[0] = 3 * rng.normal(); out[1] = 3 * rng.normal(); }, { walkers: 16, ensembles: 2, steps: 4000, seed: 'gaussian' });
+    expect(fit.walkersTotal * (fit.steps - fit.burnInSteps) / Math.max(...fit.tauSteps)).toBeGreaterThan(3000);
+    for (const d of [0, 1]) expect(Math.abs(sampleStatistics(fit.draws[d]).sd - 1)).toBeLessThan(0.07);
+    const draws = spacedDraws(fit, 0, 40, 10);
+    const last = (fit.steps - fit.burnInSteps - 1) * fit.walkersTotal;
+    expect(Array.from(draws.subarray(0, 32))).toEqual(Array.from(fit.draws[0].subarray(last, last + 32)));
+    expect(draws[32]).toBe(fit.draws[0][last - 10 * fit.walkersTotal]);
   });
 
   it('rankOfTruth counts the draws below the truth and rankHistogram groups consecutive ranks (Talts et al. 2018, algorithm 1)', () => {

@@ -12,6 +12,8 @@ import { EnsembleSampler, createInProcessEvaluator, initializeWalkers, type LogP
  * memory of the start (common practice: "a few tau", Goodman & Weare 2010).
  */
 export const QUICK_BURN_IN_TAU_MULTIPLE = 5;
+/** An extension asks for 20% more steps than the estimated shortfall, since tau is re-estimated (and may grow) on the longer chain. */
+const EXTENSION_MARGIN = 1.2;
 
 /** How to run one quick fit. */
 export interface QuickFitOptions {
@@ -27,13 +29,20 @@ export interface QuickFitOptions {
   optimizerStarts?: number;
   /** Evaluation budget per search (default 300 x dimension). */
   optimizerEvaluations?: number;
+  /**
+   * When set, the chain is extended (in one go, by the estimated shortfall plus 20%) while the kept part spans fewer
+   * than this many autocorrelation times, up to `maxSteps`. The stopping rule looks only at the chain, never at a truth.
+   */
+  minKeptTau?: number;
+  /** Largest number of steps when extending (default 3 x steps). */
+  maxSteps?: number;
 }
 
 /** A finished quick fit: draws after burn-in and the numbers that say whether the chain was long enough. */
 export interface QuickFit {
   /** Parameter names, in theta order. */
   names: readonly string[];
-  /** Steps per walker run. */
+  /** Steps per walker run (after any extension). */
   steps: number;
   /** Steps discarded: min(5 max tau, steps / 2), tau measured on the second half of the chain. */
   burnInSteps: number;
@@ -71,6 +80,10 @@ function walkerSeries(sampler: EnsembleSampler, dimension: number, first: number
  * sec. 4) measured on the second half. Deterministic for a seed.
  *
  * Cost: about (walkers x ensembles x steps + optimizerStarts x optimizerEvaluations) model evaluations.
+ * @param model the log posterior (natural log) of `dimension` parameters, in their own units.
+ * @param names parameter names in theta order (copied into the result).
+ * @param sampleStart writes one plausible start point (e.g. a prior draw) using only `rng`.
+ * @param options walkers, ensembles, steps (burn-in included) and seed.
  * @throws whatever initializeWalkers, the sampler or the diagnostics throw (CandelaError).
  * @example const fit = await quickFit(posteriorModel(posterior), posterior.names, posterior.samplePrior, { walkers: 16, ensembles: 2, steps: 600, seed: 'a' });
  */
@@ -85,13 +98,15 @@ export async function quickFit(
   }, evaluator);
   const sampler = await EnsembleSampler.start({ dimension, walkers: options.walkers, ensembles: options.ensembles, seed: options.seed }, evaluator, start.positions);
   await sampler.advance(options.steps);
-  const half = Math.floor(options.steps / 2);
-  const firstTau = walkerSeries(sampler, dimension, half).map((series) => integratedAutocorrelationTime(series).tauSteps);
-  const burnInSteps = Math.min(Math.ceil(QUICK_BURN_IN_TAU_MULTIPLE * Math.max(...firstTau)), half);
-  const kept = walkerSeries(sampler, dimension, burnInSteps);
-  const tauSteps = Float64Array.from(kept, (series) => integratedAutocorrelationTime(series).tauSteps);
+  let measured = measureChain(sampler, dimension);
+  const maxSteps = options.maxSteps ?? 3 * options.steps;
+  while (options.minKeptTau !== undefined && sampler.stepCount < maxSteps && measured.keptSteps < options.minKeptTau * Math.max(...measured.tauSteps)) {
+    const wanted = Math.ceil(EXTENSION_MARGIN * (options.minKeptTau * Math.max(...measured.tauSteps) - measured.keptSteps));
+    await sampler.advance(Math.min(wanted, maxSteps - sampler.stepCount));
+    measured = measureChain(sampler, dimension);
+  }
+  const { burnInSteps, kept, tauSteps, keptSteps } = measured;
   const walkersTotal = options.walkers * options.ensembles;
-  const keptSteps = options.steps - burnInSteps;
   const draws = kept.map((series) => {
     const values = new Float64Array(keptSteps * walkersTotal);
     series.forEach((walker, w) => { for (let s = 0; s < keptSteps; s++) values[s * walkersTotal + w] = walker[s]; });
@@ -99,7 +114,18 @@ export async function quickFit(
   });
   let acceptance = 0;
   for (let k = 0; k < options.ensembles; k++) acceptance += sampler.acceptanceFractions(k).reduce((sum, value) => sum + value, 0);
-  return { names, steps: options.steps, burnInSteps, walkersTotal, tauSteps, draws, acceptance: acceptance / walkersTotal };
+  return { names, steps: sampler.stepCount, burnInSteps, walkersTotal, tauSteps, draws, acceptance: acceptance / walkersTotal };
+}
+
+/** Burn-in (5 tau measured on the second half, at most half the chain), then tau and walker series of the rest. */
+function measureChain(sampler: EnsembleSampler, dimension: number) {
+  const steps = sampler.stepCount;
+  const half = Math.floor(steps / 2);
+  const firstTau = walkerSeries(sampler, dimension, half).map((series) => integratedAutocorrelationTime(series).tauSteps);
+  const burnInSteps = Math.min(Math.ceil(QUICK_BURN_IN_TAU_MULTIPLE * Math.max(...firstTau)), half);
+  const kept = walkerSeries(sampler, dimension, burnInSteps);
+  const tauSteps = Float64Array.from(kept, (series) => integratedAutocorrelationTime(series).tauSteps);
+  return { burnInSteps, kept, tauSteps, keptSteps: steps - burnInSteps };
 }
 
 /** The sampler's view of a posterior: ln posterior, no blobs. */
