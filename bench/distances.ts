@@ -11,14 +11,15 @@ import { createCosmology } from '../src/cosmology/index.js';
 import { timeCalls } from './suite.js';
 import type { BenchSuite } from './suite.js';
 
-const COUNT = 2000;
+/** Number of redshifts of the benchmark. */
+export const COUNT = 2000;
 const MODEL = { omegaMatter: 0.3, w0: -0.9, wa: 0.3, h0KmPerSPerMpc: 70 };
 /** Simpson stops when successive doublings agree to this, relative. */
 const SIMPSON_AGREEMENT = 1e-12;
 const SPEED_OF_LIGHT_KM_PER_S = 299792.458;
 
 /** Redshifts 0.01 .. 2.3, denser at low z like real compilations, sorted. */
-function supernovaRedshifts(): Float64Array {
+export function supernovaRedshifts(): Float64Array {
   return Float64Array.from({ length: COUNT }, (_, i) => 0.01 + 2.29 * Math.pow(i / (COUNT - 1), 1.5));
 }
 
@@ -51,7 +52,8 @@ function simpsonComoving(z: number): number {
   }
 }
 
-function vectorizedModuli(z: Float64Array, out: Float64Array): void {
+/** The moduli at sorted z into out, candela's vectorized path (mag). */
+export function vectorizedModuli(z: Float64Array, out: Float64Array): void {
   const outcome = createCosmology({ darkEnergy: 'cpl', flat: true, ...MODEL }, { maxRedshift: z[z.length - 1] });
   if (!outcome.ok) throw new Error(outcome.reason);
   outcome.cosmology.transverseComovingDistancesHubbleUnits(z, out);
@@ -59,7 +61,8 @@ function vectorizedModuli(z: Float64Array, out: Float64Array): void {
   for (let i = 0; i < z.length; i++) out[i] = 5 * Math.log10((1 + z[i]) * out[i]) + offset;
 }
 
-function naiveModuli(z: Float64Array, out: Float64Array): void {
+/** The moduli at z into out, the naive independent Simpson path (mag). */
+export function naiveModuli(z: Float64Array, out: Float64Array): void {
   const hubbleDistanceMpc = SPEED_OF_LIGHT_KM_PER_S / MODEL.h0KmPerSPerMpc;
   for (let i = 0; i < z.length; i++) out[i] = 5 * Math.log10((1 + z[i]) * hubbleDistanceMpc * simpsonComoving(z[i])) + 25;
 }

@@ -8,6 +8,7 @@
  *   node dist/bench/run.js distances
  */
 import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+import { availableParallelism, cpus, loadavg, totalmem } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { BenchSuite } from './suite.js';
@@ -38,6 +39,7 @@ async function main(names: string[]): Promise<number> {
     process.stderr.write(`no benchmark suite named ${names.join(', ')}; available: ${all.map((suite) => suite.name).join(', ')}\n`);
     return 2;
   }
+  const loadBefore = loadavg();
   const results: Record<string, Record<string, number | string>> = {};
   for (const suite of chosen) {
     process.stdout.write(`running ${suite.name} ...\n`);
@@ -48,7 +50,16 @@ async function main(names: string[]): Promise<number> {
   process.stdout.write(`\n${'suite'.padEnd(widths[0])}  ${'result'.padEnd(widths[1])}  value\n`);
   for (const [name, key, value] of rows) process.stdout.write(`${name.padEnd(widths[0])}  ${key.padEnd(widths[1])}  ${value}\n`);
   mkdirSync(dirname(OUTPUT_FILE), { recursive: true });
-  const report = { node: process.version, platform: `${process.platform}-${process.arch}`, date: new Date().toISOString(), suites: results };
+  const machine = {
+    cpu_model: cpus()[0]?.model ?? 'unknown',
+    cores: availableParallelism(),
+    memory_gb: Number((totalmem() / 2 ** 30).toFixed(1)),
+    load_average_1min_before: loadBefore[0],
+    load_average_1min_after: loadavg()[0],
+  };
+  process.stdout.write(`\nmachine: ${machine.cpu_model}, ${machine.cores} cores, ${machine.memory_gb} GB, node ${process.version}; ` +
+    `1-minute load average ${machine.load_average_1min_before.toFixed(2)} before, ${machine.load_average_1min_after.toFixed(2)} after\n`);
+  const report = { node: process.version, platform: `${process.platform}-${process.arch}`, date: new Date().toISOString(), machine, suites: results };
   writeFileSync(OUTPUT_FILE, `${JSON.stringify(report, null, 2)}\n`);
   process.stdout.write(`\nwrote ${resolve(OUTPUT_FILE)}\n`);
   return 0;

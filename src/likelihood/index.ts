@@ -47,3 +47,5 @@ export type { LowRankGaussian } from './lowRankGaussian.js';
 export type { LowRankGaussianOptions } from './lowRankGaussian.js';
 export { createLowRankGaussian } from './lowRankGaussian.js';
 export { createLowRankEvaluation } from './lowRankGaussian.js';
+export type { LowRankWhitener } from './lowRankWhitener.js';
+export { createLowRankWhitener } from './lowRankWhitener.js';
