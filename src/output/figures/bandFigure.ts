@@ -1,19 +1,13 @@
 import { CandelaError } from '../../errors.js';
 import { createAxisScale } from './axisScale.js';
 import { bandPathData } from './bandPathData.js';
-import { drawAxes } from './drawAxes.js';
 import { drawLegend } from './drawLegend.js';
 import type { LegendEntry } from './drawLegend.js';
 import { FIGURE_STYLE } from './figureStyle.js';
-import { formatTickLabel } from './formatTickLabel.js';
 import { linePathData } from './linePathData.js';
-import { logTicks } from './logTicks.js';
-import { niceTicks } from './niceTicks.js';
 import { mixWithWhite, seriesColor } from './palette.js';
-import { clipPathElement, clippedGroup } from './plotFrame.js';
 import type { PlotFrame } from './plotFrame.js';
-import { richTextToPlain } from './richText.js';
-import { svgDocument } from './svgDocument.js';
+import { framedLineDocument } from './framedLineDocument.js';
 import { svgElement } from './svgElement.js';
 
 /** A reference drawn as a dashed line: a constant (e.g. w = -1) or a curve (e.g. another model). */
@@ -132,19 +126,5 @@ export function bandFigure(input: BandFigureInput, options: BandFigureOptions = 
     layers.push(svgElement('path', { class: 'reference', fill: 'none', stroke: FIGURE_STYLE.referenceColor, 'stroke-width': FIGURE_STYLE.referenceStrokePx, 'stroke-dasharray': FIGURE_STYLE.referenceDash, d }));
   }
   layers.push(svgElement('path', { class: 'median', fill: 'none', stroke: color, 'stroke-width': FIGURE_STYLE.lineStrokePx, 'stroke-linejoin': 'round', d: linePathData(input.x, input.median, xScale, yScale) }));
-  const yTicks = niceTicks(yDomain[0], yDomain[1], 5);
-  let xAxis;
-  if (kind === 'log') {
-    const ticks = logTicks(xLow, xHigh);
-    xAxis = { scale: xScale, ticks: ticks.major, minorTicks: ticks.minor, tickLabels: ticks.major.map((value) => formatTickLabel(value)), label: input.xLabel };
-  } else {
-    const ticks = niceTicks(xLow, xHigh, 6);
-    xAxis = { scale: xScale, ticks: ticks.values, tickLabels: ticks.values.map((value) => formatTickLabel(value, ticks.decimals)), label: input.xLabel };
-  }
-  const body = [
-    clippedGroup(frame, layers),
-    drawAxes(frame, xAxis, { scale: yScale, ticks: yTicks.values, tickLabels: yTicks.values.map((value) => formatTickLabel(value, yTicks.decimals)), label: input.yLabel }),
-    legend.svg,
-  ];
-  return svgDocument(widthPx, heightPx, `${richTextToPlain(input.yLabel)} against ${richTextToPlain(input.xLabel)}`, [clipPathElement(frame)], body);
+  return framedLineDocument({ widthPx, heightPx, frame, layers, legendSvg: legend.svg, xKind: kind, xDomain: [xLow, xHigh], yDomain, xScale, yScale, xLabel: input.xLabel, yLabel: input.yLabel });
 }

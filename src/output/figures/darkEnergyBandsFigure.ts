@@ -2,20 +2,14 @@ import { CandelaError } from '../../errors.js';
 import { createAxisScale } from './axisScale.js';
 import { bandPathData } from './bandPathData.js';
 import { circleMarkersPathData } from './circleMarkersPathData.js';
-import { drawAxes } from './drawAxes.js';
 import { drawLegend } from './drawLegend.js';
 import type { LegendEntry } from './drawLegend.js';
 import { errorBarsPathData } from './errorBarsPathData.js';
 import { FIGURE_STYLE } from './figureStyle.js';
-import { formatTickLabel } from './formatTickLabel.js';
 import { linePathData } from './linePathData.js';
-import { logTicks } from './logTicks.js';
-import { niceTicks } from './niceTicks.js';
 import { seriesColor } from './palette.js';
-import { clipPathElement, clippedGroup } from './plotFrame.js';
 import type { PlotFrame } from './plotFrame.js';
-import { richTextToPlain } from './richText.js';
-import { svgDocument } from './svgDocument.js';
+import { framedLineDocument } from './framedLineDocument.js';
 import { svgElement } from './svgElement.js';
 
 /** One model's curve: posterior median and 68% band at the shared abscissae (y-axis units). */
@@ -139,19 +133,5 @@ export function darkEnergyBandsFigure(input: DarkEnergyBandsInput, options: Dark
     layers.push(svgElement('path', { class: 'error-bars', fill: 'none', stroke: FIGURE_STYLE.textColor, 'stroke-width': FIGURE_STYLE.thinStrokePx, d: errorBarsPathData(points.x, points.y, points.error, xScale, yScale) }));
     layers.push(svgElement('path', { class: 'points', fill: FIGURE_STYLE.textColor, stroke: 'none', d: circleMarkersPathData(points.x, points.y, xScale, yScale, POINT_RADIUS_PX) }));
   }
-  const yTicks = niceTicks(yDomain[0], yDomain[1], 5);
-  let xAxis;
-  if (kind === 'log') {
-    const ticks = logTicks(xLow, xHigh);
-    xAxis = { scale: xScale, ticks: ticks.major, minorTicks: ticks.minor, tickLabels: ticks.major.map((value) => formatTickLabel(value)), label: input.xLabel };
-  } else {
-    const ticks = niceTicks(xLow, xHigh, 6);
-    xAxis = { scale: xScale, ticks: ticks.values, tickLabels: ticks.values.map((value) => formatTickLabel(value, ticks.decimals)), label: input.xLabel };
-  }
-  const body = [
-    clippedGroup(frame, layers),
-    drawAxes(frame, xAxis, { scale: yScale, ticks: yTicks.values, tickLabels: yTicks.values.map((value) => formatTickLabel(value, yTicks.decimals)), label: input.yLabel }),
-    legend.svg,
-  ];
-  return svgDocument(widthPx, heightPx, `${richTextToPlain(input.yLabel)} against ${richTextToPlain(input.xLabel)}`, [clipPathElement(frame)], body);
+  return framedLineDocument({ widthPx, heightPx, frame, layers, legendSvg: legend.svg, xKind: kind, xDomain: [xLow, xHigh], yDomain, xScale, yScale, xLabel: input.xLabel, yLabel: input.yLabel });
 }
