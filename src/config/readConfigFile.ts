@@ -1,8 +1,5 @@
-/**
- * The configuration layer's one contact with the file system: reading the
- * configuration file itself.
- */
-import { readFileSync } from 'node:fs';
+/** Reading a configuration file (the file access itself is readTextFile). */
+import { readTextFile } from './readTextFile.js';
 import type { Checked } from '../errors.js';
 import type { CandelaConfig } from './candelaConfig.js';
 import { parseConfigText } from './parseConfigText.js';
@@ -15,19 +12,6 @@ import { parseConfigText } from './parseConfigText.js';
  * @example readConfigFile('configs/jla.yaml').ok // true
  */
 export function readConfigFile(path: string): Checked<CandelaConfig> {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason = code === 'ENOENT' ? 'does not exist' : code === 'EISDIR' ? 'is a folder' : `cannot be read (${code ?? String(error)})`;
-    return {
-      ok: false,
-      issues: [{
-        code: 'config.unreadable', message: `the configuration file ${reason}`, file: path,
-        fix: code === 'ENOENT' ? 'check the path, or create a starter file with "candela init"' : 'give the path of a readable YAML file',
-      }],
-    };
-  }
-  return parseConfigText(text.replace(/^\uFEFF/, ''), path);
+  const read = readTextFile(path, 'configuration file', 'check the path, or create a starter file with "candela init"');
+  return read.ok ? parseConfigText(read.text, path) : { ok: false, issues: [read.issue] };
 }

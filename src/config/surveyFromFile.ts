@@ -1,8 +1,8 @@
 /**
  * Reading a survey description file (the configuration layer's file access,
- * like readConfigFile).
+ * through readTextFile).
  */
-import { readFileSync } from 'node:fs';
+import { readTextFile } from './readTextFile.js';
 import type { Checked } from '../errors.js';
 import type { SurveyDescription } from './surveyDescription.js';
 import { surveyFromText } from './surveyFromText.js';
@@ -15,16 +15,6 @@ import { surveyFromText } from './surveyFromText.js';
  * @example surveyFromFile('configs/demo-survey.yaml').ok // true
  */
 export function surveyFromFile(path: string): Checked<SurveyDescription> {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason = code === 'ENOENT' ? 'does not exist' : code === 'EISDIR' ? 'is a folder' : `cannot be read (${code ?? String(error)})`;
-    return {
-      ok: false,
-      issues: [{ code: 'config.unreadable', message: `the survey file ${reason}`, file: path, fix: 'give the path of a readable YAML survey description (see docs/simulate.md)' }],
-    };
-  }
-  return surveyFromText(text.replace(/^\uFEFF/, ''), path);
+  const read = readTextFile(path, 'survey file', 'give the path of a readable YAML survey description (see docs/simulate.md)');
+  return read.ok ? surveyFromText(read.text, path) : { ok: false, issues: [read.issue] };
 }
