@@ -7,7 +7,7 @@ import { FIGURE_STYLE } from './figureStyle.js';
 import { linePathData } from './linePathData.js';
 import { mixWithWhite, seriesColor } from './palette.js';
 import type { PlotFrame } from './plotFrame.js';
-import { framedLineDocument } from './framedLineDocument.js';
+import { framedLineDocument, LINE_FIGURE_LEGEND_GAP_PX, LINE_FIGURE_MARGIN, LINE_FIGURE_MIN_TOP_PX, LINE_FIGURE_Y_PADDING_FRACTION } from './framedLineDocument.js';
 import { svgElement } from './svgElement.js';
 
 /** A reference drawn as a dashed line: a constant (e.g. w = -1) or a curve (e.g. another model). */
@@ -46,13 +46,10 @@ export interface BandFigureOptions {
   idPrefix?: string;
 }
 
-const MARGIN = { left: 66, right: 16, bottom: 48 } as const;
-/** Space between the legend above the plot and the plot (px). */
-const LEGEND_GAP_PX = 6;
-/** Smallest space above the plot (px), room for the top tick label when there is no legend. */
-const MIN_TOP_PX = 12;
-/** y-axis padding on each side, as a fraction of the span. */
-const Y_PADDING_FRACTION = 0.06;
+const MARGIN = LINE_FIGURE_MARGIN;
+const LEGEND_GAP_PX = LINE_FIGURE_LEGEND_GAP_PX;
+const MIN_TOP_PX = LINE_FIGURE_MIN_TOP_PX;
+const Y_PADDING_FRACTION = LINE_FIGURE_Y_PADDING_FRACTION;
 /** White share of the 68% (darker) and 95% (lighter) band fills. */
 const BAND_68_WHITE = 0.55;
 const BAND_95_WHITE = 0.82;

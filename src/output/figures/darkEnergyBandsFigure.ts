@@ -9,7 +9,7 @@ import { FIGURE_STYLE } from './figureStyle.js';
 import { linePathData } from './linePathData.js';
 import { seriesColor } from './palette.js';
 import type { PlotFrame } from './plotFrame.js';
-import { framedLineDocument } from './framedLineDocument.js';
+import { framedLineDocument, LINE_FIGURE_LEGEND_GAP_PX, LINE_FIGURE_MARGIN, LINE_FIGURE_MIN_TOP_PX, LINE_FIGURE_Y_PADDING_FRACTION } from './framedLineDocument.js';
 import { svgElement } from './svgElement.js';
 
 /** One model's curve: posterior median and 68% band at the shared abscissae (y-axis units). */
@@ -48,11 +48,10 @@ export interface DarkEnergyBandsOptions {
   idPrefix?: string;
 }
 
-const MARGIN = { left: 66, right: 16, bottom: 48 } as const;
-const LEGEND_GAP_PX = 6;
-const MIN_TOP_PX = 12;
-/** y-axis padding on each side, as a fraction of the span. */
-const Y_PADDING_FRACTION = 0.06;
+const MARGIN = LINE_FIGURE_MARGIN;
+const LEGEND_GAP_PX = LINE_FIGURE_LEGEND_GAP_PX;
+const MIN_TOP_PX = LINE_FIGURE_MIN_TOP_PX;
+const Y_PADDING_FRACTION = LINE_FIGURE_Y_PADDING_FRACTION;
 /** Fill opacity of each 68% band: overlapping bands stay visible through each other. */
 const BAND_OPACITY = 0.28;
 /** Radius of the data dots (px). */

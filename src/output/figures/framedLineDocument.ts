@@ -8,6 +8,15 @@ import type { PlotFrame } from './plotFrame.js';
 import { richTextToPlain } from './richText.js';
 import { svgDocument } from './svgDocument.js';
 
+/** Layout shared by the one-panel line figures (px, except the padding fraction). */
+export const LINE_FIGURE_MARGIN = { left: 66, right: 16, bottom: 48 } as const;
+/** Space between the legend above the plot and the plot (px). */
+export const LINE_FIGURE_LEGEND_GAP_PX = 6;
+/** Smallest space above the plot (px), room for the top tick label when there is no legend. */
+export const LINE_FIGURE_MIN_TOP_PX = 12;
+/** y-axis padding on each side, as a fraction of the span. */
+export const LINE_FIGURE_Y_PADDING_FRACTION = 0.06;
+
 /** What a one-panel line figure (bands, curves, points) needs to become an SVG document. */
 export interface FramedLineFigure {
   widthPx: number;
