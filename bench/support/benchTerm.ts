@@ -5,7 +5,7 @@
  * marginalized. With `alphaBeta: 'fixed'` the covariance is constant (one
  * factorization); with 'free' it follows alpha and beta (one per call).
  */
-import type { CovarianceMatrix } from '../../src/data/index.js';
+import type { CovarianceMatrix, SystematicModes } from '../../src/data/index.js';
 import { createSupernovaTerm, type SupernovaPath, type SupernovaTerm } from '../../src/likelihood/index.js';
 import { createRandomStream } from '../../src/math/index.js';
 import { BENCH_TRUTH, type BenchSurvey } from './syntheticSurvey.js';
@@ -18,15 +18,18 @@ export interface BenchTermOptions {
   path: SupernovaPath;
   /** Extra magnitude covariances (the dense U U^T, or none for a diagonal C). */
   covariances: CovarianceMatrix[];
+  /** Systematic modes U given as modes (C = D + U U^T without an N x N matrix), or none. */
+  systematicModes?: SystematicModes;
   alphaBeta: 'fixed' | 'free';
 }
 
-/** Builds the term (for the dense paths this factorizes C: N^3/3 multiply-adds). */
+/** Builds the term (for the dense paths this factorizes C: N^3/3 multiply-adds; with modes, O(N K^2)). */
 export function benchTerm(survey: BenchSurvey, options: BenchTermOptions): SupernovaTerm {
   return createSupernovaTerm({
     name: 'bench',
     table: survey.table,
     covariances: options.covariances,
+    systematicModes: options.systematicModes,
     cosmologyModel: { darkEnergy: 'cpl', flat: true, cmbTemperatureK: 0, effectiveNeutrinoSpecies: 3.046 },
     standardization: {
       massStep: { enabled: true, splitLogMass: 10, shape: 'sharp', widthDex: 0 },

@@ -1,6 +1,7 @@
 // data: reading supernova tables and covariance files; cuts. May import errors, math.
 // the sample types
 export type { SupernovaTable, CovarianceMatrix } from './supernovaTable.js';
+export type { SystematicModes } from './supernovaTable.js';
 export type { SupernovaField } from './supernovaField.js';
 export { SUPERNOVA_FIELDS } from './supernovaField.js';
 export { REQUIRED_FIELDS } from './supernovaField.js';

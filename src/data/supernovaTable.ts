@@ -75,3 +75,21 @@ export interface CovarianceMatrix {
   /** The file it came from. */
   sourceFile: string;
 }
+
+/**
+ * Systematic uncertainties given as modes: each mode k is the shift (mag) of
+ * every supernova's magnitude produced by a one-standard-deviation change of
+ * one systematic, so that their covariance is C_sys = U U^T. Adding U U^T to
+ * a diagonal covariance keeps it positive definite and lets the likelihood use
+ * the Woodbury identity instead of an N x N matrix.
+ */
+export interface SystematicModes {
+  /** Number of supernovae N (rows of U, in table order). */
+  count: number;
+  /** Number of modes K (columns of U). */
+  modeCount: number;
+  /** U, N x K row major (the K mode shifts of supernova i at i*K .. i*K+K-1), mag, already scaled. */
+  values: Float64Array;
+  /** The file(s) they came from. */
+  sourceFile: string;
+}

@@ -7,7 +7,7 @@ import { householderReduce } from './householderLeastSquares.js';
 import { createOffsetMarginal } from './marginalizeOffset.js';
 import { completeEvaluation, finishEvaluation, rejectEvaluation, type SupernovaEvaluation, type SupernovaEvaluator } from './supernovaEvaluation.js';
 import type { SupernovaModel } from './supernovaModel.js';
-import { createDenseWhitener, createDiagonalWhitener } from './whitener.js';
+import { createWhitenerFor } from './exactEvaluator.js';
 
 /** Exact evaluation replaces the interpolation when the top Chebyshev coefficients exceed this multiple of the largest seen at the references. */
 const TAIL_GUARD_FACTOR = 10;
@@ -25,7 +25,9 @@ const TAIL_GUARD_FLOOR_MAG = 1e-13;
  * so each call costs P^2/2 multiply-adds (P = K + up to 5) plus K distances.
  * The offset is the first column, so marginalizing it drops the first row:
  * chi^2_min = rho^2 + sum_{j>=1} u_j^2 and E = 1^T C^-1 1 = R_00^2.
- * Built once: N^3/3 (Cholesky) + P N^2/2 (whitening) + 2 N P^2 (QR).
+ * Built once: N^3/3 (Cholesky) + P N^2/2 (whitening) + 2 N P^2 (QR); with a
+ * diagonal-plus-modes covariance the whitening is the Woodbury operator
+ * (createModesWhitener): 2.5 N K^2 + P (2 N K) instead of the N^3/3 and P N^2/2.
  * @throws CandelaError when the covariance varies, N is too small, or no K meets the tolerance
  */
 export function createCompressedEvaluator(model: SupernovaModel, tolerance: number): SupernovaEvaluator {
@@ -37,11 +39,12 @@ export function createCompressedEvaluator(model: SupernovaModel, tolerance: numb
     throw new CandelaError({ code: 'likelihood.compression_unavailable', path: `${model.options.name}.fastPath`, message: `compressed path unavailable: ${message}`, fix: "use fastPath 'auto', 'general' or 'diagonal'" });
   };
   if (model.covarianceVaries) fail('the covariance depends on sampled parameters (fix them, freeze alpha/beta, or turn sigma_int off)');
-  const whitener = model.covariance.diagonal ? createDiagonalWhitener(n) : createDenseWhitener(n);
+  const structure = model.covariance.structure;
+  const whitener = createWhitenerFor(model, structure === 'dense' ? 'general' : structure);
   const covarianceInputs = new Float64Array(model.covariance.inputCount);
   model.readCovarianceInputs(fixed, covarianceInputs);
-  if (model.covariance.diagonal) model.covariance.fillVariances(covarianceInputs, whitener.matrix);
-  else model.covariance.fillDense(covarianceInputs, whitener.matrix);
+  if (structure === 'dense') model.covariance.fillDense(covarianceInputs, whitener.matrix);
+  else model.covariance.fillVariances(covarianceInputs, whitener.matrix);
   const factorFailure = whitener.factorize();
   if (factorFailure) fail(factorFailure);
   const choice = chooseCompressionNodes(model, whitener, tolerance);
@@ -181,7 +184,7 @@ export function createCompressedEvaluator(model: SupernovaModel, tolerance: numb
     },
     describe() {
       return [
-        `path: compressed, covariance fixed and factorized once (N = ${n}); ${nodeCount} Chebyshev nodes in ln(1+z) on ` +
+        `path: compressed, covariance fixed and ${structure === 'low_rank' ? `whitened once through the Woodbury identity (diagonal + ${model.covariance.modeCount} modes)` : 'factorized once'} (N = ${n}); ${nodeCount} Chebyshev nodes in ln(1+z) on ` +
           `z = [${model.minFlowRedshift}, ${model.maxFlowRedshift}] (barycentric interpolation, Berrut & Trefethen 2004); ` +
           `${columns} coefficients, O(${columns}^2/2) multiply-adds + ${nodeCount} distances per call`,
         `compression error bound |delta chi^2| <= ${choice.chiSquareBound.toExponential(2)} (target ${tolerance}) at ${choice.referenceCount} reference cosmologies; ` +

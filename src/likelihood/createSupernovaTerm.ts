@@ -19,18 +19,24 @@ export const AUTO_COMPRESSION_MIN_DIAGONAL_COUNT = 200;
 
 function chooseEvaluator(model: SupernovaModel, options: SupernovaTermOptions, tolerance: number): SupernovaEvaluator {
   const requested = options.fastPath ?? 'auto';
-  const diagonal = model.covariance.diagonal;
+  const structure = model.covariance.structure;
+  const diagonal = structure === 'diagonal';
   if (requested === 'general') return createExactEvaluator(model, 'general');
-  if (requested === 'diagonal') {
-    if (!diagonal) {
+  if (requested === 'diagonal' || requested === 'low_rank') {
+    if (structure !== requested) {
       throw new CandelaError({
-        code: 'likelihood.not_diagonal', path: `${options.name}.fastPath`, message: 'the diagonal path needs a diagonal covariance, but a dense matrix was given',
-        expected: 'no dense covariance matrices', found: model.covariance.parts.join('; '), fix: "use fastPath 'auto' or 'general'",
+        code: requested === 'diagonal' ? 'likelihood.not_diagonal' : 'likelihood.not_low_rank', path: `${options.name}.fastPath`,
+        message: requested === 'diagonal'
+          ? 'the diagonal path needs a diagonal covariance, but a dense matrix or systematic modes were given'
+          : `the low_rank path needs a diagonal covariance plus systematic modes, but the covariance is ${structure}`,
+        expected: requested === 'diagonal' ? 'no dense covariance matrices and no systematic modes' : 'systematic modes and no dense covariance matrices',
+        found: model.covariance.parts.join('; '), fix: "use fastPath 'auto' or 'general'",
       });
     }
-    return createExactEvaluator(model, 'diagonal');
+    return createExactEvaluator(model, requested);
   }
   if (requested === 'compressed') return createCompressedEvaluator(model, tolerance);
+  const exactKind = structure === 'dense' ? 'general' : structure;
   const wantsCompression = !model.covarianceVaries && (!diagonal || model.count >= AUTO_COMPRESSION_MIN_DIAGONAL_COUNT);
   if (wantsCompression) {
     try {
@@ -38,11 +44,11 @@ function chooseEvaluator(model: SupernovaModel, options: SupernovaTermOptions, t
     } catch (error) {
       // Not compressible (too few supernovae, or the tolerance is out of reach): say why and use the exact path.
       if (!isCandelaError(error) || error.issues[0]?.code !== 'likelihood.compression_unavailable') throw error;
-      const fallback = createExactEvaluator(model, diagonal ? 'diagonal' : 'general');
+      const fallback = createExactEvaluator(model, exactKind);
       return { ...fallback, describe: () => [...fallback.describe(), `(${error.issues[0].message}; using the exact path)`] };
     }
   }
-  return createExactEvaluator(model, diagonal ? 'diagonal' : 'general');
+  return createExactEvaluator(model, exactKind);
 }
 
 function collectWarnings(model: SupernovaModel, options: SupernovaTermOptions): string[] {
@@ -79,11 +85,13 @@ function collectWarnings(model: SupernovaModel, options: SupernovaTermOptions): 
  * appendix C): chi^2 is its minimum over abs_mag and ln(E/2 pi),
  * E = 1^T C^-1 1, is added inside the bracket.
  *
- * Paths (all agree to |delta chi^2| <= 1e-6): 'diagonal' O(N); 'general'
- * O(N^3/3) per change of the covariance inputs, O(N^2/2) otherwise;
- * 'compressed' O(P^2) for a fixed covariance (Chebyshev nodes in ln(1+z)).
- * 'auto' picks: fixed covariance -> compressed (dense, or N >= 200 diagonal),
- * else diagonal when C is diagonal, else general.
+ * Paths (all agree to |delta chi^2| <= 1e-6): 'diagonal' O(N); 'low_rank'
+ * (diagonal plus systematic modes U U^T, Woodbury 1950) O(N K), O(N K^2) per
+ * change of the covariance inputs; 'general' O(N^3/3) per change of the
+ * covariance inputs, O(N^2/2) otherwise; 'compressed' O(P^2) for a fixed
+ * covariance (Chebyshev nodes in ln(1+z)).
+ * 'auto' picks: fixed covariance -> compressed (dense, low rank, or N >= 200
+ * diagonal), else diagonal, low_rank or general by the covariance structure.
  *
  * Cost of construction: up to one N x N Cholesky plus scans of the matrices.
  * @param options plain options (see SupernovaTermOptions); parameters by name:
@@ -168,6 +176,7 @@ function buildHubbleDiagram(model: SupernovaModel, p: ParameterValues, absoluteM
   model.readCovarianceInputs(p, inputs);
   const errors = new Float64Array(n);
   model.covariance.fillVariances(inputs, errors);
+  model.covariance.addCorrelatedVariances(inputs, errors);
   const modelModulus = new Float64Array(n);
   const residualMag = new Float64Array(n);
   for (let i = 0; i < n; i++) {

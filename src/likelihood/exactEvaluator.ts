@@ -2,7 +2,8 @@ import { createOffsetMarginal } from './marginalizeOffset.js';
 import type { ParameterValues } from './likelihoodTerm.js';
 import { finishEvaluation, rejectEvaluation, type SupernovaEvaluation, type SupernovaEvaluator } from './supernovaEvaluation.js';
 import type { SupernovaModel } from './supernovaModel.js';
-import { createDenseWhitener, createDiagonalWhitener } from './whitener.js';
+import { createDenseWhitener, createDiagonalWhitener, type Whitener } from './whitener.js';
+import { createModesWhitener } from './modesWhitener.js';
 import { compensatedDot } from './compensatedSquares.js';
 
 /**
@@ -11,6 +12,9 @@ import { compensatedDot } from './compensatedSquares.js';
  *
  * - 'diagonal': C diagonal; O(N) per call, including ln det C = sum ln C_ii
  *   when C follows alpha, beta or sigma_int.
+ * - 'low_rank': C = D + U U^T (diagonal plus K systematic modes); the
+ *   Woodbury whitening operator (createModesWhitener) is rebuilt, O(N K^2),
+ *   whenever the covariance inputs change, then O(N K) per call.
  * - 'general': dense C; Cholesky factorization (N^3/3 multiply-adds) whenever
  *   the covariance inputs (alpha, beta, sigma_int) change, then triangular
  *   solves (N^2/2) per call. A covariance that does not change is factorized
@@ -19,12 +23,12 @@ import { compensatedDot } from './compensatedSquares.js';
  * The factorization is cached under the covariance inputs, so identical
  * inputs never refactorize. Allocates its buffers here, nothing per call.
  * @param model the shared supernova model
- * @param kind 'diagonal' (requires model.covariance.diagonal) or 'general'
+ * @param kind 'diagonal' (requires structure 'diagonal'), 'low_rank' (requires structure 'low_rank') or 'general'
  */
-export function createExactEvaluator(model: SupernovaModel, kind: 'diagonal' | 'general'): SupernovaEvaluator {
+export function createExactEvaluator(model: SupernovaModel, kind: 'diagonal' | 'low_rank' | 'general'): SupernovaEvaluator {
   const n = model.count;
   const covariance = model.covariance;
-  const whitener = kind === 'diagonal' ? createDiagonalWhitener(n) : createDenseWhitener(n);
+  const whitener = createWhitenerFor(model, kind);
   const inputs = new Float64Array(covariance.inputCount);
   const cachedInputs = new Float64Array(covariance.inputCount).fill(NaN);
   const residual = new Float64Array(n);
@@ -41,8 +45,8 @@ export function createExactEvaluator(model: SupernovaModel, kind: 'diagonal' | '
     for (let k = 0; k < inputs.length; k++) if (!(inputs[k] === cachedInputs[k])) same = false;
     if (same) return factorFailure;
     cachedInputs.set(inputs);
-    if (kind === 'diagonal') covariance.fillVariances(inputs, whitener.matrix);
-    else covariance.fillDense(inputs, whitener.matrix);
+    if (kind === 'general') covariance.fillDense(inputs, whitener.matrix);
+    else covariance.fillVariances(inputs, whitener.matrix);
     factorizations++;
     factorFailure = whitener.factorize();
     if (factorFailure) return factorFailure;
@@ -64,13 +68,30 @@ export function createExactEvaluator(model: SupernovaModel, kind: 'diagonal' | '
     },
     describe() {
       const varies = model.covarianceVaries ? 'follows alpha, beta or sigma_int' : 'is fixed';
-      return kind === 'diagonal'
-        ? [`path: diagonal covariance, O(N) per call with N = ${n} (the covariance ${varies}; ln det C = sum of ln variances)`]
-        : [
+      if (kind === 'diagonal') return [`path: diagonal covariance, O(N) per call with N = ${n} (the covariance ${varies}; ln det C = sum of ln variances)`];
+      if (kind === 'low_rank') {
+        return [
+          `path: diagonal plus ${covariance.modeCount} systematic modes (Woodbury identity, Woodbury 1950; no N x N matrix), N = ${n}: ` +
+            `O(N K) per call, the whitening operator rebuilt in O(N K^2) whenever sigma_int, alpha or beta change (the covariance ${varies})`,
+          `factorizations so far: ${factorizations}`,
+        ];
+      }
+      return [
           `path: general dense covariance, N = ${n}: Cholesky factorization O(N^3/3) = ${((n ** 3) / 3).toExponential(2)} multiply-adds ` +
             `whenever alpha, beta or sigma_int change, then O(N^2/2) triangular solves per call (the covariance ${varies})`,
           `factorizations so far: ${factorizations}`,
         ];
     },
   };
+}
+
+/** The whitener of a covariance structure, shared with the compressed path. */
+export function createWhitenerFor(model: SupernovaModel, kind: 'diagonal' | 'low_rank' | 'general'): Whitener {
+  const n = model.count;
+  if (kind === 'diagonal') return createDiagonalWhitener(n);
+  if (kind === 'low_rank') {
+    if (!model.covariance.modes) throw new Error('createExactEvaluator: the low_rank path needs systematic modes');
+    return createModesWhitener(n, model.covariance.modes);
+  }
+  return createDenseWhitener(n);
 }

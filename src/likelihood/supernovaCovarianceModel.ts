@@ -1,5 +1,5 @@
 import { CandelaError } from '../errors.js';
-import type { CovarianceMatrix, SupernovaTable } from '../data/index.js';
+import type { CovarianceMatrix, SupernovaTable, SystematicModes } from '../data/index.js';
 import { fixedScatterVariance, lightCurveVariance, propagateLightCurveCovariance, type ScatterTerms } from '../standardize/index.js';
 
 /**
@@ -7,10 +7,11 @@ import { fixedScatterVariance, lightCurveVariance, propagateLightCurveCovariance
  * (alpha, beta, sigma_int per sample), following the JLA covariance model
  * (Betoule et al. 2014, A&A 568, A22, eq. 11-13):
  *
- *   C = A C_eta A^T + C_mag + diag(light-curve variance(alpha, beta) + fixed scatter + sigma_int^2),
+ *   C = A C_eta A^T + C_mag + U U^T + diag(light-curve variance(alpha, beta) + fixed scatter + sigma_int^2),
  *
  * A the N x 3N matrix with rows (1, alpha, -beta), C_eta the 3N x 3N
- * light-curve matrices, C_mag the N x N magnitude matrices. 3N x 3N matrices
+ * light-curve matrices, C_mag the N x N magnitude matrices, U the N x K
+ * systematic modes. 3N x 3N matrices
  * that are block diagonal (one 3x3 block per supernova) are folded into the
  * per-supernova light-curve errors, so they keep the covariance diagonal.
  * Private helper of the supernova term.
@@ -19,13 +20,27 @@ export interface SupernovaCovarianceModel {
   readonly count: number;
   /** True when C is diagonal for every parameter value. */
   readonly diagonal: boolean;
+  /**
+   * 'diagonal': C = D; 'low_rank': C = D + U U^T with no dense matrix (fillVariances gives D,
+   * `modes` holds U); 'dense': a dense N x N or 3N x 3N matrix is part of C (U U^T, if any, is in fillDense).
+   */
+  readonly structure: 'diagonal' | 'low_rank' | 'dense';
+  /** U, N x K row major (mag), or null without systematic modes. */
+  readonly modes: Float64Array | null;
+  /** K (0 without systematic modes). */
+  readonly modeCount: number;
   /** Number of inputs: [alpha, beta, sigma_int of each sample]. */
   readonly inputCount: number;
   /** What the matrix is made of, for describe(). */
   readonly parts: string[];
-  /** Writes the N variances (the diagonal of C) for inputs [alpha, beta, sigma_int...], mag^2. O(N). */
+  /** Writes the N variances of D (the diagonal part of C, without the modes) for inputs [alpha, beta, sigma_int...], mag^2. O(N). */
   fillVariances(inputs: Float64Array, out: Float64Array): void;
-  /** Writes the full row-major N x N matrix, mag^2. O(9 N^2) with light-curve matrices, O(N^2) otherwise. */
+  /**
+   * Adds the diagonal of the correlated parts (A C_eta A^T + C_mag + U U^T, mag^2) at inputs [alpha, beta, ...]
+   * to out, so that fillVariances then addCorrelatedVariances gives diag C. O(N K + N).
+   */
+  addCorrelatedVariances(inputs: Float64Array, out: Float64Array): void;
+  /** Writes the full row-major N x N matrix, mag^2. O(9 N^2) with light-curve matrices, O(N^2) otherwise, + O(N^2 K) with modes. */
   fillDense(inputs: Float64Array, out: Float64Array): void;
 }
 
@@ -72,13 +87,16 @@ function foldBlocks(table: SupernovaTable, blocks: Float64Array): SupernovaTable
  * @param sampleOfRow sample index per row, for sigma_int (pass table.sampleIndex)
  * @param sampleCount number of intrinsic-scatter inputs (0 when off, 1 when global, else samples)
  * @param isCalibrator 1 for calibrator rows, whose variance gets no peculiar-velocity or redshift-error term
- * @throws CandelaError for a matrix of the wrong size or target, and for missing magnitude errors
+ * @param systematicModes optional N x K modes U (mag), adding U U^T
+ * @throws CandelaError for a matrix or modes of the wrong size or target, a non-finite mode, and for missing magnitude errors
  */
 export function createSupernovaCovarianceModel(
   table: SupernovaTable, matrices: CovarianceMatrix[], scatter: ScatterTerms, sampleOfRow: Int32Array, sampleCount: number,
-  isCalibrator: Uint8Array,
+  isCalibrator: Uint8Array, systematicModes?: SystematicModes,
 ): SupernovaCovarianceModel {
   const n = table.count;
+  const modes = checkModes(systematicModes, n);
+  const modeCount = modes ? modes.length / n : 0;
   const lightCurves = table.kind === 'light_curves';
   matrices.forEach((matrix, index) => {
     const expected = matrix.target === 'light_curves' ? 3 * n : n;
@@ -124,6 +142,7 @@ export function createSupernovaCovarianceModel(
     lightCurveVariance(varianceTable, 1, 1, new Float64Array(n)); // throws here, not in the hot path, when errors are missing
     parts.push('light-curve fit variances (alpha, beta)');
   }
+  if (modes) parts.push(`${modeCount} systematic mode${modeCount === 1 ? '' : 's'} U U^T`);
   if (sampleCount > 0) parts.push(`intrinsic scatter (${sampleCount} parameter${sampleCount > 1 ? 's' : ''})`);
 
   const fillVariances = (inputs: Float64Array, out: Float64Array): void => {
@@ -139,18 +158,66 @@ export function createSupernovaCovarianceModel(
     }
   };
   const diagonalScratch = new Float64Array(n);
+  const noDense = magnitudeDense === null && lightCurveDense === null;
   return {
     count: n,
-    diagonal: magnitudeDense === null && lightCurveDense === null,
+    diagonal: noDense && !modes,
+    structure: noDense ? (modes ? 'low_rank' : 'diagonal') : 'dense',
+    modes,
+    modeCount,
     inputCount: 2 + sampleCount,
     parts,
     fillVariances,
+    addCorrelatedVariances(inputs, out) {
+      const weights = [1, inputs[0], -inputs[1]];
+      for (let i = 0; i < n; i++) {
+        let sum = magnitudeDense ? magnitudeDense[i * n + i] : 0;
+        if (lightCurveDense) {
+          for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) sum += weights[a] * weights[b] * lightCurveDense[(3 * i + a) * 3 * n + 3 * i + b];
+        }
+        if (modes) for (let k = 0; k < modeCount; k++) sum += modes[i * modeCount + k] ** 2;
+        out[i] += sum;
+      }
+    },
     fillDense(inputs, out) {
       if (lightCurveDense) propagateLightCurveCovariance(lightCurveDense, n, inputs[0], inputs[1], out);
       else out.fill(0);
       if (magnitudeDense) for (let k = 0; k < n * n; k++) out[k] += magnitudeDense[k];
+      if (modes) {
+        for (let i = 0; i < n; i++) {
+          for (let j = 0; j <= i; j++) {
+            let sum = 0;
+            for (let k = 0; k < modeCount; k++) sum += modes[i * modeCount + k] * modes[j * modeCount + k];
+            out[i * n + j] += sum;
+            if (j !== i) out[j * n + i] += sum;
+          }
+        }
+      }
       fillVariances(inputs, diagonalScratch);
       for (let i = 0; i < n; i++) out[i * n + i] += diagonalScratch[i];
     },
   };
+}
+
+/** The modes' values after checking their shape and entries (null when absent or K = 0). */
+function checkModes(systematicModes: SystematicModes | undefined, n: number): Float64Array | null {
+  if (!systematicModes || systematicModes.modeCount === 0) return null;
+  const { values, modeCount, count, sourceFile } = systematicModes;
+  if (count !== n || values.length !== n * modeCount) {
+    throw new CandelaError({
+      code: 'likelihood.modes_mismatch', file: sourceFile, path: 'systematicModes',
+      message: `systematic modes do not match the ${n} supernovae of the table`, expected: `${n} rows x K modes`, found: `${count} rows, ${values.length} values for ${modeCount} modes`,
+      fix: 'apply the same cuts to the table and the modes',
+    });
+  }
+  for (let index = 0; index < values.length; index++) {
+    if (!Number.isFinite(values[index])) {
+      const row = Math.floor(index / modeCount);
+      throw new CandelaError({
+        code: 'likelihood.low_rank_mode', file: sourceFile, path: 'systematicModes', row: row + 1,
+        message: `mode ${(index % modeCount) + 1} of supernova ${row + 1} is not a finite number`, expected: 'finite numbers (mag)', found: String(values[index]),
+      });
+    }
+  }
+  return values;
 }

@@ -88,7 +88,7 @@ export function createSupernovaModel(options: SupernovaTermOptions): SupernovaMo
     }
   }
   flow.sort((a, b) => table.redshift[a] - table.redshift[b]);
-  const covariance = createSupernovaCovarianceModel(table, options.covariances, standardization.scatter, table.sampleIndex, sampleCount, isCalibrator);
+  const covariance = createSupernovaCovarianceModel(table, options.covariances, standardization.scatter, table.sampleIndex, sampleCount, isCalibrator, options.systematicModes);
   const flowRows = Int32Array.from(flow);
   const sortedRedshifts = Float64Array.from(flow, (i) => table.redshift[i]);
   const distances = new Float64Array(flow.length);

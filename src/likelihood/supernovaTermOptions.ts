@@ -1,10 +1,10 @@
-import type { CovarianceMatrix, SupernovaTable } from '../data/index.js';
+import type { CovarianceMatrix, SupernovaTable, SystematicModes } from '../data/index.js';
 import type { DarkEnergyLaw } from '../cosmology/index.js';
 import type { HostMassStep, ScatterTerms } from '../standardize/index.js';
 import type { LikelihoodTerm, ParameterValues } from './likelihoodTerm.js';
 
 /** The evaluation strategies of the supernova term (see createSupernovaTerm). */
-export type SupernovaPath = 'general' | 'diagonal' | 'compressed';
+export type SupernovaPath = 'general' | 'diagonal' | 'low_rank' | 'compressed';
 
 /** Plain options of {@link createSupernovaTerm} (no configuration type). */
 export interface SupernovaTermOptions {
@@ -14,6 +14,12 @@ export interface SupernovaTermOptions {
   table: SupernovaTable;
   /** Extra covariance matrices (statistical or systematic), already scaled; N x N on magnitudes or 3N x 3N on (m_B, x1, c). */
   covariances: CovarianceMatrix[];
+  /**
+   * Systematic modes U (N x K, mag) on the magnitudes: C gains U U^T. With no
+   * dense matrix besides them the covariance stays "diagonal plus low rank",
+   * evaluated through the Woodbury identity without an N x N matrix.
+   */
+  systematicModes?: SystematicModes;
   /** Which FLRW family; its parameters are read by name (omega_m, omega_de, w0, wa, h0). */
   cosmologyModel: { darkEnergy: DarkEnergyLaw; flat: boolean; cmbTemperatureK: number; effectiveNeutrinoSpecies: number };
   standardization: {
@@ -51,7 +57,7 @@ export interface HubbleDiagram {
   isCalibrator: boolean[];
   /** Observed distance modulus: standardized magnitude minus the absolute magnitude used, mag. */
   distanceModulusMag: Float64Array;
-  /** sqrt of the covariance diagonal, mag. */
+  /** sqrt of the diagonal of the full covariance C (statistical, systematic matrices and modes), mag. */
   distanceModulusErrorMag: Float64Array;
   /** Model distance modulus (calibratorMu for calibrators), mag. */
   modelDistanceModulusMag: Float64Array;

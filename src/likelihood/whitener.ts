@@ -5,11 +5,13 @@ import { choleskyInPlace, logDeterminantFromCholesky, solveLowerInPlace } from '
  * r^T C^-1 r = |L^-1 r|^2 without ever forming C^-1.
  *
  * Fill `matrix` (dense: row-major size x size, only the lower triangle is read;
- * diagonal: the size variances), then call `factorize()`; the buffer is then
- * overwritten by the factor (dense) or the standard deviations (diagonal).
+ * diagonal and low_rank: the size variances of the diagonal part), then call
+ * `factorize()`; the buffer is then overwritten by the factor (dense) or the
+ * standard deviations (diagonal), and kept as given (low_rank). A low_rank
+ * whitener's operator W is not triangular (see createModesWhitener).
  */
 export interface Whitener {
-  readonly kind: 'dense' | 'diagonal';
+  readonly kind: 'dense' | 'diagonal' | 'low_rank';
   readonly size: number;
   /** Input buffer for C (see above), in squared data units (mag^2). */
   readonly matrix: Float64Array;
@@ -17,7 +19,7 @@ export interface Whitener {
   factorize(): string | null;
   /** ln det C after a successful factorize(). */
   readonly logDeterminant: number;
-  /** v <- L^-1 v (first `size` entries). Dense O(size^2/2), diagonal O(size). */
+  /** v <- L^-1 v (first `size` entries). Dense O(size^2/2), diagonal O(size), low_rank O(2 size K). */
   whitenInPlace(v: Float64Array): void;
 }
 
