@@ -68,6 +68,17 @@ export interface CovarianceSource {
   includesStatistical: boolean;
 }
 
+/**
+ * One file of systematic modes: N rows (the table's order, before cuts) of K
+ * magnitude shifts, one per systematic, so that the systematic covariance is
+ * C_sys = U U^T without an N x N matrix.
+ */
+export interface SystematicModeSource {
+  file: ResolvedPath;
+  /** Every shift is multiplied by this (dimensionless, > 0); C_sys scales by its square. */
+  scale: number;
+}
+
 /** Row selection applied after reading (null or empty: no cut). */
 export interface CutOptions {
   /** Keep min <= z <= max (the `z` column). */
@@ -96,6 +107,8 @@ export interface SupernovaDataSet {
   /** Sentinel values meaning "unknown", per field. */
   missingValues: Partial<Record<ColumnField, number[]>>;
   covariances: CovarianceSource[];
+  /** Files of systematic modes on the magnitudes (empty: none); their columns are placed side by side. */
+  systematicModes: SystematicModeSource[];
   cuts: CutOptions;
   /** Largest accepted |z_helio - z| (dimensionless); larger is a data error. */
   maxRedshiftMismatch: number;

@@ -84,6 +84,7 @@ function dataSetToPlain(set: SupernovaDataSet, path: (p: ResolvedPath) => string
       ...(c.appliesTo === 'light_curve_parameters' ? { block_order: [...c.blockOrder], layout: c.layout } : {}),
       scale: c.scale, symmetry_tolerance: c.symmetryTolerance, includes_statistical: c.includesStatistical,
     })),
+    systematic_modes: set.systematicModes.map((m) => ({ file: path(m.file), scale: m.scale })),
     cuts: {
       ...(cuts.redshift ? { redshift: [...cuts.redshift] } : {}),
       keep_calibrators: cuts.keepCalibrators,

@@ -5,7 +5,7 @@
  */
 import type {
   CovarianceSource, CutOptions, DerivedQuantity, FigureKind, ModelSpec, OutputOptions, PriorSpec,
-  SamplerOptions, StandardizationOptions, TableOptions,
+  SamplerOptions, StandardizationOptions, SystematicModeSource, TableOptions,
 } from './candelaConfig.js';
 
 /** Seed used when the file gives none (a warning says so: results are reproducible only with a stated seed). */
@@ -40,6 +40,11 @@ export const DEFAULT_COVARIANCE: Omit<CovarianceSource, 'file'> = {
   // significant digits differ by rounding only, well below this.
   symmetryTolerance: 1e-8,
   includesStatistical: false,
+};
+
+/** One file of systematic modes (`supernovae[].systematic_modes[]`, except the required `file`): shifts used as written. */
+export const DEFAULT_SYSTEMATIC_MODES: Omit<SystematicModeSource, 'file'> = {
+  scale: 1,
 };
 
 /** Cuts (`supernovae[].cuts`): none by default, calibrators kept. */

@@ -59,6 +59,8 @@ function describeDataSet(set: SupernovaDataSet): string {
   const covariances = set.covariances.length === 0 ? 'no covariance file (diagonal errors only)'
     : set.covariances.map((c) => `${c.file.written} (${c.appliesTo === 'magnitudes' ? 'N x N' : '3N x 3N'}` +
       `${c.scale === 1 ? '' : `, x ${c.scale}`}${c.includesStatistical ? ', statistical part included' : ''})`).join(' + ');
+  const modes = set.systematicModes.length === 0 ? ''
+    : `; systematic modes ${set.systematicModes.map((m) => `${m.file.written} (N x K${m.scale === 1 ? '' : `, shifts x ${m.scale}`})`).join(' + ')}`;
   const cuts: string[] = [];
   const c = set.cuts;
   if (c.redshift) cuts.push(`redshift ${c.redshift[0]}..${c.redshift[1]}${c.keepCalibrators && set.columns.calibrator_mu ? ' (calibrators kept)' : ''}`);
@@ -67,7 +69,7 @@ function describeDataSet(set: SupernovaDataSet): string {
   for (const [field, limit] of Object.entries(c.maxErrors)) cuts.push(`${field} <= ${limit}`);
   if (c.keepSamples) cuts.push(`samples ${c.keepSamples.join(', ')}`);
   if (c.dropIds.length) cuts.push(`${c.dropIds.length} ids dropped`);
-  return `data set "${set.label}" (${set.kind}): ${set.table.file.written}; columns ${columns}; ${covariances}; ` +
+  return `data set "${set.label}" (${set.kind}): ${set.table.file.written}; columns ${columns}; ${covariances}${modes}; ` +
     `cuts: ${cuts.join(', ') || 'none'}`;
 }
 

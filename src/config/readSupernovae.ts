@@ -9,9 +9,10 @@ import { readColumns, readMissingValues } from './readColumns.js';
 import { readCovariances } from './readCovariances.js';
 import { readCuts } from './readCuts.js';
 import { readLabel } from './readLabel.js';
+import { readSystematicModeSources } from './readSystematicModeSources.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
 
-const DATA_SET_KEYS = ['label', 'kind', 'table', 'columns', 'missing_values', 'covariances', 'cuts', 'max_redshift_mismatch'] as const;
+const DATA_SET_KEYS = ['label', 'kind', 'table', 'columns', 'missing_values', 'covariances', 'systematic_modes', 'cuts', 'max_redshift_mismatch'] as const;
 const TABLE_KEYS = ['file', 'delimiter', 'comment', 'index_column', 'row_prefix'] as const;
 const KINDS: readonly SupernovaKind[] = ['light_curves', 'magnitudes'];
 
@@ -47,10 +48,11 @@ export function readSupernovae(reader: ConfigReader, at: Located): SupernovaData
     const columns = readColumns(reader, fields.get('columns') ?? { node: null, path: `${item.path}.columns`, anchor: item.node }, kind);
     const missingValues = fields.has('missing_values') ? readMissingValues(reader, fields.get('missing_values')!, columns) : {};
     const covariances = readCovariances(reader, fields.get('covariances'), kind);
+    const systematicModes = readSystematicModeSources(reader, fields.get('systematic_modes'));
     const cuts = readCuts(reader, fields.get('cuts') ?? { node: null, path: `${item.path}.cuts`, anchor: item.node }, kind, columns);
     const mismatch = reader.number(fields.get('max_redshift_mismatch'), { min: 0, exclusiveMin: true });
     if (!kind || !table) return;
-    sets.push({ label, kind, table, columns, missingValues, covariances, cuts, maxRedshiftMismatch: mismatch ?? DEFAULT_MAX_REDSHIFT_MISMATCH });
+    sets.push({ label, kind, table, columns, missingValues, covariances, systematicModes, cuts, maxRedshiftMismatch: mismatch ?? DEFAULT_MAX_REDSHIFT_MISMATCH });
   });
   return sets;
 }

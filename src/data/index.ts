@@ -30,3 +30,6 @@ export type { CutStep } from './cutReport.js';
 export type { SampleCount } from './cutReport.js';
 export { selectRows } from './selectRows.js';
 export { concatenateTables } from './concatenateTables.js';
+export { readSystematicModes } from './readSystematicModes.js';
+export type { SystematicModeReadOptions } from './readSystematicModes.js';
+export { subsetSystematicModes } from './subsetSystematicModes.js';

@@ -55,6 +55,7 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
     name: 'supernovae',
     table: data.table,
     covariances: data.covariances,
+    systematicModes: data.systematicModes,
     cosmologyModel: {
       darkEnergy: model.darkEnergy,
       flat: model.curvature === 'flat',

@@ -1,8 +1,9 @@
 /**
  * `candela check`: read and validate a configuration file, then read and
- * check every data and covariance file it names (columns, numbers, errors,
- * covariance shape, symmetry and positive definiteness), apply the cuts, build
- * each model's likelihood, and summarize what would run.
+ * check every data, covariance and systematic-mode file it names (columns,
+ * numbers, errors, covariance shape, symmetry and positive definiteness, mode
+ * rows and columns), apply the cuts, build each model's likelihood, and
+ * summarize what would run.
  */
 import type { Issue } from '../errors.js';
 import { CandelaError } from '../errors.js';
@@ -41,6 +42,9 @@ export function checkConfiguration(path: string, options: { configOnly?: boolean
     warnings.push(...data.warnings);
     for (const { label, report } of data.cutReports) {
       summaryLines.push(`data set "${label}":`, ...formatCutReport(report).map((line) => `  ${line}`));
+      for (const modes of data.systematicModeFiles.filter((entry) => entry.label === label)) {
+        summaryLines.push(`  systematic modes ${modes.file}: ${modes.supernovae} supernovae x ${modes.modes} mode${modes.modes === 1 ? '' : 's'} (before cuts)`);
+      }
     }
     config.models.forEach((model, index) => {
       const built = buildModel(config, index, data);

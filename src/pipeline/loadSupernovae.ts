@@ -1,8 +1,8 @@
 import { CandelaError, type Issue } from '../errors.js';
 import type { CandelaConfig, SupernovaDataSet } from '../config/index.js';
 import {
-  applyCuts, checkPositiveDefinite, concatenateTables, readCovarianceMatrix, readSupernovaTable, subsetCovariance,
-  type CovarianceMatrix, type CutReport, type SupernovaTable,
+  applyCuts, checkPositiveDefinite, concatenateTables, readCovarianceMatrix, readSupernovaTable, readSystematicModes, subsetCovariance,
+  subsetSystematicModes, type CovarianceMatrix, type CutReport, type SupernovaTable, type SystematicModes,
 } from '../data/index.js';
 
 /** The data of a run, read, checked, cut and joined. */
@@ -12,6 +12,14 @@ export interface LoadedSupernovae {
   covariances: CovarianceMatrix[];
   /** True when a covariance file already holds the statistical errors (the error columns are then not added). */
   covarianceIncludesStatistical: boolean;
+  /**
+   * Systematic modes U on the joined table (N x K, mag; C_sys = U U^T): each
+   * data set's files side by side, each set's columns zero in the rows of the
+   * other sets. Undefined when no data set has modes.
+   */
+  systematicModes?: SystematicModes;
+  /** Per mode file read: its data set, path as written, and the size of U before cuts (rows x modes). */
+  systematicModeFiles: Array<{ label: string; file: string; supernovae: number; modes: number }>;
   /** One cut report per data set, with its label. */
   cutReports: Array<{ label: string; report: CutReport }>;
   warnings: Issue[];
@@ -19,15 +27,26 @@ export interface LoadedSupernovae {
   inputFiles: Array<{ written: string; resolved: string }>;
 }
 
+/** One data set, read, checked and cut. */
+interface LoadedPart {
+  table: SupernovaTable;
+  covariances: CovarianceMatrix[];
+  /** The set's mode files side by side, rows of the kept supernovae (null: none). */
+  modes: SystematicModes | null;
+  modeFiles: LoadedSupernovae['systematicModeFiles'];
+  report: CutReport;
+  warnings: Issue[];
+}
+
 /**
- * Reads every data set of the configuration: table, covariance files, cuts;
- * then joins them. All problems of all files are collected and thrown
- * together as one CandelaError, before any output is touched.
+ * Reads every data set of the configuration: table, covariance and mode
+ * files, cuts; then joins them. All problems of all files are collected and
+ * thrown together as one CandelaError, before any output is touched.
  */
 export function loadSupernovae(config: CandelaConfig): LoadedSupernovae {
   const issues: Issue[] = [];
   const warnings: Issue[] = [];
-  const parts: Array<{ table: SupernovaTable; covariances: CovarianceMatrix[] }> = [];
+  const parts: LoadedPart[] = [];
   const cutReports: LoadedSupernovae['cutReports'] = [];
   const inputFiles: LoadedSupernovae['inputFiles'] = [];
   let includesStatistical = false;
@@ -47,15 +66,21 @@ export function loadSupernovae(config: CandelaConfig): LoadedSupernovae {
       inputFiles.push({ written: source.file.written, resolved: source.file.resolved });
       if (source.includesStatistical) includesStatistical = true;
     }
+    for (const source of set.systematicModes) inputFiles.push({ written: source.file.written, resolved: source.file.resolved });
   }
   if (issues.length > 0) throw new CandelaError(issues);
   const joined = parts.length === 1 ? { table: parts[0].table, warnings: [] } : concatenateTables(parts.map((p) => p.table));
   warnings.push(...joined.warnings);
   const covariances = embedCovariances(parts, joined.table.count);
-  return { table: joined.table, covariances, covarianceIncludesStatistical: includesStatistical, cutReports, warnings, inputFiles };
+  const systematicModes = embedSystematicModes(parts, joined.table.count);
+  const systematicModeFiles = parts.flatMap((part) => part.modeFiles);
+  return {
+    table: joined.table, covariances, covarianceIncludesStatistical: includesStatistical,
+    ...(systematicModes ? { systematicModes } : {}), systematicModeFiles, cutReports, warnings, inputFiles,
+  };
 }
 
-function loadDataSet(set: SupernovaDataSet, multiple: boolean) {
+function loadDataSet(set: SupernovaDataSet, multiple: boolean): LoadedPart {
   const issues: Issue[] = [];
   const { table: raw, warnings } = readSupernovaTable({
     file: set.table.file.resolved,
@@ -88,6 +113,17 @@ function loadDataSet(set: SupernovaDataSet, multiple: boolean) {
       else throw error;
     }
   }
+  const fullModes: SystematicModes[] = [];
+  for (const source of set.systematicModes) {
+    try {
+      fullModes.push(readSystematicModes({
+        file: source.file.resolved, displayName: source.file.written, expectedSupernovae: raw.count, scale: source.scale,
+      }));
+    } catch (error) {
+      if (error instanceof CandelaError) issues.push(...error.issues);
+      else throw error;
+    }
+  }
   if (issues.length > 0) throw new CandelaError(issues);
   const cuts = set.cuts;
   const { table: cut, keptIndices, report } = applyCuts(raw, {
@@ -106,9 +142,14 @@ function loadDataSet(set: SupernovaDataSet, multiple: boolean) {
   const relabelled = multiple ? relabelSamples(cut, set.label) : cut;
   const table = set.covariances.some((source) => source.includesStatistical) ? withoutStatisticalErrors(relabelled) : relabelled;
   const covariances = fullCovariances.map((cov) => subsetCovariance(cov, keptIndices));
+  // D + U U^T is positive definite whenever D is, so the modes stay out of this check (no N x N product is formed).
   const pdIssue = checkJoinedPositiveDefinite(table, covariances, set);
   if (pdIssue) throw new CandelaError(pdIssue);
-  return { table, covariances, report, warnings: [...warnings, ...report.warnings] };
+  const kept = fullModes.map((modes) => subsetSystematicModes(modes, keptIndices));
+  const modes = kept.length === 0 ? null
+    : kept.length === 1 ? kept[0] : placeModeColumns(kept.map((block) => ({ block, firstRow: 0 })), table.count);
+  const modeFiles = fullModes.map((m) => ({ label: set.label, file: m.sourceFile, supernovae: m.count, modes: m.modeCount }));
+  return { table, covariances, modes, modeFiles, report, warnings: [...warnings, ...report.warnings] };
 }
 
 /**
@@ -144,7 +185,7 @@ function checkJoinedPositiveDefinite(table: SupernovaTable, covariances: Covaria
 }
 
 /** Places every data set's matrices on the diagonal of the joined N x N (or 3N x 3N) matrix. */
-function embedCovariances(parts: Array<{ table: SupernovaTable; covariances: CovarianceMatrix[] }>, total: number): CovarianceMatrix[] {
+function embedCovariances(parts: LoadedPart[], total: number): CovarianceMatrix[] {
   if (parts.length === 1) return parts[0].covariances;
   const result: CovarianceMatrix[] = [];
   let offset = 0;
@@ -162,4 +203,35 @@ function embedCovariances(parts: Array<{ table: SupernovaTable; covariances: Cov
     offset += part.table.count;
   }
   return result;
+}
+
+/** The joined modes: each data set's columns in its own rows (zeros elsewhere), sets side by side. */
+function embedSystematicModes(parts: LoadedPart[], total: number): SystematicModes | undefined {
+  const blocks: Array<{ block: SystematicModes; firstRow: number }> = [];
+  let offset = 0;
+  for (const part of parts) {
+    if (part.modes) blocks.push({ block: part.modes, firstRow: offset });
+    offset += part.table.count;
+  }
+  if (blocks.length === 0) return undefined;
+  return blocks.length === 1 && total === blocks[0].block.count ? blocks[0].block : placeModeColumns(blocks, total);
+}
+
+/**
+ * Places blocks of modes side by side in one `rows` x (sum of K) matrix: the
+ * columns of each block follow those of the previous one, its rows start at
+ * `firstRow`, every other entry is 0. Cost O(rows x total K).
+ */
+function placeModeColumns(blocks: Array<{ block: SystematicModes; firstRow: number }>, rows: number): SystematicModes {
+  const width = blocks.reduce((sum, { block }) => sum + block.modeCount, 0);
+  const values = new Float64Array(rows * width);
+  let column = 0;
+  for (const { block, firstRow } of blocks) {
+    const k = block.modeCount;
+    for (let i = 0; i < block.count; i++) {
+      values.set(block.values.subarray(i * k, (i + 1) * k), (firstRow + i) * width + column);
+    }
+    column += k;
+  }
+  return { count: rows, modeCount: width, values, sourceFile: [...new Set(blocks.map(({ block }) => block.sourceFile))].join(' + ') };
 }
