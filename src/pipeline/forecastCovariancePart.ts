@@ -19,8 +19,8 @@ const LOG_DETERMINANT_AGREEMENT = 1e-8;
  * from the likelihood's own variances (HubbleDiagram errors squared) by
  * central differences; a parameter whose derivatives are all zero (alpha and
  * beta with a frozen covariance) adds nothing. C at the truth is the
- * systematic matrix plus those variances (a diagonal systematic matrix is
- * already inside them), checked against the likelihood's ln det C.
+ * off-diagonal part of the systematic matrix plus those variances (which are
+ * the whole diagonal of C), checked against the likelihood's ln det C.
  * Cost: 1 + 2k likelihood evaluations (each an N x N factorization when C
  * follows the parameters) and O(N^3) for covarianceInformation, only when k > 0.
  * @param createTerm builds the likelihood as the fit would (called only when needed).
@@ -55,20 +55,12 @@ export function covariancePart(
   if (used.length === 0) return { names: used, information: new Float64Array(0) };
   const v0 = variances(atTruth);
   const covariance = new Float64Array(n * n);
-  if (systematic && !isDiagonal(systematic, n)) covariance.set(systematic);
-  for (let a = 0; a < n; a++) covariance[a * n + a] += v0[a];
+  if (systematic) covariance.set(systematic);
+  for (let a = 0; a < n; a++) covariance[a * n + a] = v0[a]; // the Hubble-diagram variances are diag C, systematics included
   const { information, logDeterminant } = covarianceInformation(covariance, n, derivatives);
   const expected = term.bestFitExtras?.(atTruth).log_det_covariance ?? logDeterminant;
   if (!(Math.abs(expected - logDeterminant) <= LOG_DETERMINANT_AGREEMENT * Math.max(1, Math.abs(expected)))) {
     throw new Error(`forecast: the covariance assembled for the Fisher matrix (ln det ${logDeterminant}) disagrees with the likelihood's (${expected})`);
   }
   return { names: used, information };
-}
-
-/** True when every off-diagonal entry is exactly zero (the likelihood then folds the matrix into its variances). */
-function isDiagonal(matrix: Float64Array, n: number): boolean {
-  for (let a = 0; a < n; a++) {
-    for (let b = 0; b < n; b++) if (a !== b && matrix[a * n + b] !== 0) return false;
-  }
-  return true;
 }
