@@ -6,7 +6,7 @@ import { CandelaError, type Issue } from '../errors.js';
 import { samplePrior } from '../likelihood/index.js';
 import {
   createInProcessEvaluator, createWorkerPoolEvaluator, EnsembleSampler, initializeWalkers,
-  type BatchEvaluator, type SamplerSnapshot,
+  type BatchEvaluator, type LogProbabilityModel, type SamplerSnapshot, type WorkerModelSpec,
 } from '../sampler/index.js';
 import { writeFileAtomic } from '../output/index.js';
 import { decodeBinaryState, encodeBinaryState } from './binaryState.js';
@@ -95,21 +95,46 @@ export function runFolderFor(config: CandelaConfig, index: number, outDir?: stri
 export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
   const config = loadConfigFile(request.configPath);
   const part = request.part === undefined ? null : locatePart(config, request.part, request.outDir);
-  const data = loadSupernovae(config);
-  if (part) {
-    const model = buildModel(config, part.modelIndex, data);
-    prepareRunFolder(part.runDir, { force: Boolean(request.force), resume: Boolean(request.resume) });
-    return [await fitOneModel(config, part.modelIndex, model, data, part.runDir, request, part)];
+  // The worker threads of the first model start now and build it from the configuration while this
+  // thread reads the data and builds the models (two cores busy instead of one after the other).
+  const firstIndex = part ? part.modelIndex : 0;
+  let models: BuiltModel[] = [];
+  const early = startEarlyEvaluator(config, request, firstIndex, () => models[firstIndex].logProbability);
+  let data: LoadedSupernovae;
+  try {
+    data = loadSupernovae(config);
+    models = part ? [] : config.models.map((_, index) => buildModel(config, index, data));
+    if (part) models[part.modelIndex] = buildModel(config, part.modelIndex, data);
+  } catch (error) {
+    void early?.then((evaluator) => evaluator.close(), () => undefined); // its threads fail on the same input
+    throw error;
   }
-  const models = config.models.map((_, index) => buildModel(config, index, data));
+  if (part) {
+    prepareRunFolder(part.runDir, { force: Boolean(request.force), resume: Boolean(request.resume) });
+    return [await fitOneModel(config, part.modelIndex, models[part.modelIndex], data, part.runDir, request, part, early)];
+  }
   const folders = config.models.map((_, index) => runFolderFor(config, index, request.outDir));
   for (const folder of folders) prepareRunFolder(folder, { force: Boolean(request.force), resume: Boolean(request.resume) });
   const outcomes: FitOutcome[] = [];
   for (let index = 0; index < models.length; index++) {
     if (request.signal?.aborted) break;
-    outcomes.push(await fitOneModel(config, index, models[index], data, folders[index], request));
+    outcomes.push(await fitOneModel(config, index, models[index], data, folders[index], request, undefined, index === firstIndex ? early : null));
   }
+  if (request.signal?.aborted && outcomes.length === 0) await (await early?.catch(() => null))?.close();
   return outcomes;
+}
+
+/** The worker pool of model `index`, started before its model is built here (null when one worker or nested sampling). */
+function startEarlyEvaluator(config: CandelaConfig, request: FitRequest, index: number, localModel: () => LogProbabilityModel): Promise<BatchEvaluator> | null {
+  const workers = workerCount(config, request);
+  if (workers <= 1 || config.sampler.method === 'nested') return null;
+  const promise = createWorkerPoolEvaluator(workerSpec(config, index), workers - 1, { localModel });
+  promise.catch(() => undefined); // awaited (and its error reported) by fitOneModel; never an unhandled rejection
+  return promise;
+}
+
+function workerSpec(config: CandelaConfig, index: number): WorkerModelSpec {
+  return { moduleUrl: workerModelUrl(), exportName: 'createWorkerModel', init: { config, modelIndex: index } };
 }
 
 function workerCount(config: CandelaConfig, request: FitRequest): number {
@@ -119,7 +144,8 @@ function workerCount(config: CandelaConfig, request: FitRequest): number {
 
 async function createEvaluator(config: CandelaConfig, index: number, model: BuiltModel, workers: number): Promise<BatchEvaluator> {
   if (workers <= 1) return createInProcessEvaluator(model.logProbability);
-  return createWorkerPoolEvaluator({ moduleUrl: workerModelUrl(), exportName: 'createWorkerModel', init: { config, modelIndex: index } }, workers);
+  // This thread evaluates its share of every batch itself; workers - 1 threads do the rest.
+  return createWorkerPoolEvaluator(workerSpec(config, index), workers - 1, { localModel: model.logProbability });
 }
 
 /**
@@ -131,7 +157,10 @@ async function createEvaluator(config: CandelaConfig, index: number, model: Buil
  * at max_steps, at max_minutes, or when its own ensemble (every walker a
  * chain) has bulk ESS >= target_ess / ensembles and R-hat <= max_rhat.
  */
-async function fitOneModel(config: CandelaConfig, index: number, model: BuiltModel, data: LoadedSupernovae, runDir: string, request: FitRequest, part?: FitPart): Promise<FitOutcome> {
+async function fitOneModel(
+  config: CandelaConfig, index: number, model: BuiltModel, data: LoadedSupernovae, runDir: string, request: FitRequest, part?: FitPart,
+  earlyEvaluator?: Promise<BatchEvaluator> | null,
+): Promise<FitOutcome> {
   if (config.sampler.method === 'nested') return fitNestedModel(config, index, model, data, runDir, request);
   const started = Date.now();
   const settings = config.sampler;
@@ -143,7 +172,7 @@ async function fitOneModel(config: CandelaConfig, index: number, model: BuiltMod
   const rule = { targetEss: part ? settings.targetEss / part.ensembles : settings.targetEss, maxRhat: settings.maxRhat };
   say(`model ${model.label}${partNote}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
   for (const line of model.supernovae.describe()) say(`  ${line}`);
-  const evaluator = await createEvaluator(config, index, model, workers);
+  const evaluator = await (earlyEvaluator ?? createEvaluator(config, index, model, workers));
   try {
     let sampler: EnsembleSampler;
     let previousSeconds = 0;

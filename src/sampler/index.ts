@@ -5,6 +5,7 @@ export type { WorkerModelSpec } from './logProbabilityModel.js';
 export type { BatchEvaluator } from './logProbabilityModel.js';
 export { createInProcessEvaluator } from './inProcessEvaluator.js';
 export { createWorkerPoolEvaluator } from './workerPoolEvaluator.js';
+export type { WorkerPoolOptions } from './workerPoolEvaluator.js';
 // ensemble sampler
 export { EnsembleSampler } from './ensembleSampler.js';
 export { resolveEnsembleOptions } from './ensembleOptions.js';

@@ -1,45 +1,50 @@
-import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
-import { CandelaError, isCandelaError } from '../errors.js';
-import type { Issue } from '../errors.js';
+import { MessageChannel, Worker, receiveMessageOnPort, type MessagePort } from 'node:worker_threads';
+import { CandelaError } from '../errors.js';
 import { evaluatePoints } from './evaluatePoints.js';
 import type { BatchEvaluator, LogProbabilityModel, WorkerModelSpec } from './logProbabilityModel.js';
+import {
+  CONTROL, STATUS_FAILED, STOP_REQUEST, claimAndEvaluate, controlSlots, dataBlockLength, threadSlot,
+  type DataBlockMessage, type WorkerThreadData, type WorkerThreadReply,
+} from './sharedBatchChannel.js';
+import { WORKER_THREAD_ROLE } from './workerPoolThread.js';
 
 /*
- * The parallel evaluator, both sides in this one file (the only sampler file
- * that touches worker_threads). The main side splits a batch into contiguous
- * chunks, one per worker, and waits for all. Each worker owns three buffers
- * (points, log posteriors, blobs) that travel back and forth by transfer, not
- * by copy: the main thread fills the points buffer and transfers all three;
- * the worker evaluates in place and transfers them back. Steady state costs
- * one copy of each chunk in and one out, and no allocation.
- * The worker side runs when this module is loaded as a worker script with
- * `workerData.role === WORKER_ROLE`; imported normally it does nothing.
+ * The parallel evaluator, main side (the worker side is workerPoolThread.ts;
+ * the protocol is in sharedBatchChannel.ts). The points of a batch go into
+ * one shared block; the threads, and the calling thread itself when it is
+ * given the model (`localModel`: it would otherwise sit idle), claim them a
+ * few at a time until none are left, so the work balances itself between
+ * threads of different speed. A request is an atomic store and a notify, so
+ * the per-batch cost is microseconds instead of a message round trip
+ * through both event loops.
  */
 
-const WORKER_ROLE = 'candela-sampler-evaluator';
+/** Longest single blocking wait for a worker, ms; between waits the event loop runs, so a worker that died is noticed. */
+const WAIT_SLICE_MS = 100;
 
-interface EvaluateRequest { count: number; points: Float64Array; logProb: Float64Array; blobs: Float64Array }
-type WorkerReply =
-  | { kind: 'ready'; dimension: number; blobCount: number }
-  | { kind: 'done'; points: Float64Array; logProb: Float64Array; blobs: Float64Array }
-  | { kind: 'failed'; stage: 'load' | 'evaluate'; name: string; message: string; issues?: Issue[] };
+interface PoolMember { worker: Worker; port: MessagePort; done: number; status: number }
 
-interface Pending { first: number; count: number; logProb: Float64Array; blobs: Float64Array; resolve(): void; reject(error: Error): void }
-interface PoolMember { worker: Worker; blobCount: number; points: Float64Array; logProb: Float64Array; blobs: Float64Array; pending?: Pending }
+/** Options of {@link createWorkerPoolEvaluator}. */
+export interface WorkerPoolOptions {
+  /**
+   * The same model, built in the calling thread: when given, the caller
+   * evaluates one chunk of every batch itself while the threads do theirs
+   * (so `threads` = cores - 1 keeps every core busy). Must be the very
+   * function the spec builds, or chains would depend on the thread count.
+   * A function is called once the threads have built their models, so the
+   * caller can build its own copy meanwhile, in parallel with them.
+   */
+  localModel?: LogProbabilityModel | (() => LogProbabilityModel);
+}
 
-/** The compiled worker script: this file in dist/ (maps src/*.ts to dist/src/*.js when running from source). */
+/** The compiled worker script (maps src/*.ts to dist/src/*.js when running from source). */
 function workerScriptUrl(): URL {
   const here = import.meta.url;
-  if (!here.endsWith('.ts')) return new URL(here);
-  return new URL(here.replace(/\/src\/sampler\/([^/]+)\.ts$/, '/dist/src/sampler/$1.js'));
+  if (!here.endsWith('.ts')) return new URL('./workerPoolThread.js', here);
+  return new URL(here.replace(/\/src\/sampler\/[^/]+\.ts$/, '/dist/src/sampler/workerPoolThread.js'));
 }
 
-/** The buffers behind the arrays, to move (not copy) them to the other thread. */
-function transferList(...arrays: Float64Array[]): ArrayBuffer[] {
-  return arrays.map((array) => array.buffer as ArrayBuffer);
-}
-
-function replyToError(reply: Extract<WorkerReply, { kind: 'failed' }>): Error {
+function replyToError(reply: Extract<WorkerThreadReply, { kind: 'failed' }>): Error {
   if (reply.name === 'CandelaError' && reply.issues) return new CandelaError(reply.issues);
   if (reply.stage === 'load') {
     return new CandelaError({
@@ -51,62 +56,52 @@ function replyToError(reply: Extract<WorkerReply, { kind: 'failed' }>): Error {
   return new Error(`the model threw inside an evaluation worker: ${reply.message}`);
 }
 
+const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
+
 /**
- * Starts `workers` worker threads, each building its own model from `spec`,
- * and returns a {@link BatchEvaluator} that splits every batch into one
- * contiguous chunk per worker. Results are bit-identical to
- * {@link createInProcessEvaluator} on the same model, for any worker count.
+ * Starts `threads` worker threads, each building its own model from `spec`,
+ * and returns a {@link BatchEvaluator} whose threads (and the caller, with
+ * `options.localModel`) share every batch point by point (self-scheduling
+ * in runs of GRAIN points). Results are bit-identical to
+ * {@link createInProcessEvaluator} on the same model, for any thread count.
  *
- * Cost: thread start-up (tens of ms each) once; per batch one message round
- * trip per busy worker plus the model evaluations, in parallel.
- * Throws (rejects) a CandelaError `sampler.invalid_option` for a worker count
+ * Cost: thread start-up (tens of ms each, plus building the model) once; per
+ * batch the evaluations in parallel, one copy of the points in and of the
+ * results out, and one atomic wake-up shared by the threads. The calling thread blocks in Atomics.wait
+ * (in slices of WAIT_SLICE_MS) until the threads finish.
+ * Throws (rejects) a CandelaError `sampler.invalid_option` for a thread count
  * that is not a positive integer, `sampler.worker_model_failed` when the
  * worker script or the model cannot be loaded, `sampler.worker_mismatch`
- * when workers disagree on dimension or blob count. One batch at a time:
+ * when the models disagree on dimension or blob count. One batch at a time:
  * `evaluate` rejects while a previous call is still running. Call `close()`
  * when done, or the threads keep the process alive.
  * @example
- * const evaluator = await createWorkerPoolEvaluator({ moduleUrl, exportName: 'createModel', init: {} }, 2);
+ * const evaluator = await createWorkerPoolEvaluator({ moduleUrl, exportName: 'createModel', init: {} }, 1, { localModel });
  * try { await evaluator.evaluate(points, 64, logProb, blobs); } finally { await evaluator.close(); }
  */
-export async function createWorkerPoolEvaluator(spec: WorkerModelSpec, workers: number): Promise<BatchEvaluator> {
-  if (!Number.isInteger(workers) || workers < 1) {
-    throw new CandelaError({ code: 'sampler.invalid_option', path: 'workers', message: 'the number of worker threads must be a positive integer', expected: 'an integer >= 1', found: String(workers) });
+export async function createWorkerPoolEvaluator(spec: WorkerModelSpec, threads: number, options: WorkerPoolOptions = {}): Promise<BatchEvaluator> {
+  if (!Number.isInteger(threads) || threads < 1) {
+    throw new CandelaError({ code: 'sampler.invalid_option', path: 'workers', message: 'the number of worker threads must be a positive integer', expected: 'an integer >= 1', found: String(threads) });
   }
   const members: PoolMember[] = [];
   let failure: Error | undefined;
   let closing = false;
   let evaluating = false;
-  const fail = (member: PoolMember, error: Error): void => {
-    failure ??= error;
-    const pending = member.pending;
-    member.pending = undefined;
-    pending?.reject(error);
-  };
-  const ready = Array.from({ length: workers }, () => {
-    const worker = new Worker(workerScriptUrl(), { workerData: { role: WORKER_ROLE, spec } });
-    const member: PoolMember = { worker, blobCount: 0, points: new Float64Array(0), logProb: new Float64Array(0), blobs: new Float64Array(0) };
-    members.push(member);
+  const control = new Int32Array(new SharedArrayBuffer(controlSlots(threads) * Int32Array.BYTES_PER_ELEMENT));
+  let capacity = 0;
+  let block: Float64Array<ArrayBufferLike> = new Float64Array(0);
+  let sequence = 0;
+  const ready = Array.from({ length: threads }, (_, index) => {
+    const channel = new MessageChannel();
+    const data: WorkerThreadData = { role: WORKER_THREAD_ROLE, index, spec, control: control.buffer as SharedArrayBuffer, port: channel.port2 };
+    const worker = new Worker(workerScriptUrl(), { workerData: data, transferList: [channel.port2] });
+    members.push({ worker, port: channel.port1, ...threadSlot(index) });
     return new Promise<{ dimension: number; blobCount: number }>((resolveReady, rejectReady) => {
-      worker.on('message', (reply: WorkerReply) => {
-        if (reply.kind === 'ready') {
-          member.blobCount = reply.blobCount;
-          return resolveReady(reply);
-        }
-        if (reply.kind === 'failed') {
-          const error = replyToError(reply);
-          if (reply.stage === 'load') return rejectReady(error);
-          return fail(member, error);
-        }
-        const pending = member.pending;
-        member.pending = undefined;
-        member.points = reply.points;
-        member.logProb = reply.logProb;
-        member.blobs = reply.blobs;
-        if (!pending) return;
-        pending.logProb.set(reply.logProb.subarray(0, pending.count), pending.first);
-        pending.blobs.set(reply.blobs.subarray(0, pending.count * member.blobCount), pending.first * member.blobCount);
-        pending.resolve();
+      worker.on('message', (reply: WorkerThreadReply) => {
+        if (reply.kind === 'ready') return resolveReady(reply);
+        const error = replyToError(reply);
+        rejectReady(error);
+        failure ??= error;
       });
       worker.on('error', (error: Error) => {
         const wrapped = new CandelaError({
@@ -115,41 +110,76 @@ export async function createWorkerPoolEvaluator(spec: WorkerModelSpec, workers: 
           fix: 'when running from source, build first (npm run build) so that the compiled worker script exists',
         });
         rejectReady(wrapped);
-        fail(member, wrapped);
+        failure ??= wrapped;
       });
       worker.on('exit', (code) => {
         if (closing) return;
         const error = new Error(`an evaluation worker exited unexpectedly (exit code ${code})`);
         rejectReady(error);
-        fail(member, error);
+        failure ??= error;
       });
     });
   });
+  const stopAll = async (): Promise<void> => {
+    closing = true;
+    Atomics.store(control, CONTROL.request, STOP_REQUEST);
+    Atomics.notify(control, CONTROL.request);
+    for (const member of members) member.port.close();
+    await Promise.all(members.map((member) => member.worker.terminate()));
+  };
   let shapes: Array<{ dimension: number; blobCount: number }>;
   try {
     shapes = await Promise.all(ready);
   } catch (error) {
-    closing = true;
-    await Promise.all(members.map((member) => member.worker.terminate()));
+    await stopAll();
     throw error;
   }
   const { dimension, blobCount } = shapes[0];
-  if (shapes.some((shape) => shape.dimension !== dimension || shape.blobCount !== blobCount)) {
-    closing = true;
-    await Promise.all(members.map((member) => member.worker.terminate()));
+  let local: LogProbabilityModel | undefined;
+  try {
+    local = typeof options.localModel === 'function' ? options.localModel() : options.localModel;
+  } catch (error) {
+    await stopAll();
+    throw error;
+  }
+  const mismatch = shapes.some((shape) => shape.dimension !== dimension || shape.blobCount !== blobCount)
+    || (local !== undefined && (local.dimension !== dimension || local.blobCount !== blobCount));
+  if (mismatch) {
+    await stopAll();
     throw new CandelaError({ code: 'sampler.worker_mismatch', message: 'evaluation workers built models of different dimension or blob count', expected: `${dimension} parameters and ${blobCount} blobs in every worker` });
   }
+  const theta = new Float64Array(dimension);
 
-  const request = (member: PoolMember, points: Float64Array, first: number, count: number, logProb: Float64Array, blobs: Float64Array): Promise<void> => {
-    if (member.points.length < count * dimension) member.points = new Float64Array(count * dimension);
-    if (member.logProb.length < count) member.logProb = new Float64Array(count);
-    if (member.blobs.length < count * blobCount) member.blobs = new Float64Array(count * blobCount);
-    member.points.set(points.subarray(first * dimension, (first + count) * dimension));
-    return new Promise<void>((resolve, reject) => {
-      member.pending = { first, count, logProb, blobs, resolve, reject };
-      const message: EvaluateRequest = { count, points: member.points, logProb: member.logProb, blobs: member.blobs };
-      member.worker.postMessage(message, transferList(member.points, member.logProb, member.blobs));
-    });
+  /** Copies the points into the shared block (growing it when needed) and wakes the threads. */
+  const dispatch = (points: Float64Array, count: number): void => {
+    if (count > capacity) {
+      capacity = Math.max(count, 2 * capacity);
+      const buffer = new SharedArrayBuffer(dataBlockLength(capacity, dimension, blobCount) * Float64Array.BYTES_PER_ELEMENT);
+      block = new Float64Array(buffer);
+      for (const member of members) member.port.postMessage({ data: buffer, capacity } satisfies DataBlockMessage);
+      Atomics.store(control, CONTROL.capacity, capacity);
+    }
+    block.set(points.subarray(0, count * dimension));
+    Atomics.store(control, CONTROL.count, count);
+    Atomics.store(control, CONTROL.next, 0);
+    sequence = sequence === 0x7fffffff ? 1 : sequence + 1;
+    Atomics.store(control, CONTROL.request, sequence);
+    Atomics.notify(control, CONTROL.request);
+  };
+
+  /** Waits until the thread has finished the current request; throws its failure. */
+  const awaitThread = async (member: PoolMember): Promise<void> => {
+    for (;;) {
+      const done = Atomics.load(control, member.done);
+      if (done === sequence) break;
+      if (failure) throw failure;
+      if (Atomics.wait(control, member.done, done, WAIT_SLICE_MS) === 'timed-out') await yieldToEventLoop();
+    }
+    if (Atomics.load(control, member.status) === STATUS_FAILED) {
+      const reply = receiveMessageOnPort(member.port)?.message as WorkerThreadReply | undefined;
+      failure ??= reply && reply.kind === 'failed' ? replyToError(reply) : new Error('the model threw inside an evaluation worker');
+      throw failure;
+    }
   };
 
   return {
@@ -161,64 +191,29 @@ export async function createWorkerPoolEvaluator(spec: WorkerModelSpec, workers: 
       if (evaluating) throw new Error('the worker-pool evaluator runs one batch at a time; await the previous evaluate');
       evaluating = true;
       try {
-        const base = Math.floor(count / members.length);
-        const remainder = count % members.length;
-        const requests: Promise<void>[] = [];
-        let first = 0;
-        for (let index = 0; index < members.length; index++) {
-          const chunk = base + (index < remainder ? 1 : 0);
-          if (chunk === 0) continue;
-          requests.push(request(members[index], points, first, chunk, logProb, blobs));
-          first += chunk;
+        dispatch(points, count);
+        if (local) {
+          const shared = block;
+          const sharedPoints = shared.subarray(0, capacity * dimension);
+          const sharedLogProb = shared.subarray(capacity * dimension, capacity * (dimension + 1));
+          const sharedBlobs = shared.subarray(capacity * (dimension + 1));
+          try {
+            claimAndEvaluate(control, count, (first, run) => evaluatePoints(local, theta, sharedPoints, first, run, sharedLogProb, sharedBlobs));
+          } catch (error) {
+            failure ??= error instanceof Error ? error : new Error(String(error)); // the threads may still be busy: stay failed
+            throw failure;
+          }
         }
-        await Promise.all(requests);
+        for (const member of members) await awaitThread(member);
+        logProb.set(block.subarray(capacity * dimension, capacity * dimension + count));
+        const blobStart = capacity * (dimension + 1);
+        blobs.set(block.subarray(blobStart, blobStart + count * blobCount));
       } finally {
         evaluating = false;
       }
     },
     async close(): Promise<void> {
-      closing = true;
-      await Promise.all(members.map((member) => member.worker.terminate()));
+      await stopAll();
     },
   };
-}
-
-function describeFailure(error: unknown, stage: 'load' | 'evaluate'): WorkerReply {
-  if (isCandelaError(error)) return { kind: 'failed', stage, name: 'CandelaError', message: error.message, issues: error.issues };
-  const message = error instanceof Error ? error.message : String(error);
-  return { kind: 'failed', stage, name: error instanceof Error ? error.name : 'Error', message };
-}
-
-/** Worker side: build the model from the spec, then evaluate chunks until terminated. */
-async function serveAsWorker(spec: WorkerModelSpec): Promise<void> {
-  const port = parentPort!;
-  let model: LogProbabilityModel;
-  try {
-    const module = (await import(spec.moduleUrl)) as Record<string, unknown>;
-    const factory = module[spec.exportName];
-    if (typeof factory !== 'function') throw new Error(`${spec.moduleUrl} has no exported function '${spec.exportName}'`);
-    model = (await factory(spec.init)) as LogProbabilityModel;
-    if (!model || !Number.isInteger(model.dimension) || !Number.isInteger(model.blobCount) || typeof model.evaluate !== 'function') {
-      throw new Error(`'${spec.exportName}' did not return a model with integer dimension, integer blobCount and an evaluate function`);
-    }
-  } catch (error) {
-    port.postMessage(describeFailure(error, 'load'));
-    return;
-  }
-  const theta = new Float64Array(model.dimension);
-  port.on('message', (message: EvaluateRequest) => {
-    try {
-      evaluatePoints(model, theta, message.points, 0, message.count, message.logProb, message.blobs);
-    } catch (error) {
-      port.postMessage(describeFailure(error, 'evaluate'));
-      return;
-    }
-    const reply: WorkerReply = { kind: 'done', points: message.points, logProb: message.logProb, blobs: message.blobs };
-    port.postMessage(reply, transferList(message.points, message.logProb, message.blobs));
-  });
-  port.postMessage({ kind: 'ready', dimension: model.dimension, blobCount: model.blobCount } satisfies WorkerReply);
-}
-
-if (!isMainThread && parentPort && (workerData as { role?: string } | null)?.role === WORKER_ROLE) {
-  void serveAsWorker((workerData as { spec: WorkerModelSpec }).spec);
 }

@@ -30,13 +30,14 @@ beforeAll(() => {
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 
 describe('runFit', () => {
-  it('writes byte-identical chains with 1 and 2 worker threads for the same seed', async () => {
+  it('writes byte-identical chains with 1, 2 and 3 workers for the same seed', async () => {
     const [one] = await runFit({ configPath: writeConfig('one', { maxSteps: 150, workers: 1 }) });
     const [two] = await runFit({ configPath: writeConfig('two', { maxSteps: 150, workers: 2 }) });
+    const [three] = await runFit({ configPath: writeConfig('three', { maxSteps: 150, workers: 3 }) });
     const a = readFileSync(join(one.runDir, 'chains.csv'));
-    const b = readFileSync(join(two.runDir, 'chains.csv'));
     expect(a.length).toBeGreaterThan(1000);
-    expect(a.equals(b)).toBe(true);
+    expect(a.equals(readFileSync(join(two.runDir, 'chains.csv')))).toBe(true); // this thread + 1 worker thread
+    expect(a.equals(readFileSync(join(three.runDir, 'chains.csv')))).toBe(true); // this thread + 2 (more threads than cores here)
     expect(one.record.run.stop_reason).toBe('max_steps');
     for (const file of ['summary.json', 'summary.md', 'table.tex', 'report.html', 'figures/triangle.svg', 'figures/hubble.svg', 'figures/trace.svg', 'contours/omega_m__w0.geojson', 'marginals/w0.csv']) {
       expect(existsSync(join(one.runDir, file)), file).toBe(true);

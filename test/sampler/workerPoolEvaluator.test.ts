@@ -18,8 +18,9 @@ const open: BatchEvaluator[] = [];
 afterEach(async () => {
   await Promise.all(open.splice(0).map((evaluator) => evaluator.close()));
 });
-async function pool(workers: number, modelSpec = spec()): Promise<BatchEvaluator> {
-  const evaluator = await createWorkerPoolEvaluator(modelSpec, workers);
+async function pool(workers: number, modelSpec = spec(), withLocalModel = false): Promise<BatchEvaluator> {
+  const localModel = withLocalModel ? createGaussianTarget(TARGET) : undefined;
+  const evaluator = await createWorkerPoolEvaluator(modelSpec, workers, { localModel });
   open.push(evaluator);
   return evaluator;
 }
@@ -42,6 +43,32 @@ describe('createWorkerPoolEvaluator', () => {
       expect(sameBytes(blobs.subarray(0, 2 * batch), expectedBlobs.subarray(0, 2 * batch))).toBe(true);
       expect(Number.isNaN(logProb[batch] ?? NaN)).toBe(true); // nothing written past the batch
     }
+  });
+
+  it('splits a batch between the calling thread (localModel) and the threads, bit-identical to in process', async () => {
+    const rng = createRandomStream('local');
+    const count = 41;
+    const points = Float64Array.from({ length: count * 3 }, () => 3 * rng.normal());
+    const expectedLogProb = new Float64Array(count);
+    const expectedBlobs = new Float64Array(count * 2);
+    await createInProcessEvaluator(createGaussianTarget(TARGET)).evaluate(points, count, expectedLogProb, expectedBlobs);
+    for (const threads of [1, 2]) {
+      const evaluator = await pool(threads, spec(), true);
+      for (const batch of [1, 2, count, 5]) { // 1 point: only a thread works; the blocks grow and are reused
+        const logProb = new Float64Array(count).fill(NaN);
+        const blobs = new Float64Array(count * 2).fill(NaN);
+        await evaluator.evaluate(points, batch, logProb, blobs);
+        expect(sameBytes(logProb.subarray(0, batch), expectedLogProb.subarray(0, batch))).toBe(true);
+        expect(sameBytes(blobs.subarray(0, 2 * batch), expectedBlobs.subarray(0, 2 * batch))).toBe(true);
+        expect(Number.isNaN(logProb[batch] ?? NaN)).toBe(true);
+      }
+    }
+  });
+
+  it('rejects a local model whose shape differs from the threads\' models', async () => {
+    const other = createGaussianTarget({ mean: [0, 0], covariance: [1, 0, 0, 1] });
+    await expect(createWorkerPoolEvaluator(spec(), 1, { localModel: other })).rejects.toSatisfy((error: unknown) =>
+      isCandelaError(error) && error.issues[0].code === 'sampler.worker_mismatch');
   });
 
   it('accepts an asynchronous model factory', async () => {
@@ -69,7 +96,7 @@ describe('createWorkerPoolEvaluator', () => {
 });
 
 describe('EnsembleSampler determinism across evaluators', () => {
-  it('stores byte-identical chains in process, with 1 worker and with 2 workers (same seed)', async () => {
+  it('stores byte-identical chains in process, with 1 or 2 threads, and with the caller sharing the work (same seed)', async () => {
     const options = { dimension: 3, walkers: 8, seed: 'workers', differentialEvolutionWeight: 0.25 };
     const run = async (evaluator: BatchEvaluator) => {
       // A small optimizer budget keeps the test quick; determinism does not depend on convergence.
@@ -79,8 +106,8 @@ describe('EnsembleSampler determinism across evaluators', () => {
       return Array.from({ length: 4 }, (_, k) => sampler.chain(k));
     };
     const reference = await run(createInProcessEvaluator(createGaussianTarget(TARGET)));
-    for (const workers of [1, 2]) {
-      const chains = await run(await pool(workers));
+    for (const [workers, local] of [[1, false], [2, false], [1, true]] as const) {
+      const chains = await run(await pool(workers, spec(), local));
       chains.forEach((chain, k) => {
         expect(chain.steps).toBe(60);
         expect(sameBytes(chain.positions, reference[k].positions)).toBe(true);
