@@ -60,7 +60,7 @@ export interface AutocorrelationTimeEstimate {
  * cannot see an anticorrelated chain well, tau is floored at 1/log10(max(N, 10))
  * for N = steps x walkers, the cap Vehtari et al. (2021) put on the ESS.
  *
- * Cost: two FFTs of length nextPowerOfTwo(2 steps) per walker, O(W n log n).
+ * Cost: two FFTs of length nextPowerOfTwo(2 steps) per pair of walkers, O(W n log n).
  * @param walkerSeries one series per walker, equal lengths >= 2, finite (any units).
  * @returns the estimate with its window, ESS and reliability flag.
  * @throws CandelaError `diagnostics.no_chains`, `diagnostics.unequal_chains`, `diagnostics.too_few_draws`,
@@ -72,17 +72,25 @@ export function integratedAutocorrelationTime(walkerSeries: readonly Float64Arra
   const steps = walkerSeries[0].length;
   const workspace = createAutocovarianceWorkspace(steps);
   const autocovariance = new Float64Array(steps);
+  const autocovarianceSecond = new Float64Array(steps);
   const correlationSum = new Float64Array(steps);
   const constantWalkers: number[] = [];
-  walkerSeries.forEach((series, walker) => {
-    workspace.autocovarianceInto(series, autocovariance);
-    const variance = autocovariance[0];
+  const accumulate = (series: Float64Array, walker: number, values: Float64Array): void => {
+    const variance = values[0];
     if (!(variance > 0) || spreadOf(series) < CONSTANT_SPREAD_TOLERANCE) {
       constantWalkers.push(walker);
       return;
     }
-    for (let lag = 0; lag < steps; lag++) correlationSum[lag] += autocovariance[lag] / variance;
-  });
+    for (let lag = 0; lag < steps; lag++) correlationSum[lag] += values[lag] / variance;
+  };
+  // Two walkers per FFT (autocovariancePairInto): half the transforms.
+  let walker = 0;
+  for (; walker + 1 < walkerSeries.length; walker += 2) {
+    workspace.autocovariancePairInto(walkerSeries[walker], walkerSeries[walker + 1], autocovariance, autocovarianceSecond);
+    accumulate(walkerSeries[walker], walker, autocovariance);
+    accumulate(walkerSeries[walker + 1], walker + 1, autocovarianceSecond);
+  }
+  if (walker < walkerSeries.length) accumulate(walkerSeries[walker], walker, workspace.autocovarianceInto(walkerSeries[walker], autocovariance));
   const walkersUsed = walkerSeries.length - constantWalkers.length;
   if (walkersUsed === 0) {
     throw new CandelaError({

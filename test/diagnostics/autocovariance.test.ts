@@ -37,4 +37,31 @@ describe('createAutocovarianceWorkspace', () => {
   it('gives zeros for a constant series (as the reference implementation does)', () => {
     expect(Array.from(createAutocovarianceWorkspace(5).autocovarianceInto(new Float64Array(5).fill(2.5), new Float64Array(5)))).toEqual([0, 0, 0, 0, 0]);
   });
+
+  it('transforms two series at once to the direct lag sums of each (two real FFTs for the price of one, Numerical Recipes 12.3)', () => {
+    const stream = createRandomStream('autocovariance/pair');
+    const first = Float64Array.from({ length: 257 }, () => -2 + stream.normal());
+    let state = 0;
+    const second = Float64Array.from({ length: 257 }, () => (state = 0.9 * state + 0.5 * stream.normal()) + 40);
+    const workspace = createAutocovarianceWorkspace(257);
+    const outFirst = new Float64Array(257);
+    const outSecond = new Float64Array(257);
+    workspace.autocovariancePairInto(first, second, outFirst, outSecond);
+    const expectedFirst = directAutocovariance(first);
+    const expectedSecond = directAutocovariance(second);
+    // Same tolerance as the single transform above (common practice).
+    for (let lag = 0; lag < 257; lag++) {
+      expect(Math.abs(outFirst[lag] - expectedFirst[lag])).toBeLessThan(1e-13);
+      expect(Math.abs(outSecond[lag] - expectedSecond[lag])).toBeLessThan(1e-13);
+    }
+    // Variances 1e12 apart are done one by one: the small series keeps its relative accuracy.
+    const tiny = Float64Array.from(first, (value) => 1e-6 * value);
+    const huge = Float64Array.from(second, (value) => 1e3 * value);
+    workspace.autocovariancePairInto(tiny, huge, outFirst, outSecond);
+    for (let lag = 0; lag < 257; lag++) expect(Math.abs(outFirst[lag] - 1e-12 * expectedFirst[lag])).toBeLessThan(1e-25);
+    // A constant partner gives zeros and leaves the other exact.
+    workspace.autocovariancePairInto(new Float64Array(257).fill(3), first, outFirst, outSecond);
+    expect(outFirst.every((value) => value === 0)).toBe(true);
+    for (let lag = 0; lag < 257; lag++) expect(Math.abs(outSecond[lag] - expectedFirst[lag])).toBeLessThan(1e-13);
+  });
 });
