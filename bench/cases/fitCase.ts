@@ -1,7 +1,7 @@
 /**
  * Full-fit case, run in its own process by bench/fit.ts:
  *
- *   node dist/bench/cases/fitCase.js --workers <0 | n> --count 1829 --check-every 500 --stop ess [--de 0.2] [--progress 1]
+ *   node dist/bench/cases/fitCase.js --workers <0 | n> [--local 1] --count 1829 --check-every 500 --stop ess [--de 0.2] [--progress 1]
  *
  * Flat w0waCDM (Omega_m, w0, wa; offset marginalized) on the dense
  * 1,829-supernova sample, driven the way the pipeline's runFit drives it:
@@ -42,9 +42,15 @@ runCaseMain(async () => {
   const init: FitModelInit = { count: Number(args.count ?? 1829), seed: 'bench-fit' };
   const begin = process.hrtime.bigint();
   let start = begin;
-  const model = buildFitModel(init);
-  let inner: BatchEvaluator = createInProcessEvaluator(model.logProbability);
-  if (workers > 0) inner = await createWorkerPoolEvaluator({ moduleUrl: fitModelUrl(), exportName: 'createBenchFitModel', init }, workers);
+  // With --local 1 this thread takes a share of every batch as well, as the pipeline runs `--workers n + 1`,
+  // and builds its model while the worker threads build theirs (as runFit does).
+  const local = args.local === '1';
+  let model: ReturnType<typeof buildFitModel> | undefined;
+  const pool = workers > 0
+    ? createWorkerPoolEvaluator({ moduleUrl: fitModelUrl(), exportName: 'createBenchFitModel', init }, workers, { localModel: local ? () => model!.logProbability : undefined })
+    : null;
+  model = buildFitModel(init);
+  const inner: BatchEvaluator = pool ? await pool : createInProcessEvaluator(model.logProbability);
   const setupMs = since(start);
   const evaluator = timedEvaluator(inner);
   try {
@@ -77,7 +83,7 @@ runCaseMain(async () => {
     }
     const wallMs = since(begin);
     reportCase({
-      workers, count: init.count, check_every: checkEvery, stop: stopAtEss ? 'bulk ESS >= 2000' : 'bulk ESS >= 2000 and R-hat <= 1.01',
+      workers, local: local ? 1 : 0, count: init.count, check_every: checkEvery, stop: stopAtEss ? 'bulk ESS >= 2000' : 'bulk ESS >= 2000 and R-hat <= 1.01',
       differential_evolution_weight: differentialEvolutionWeight, reached: done(check) ? 'yes' : 'no',
       wall_s: wallMs / 1000, setup_s: setupMs / 1000, walker_start_s: startMs / 1000, walker_start_calls: startCalls,
       steps: sampler.stepCount, burn_in_steps: check?.burnInSteps ?? 0, calls: evaluator.points,

@@ -1,12 +1,12 @@
 /**
  * Messaging cost of the worker pool, run in its own process by bench/sampler.ts:
  *
- *   node dist/bench/cases/poolRoundTripCase.js --workers <0 | n> --batch 64
+ *   node dist/bench/cases/poolRoundTripCase.js --workers <0 | n> [--local 1] --batch 64
  *
  * Evaluates batches of `batch` points (the sampler's batch: half of 32
  * walkers in each of 4 ensembles) of a model that costs almost nothing, in
  * process (0) or with a pool of n threads, so that the time per batch is the
- * pool's round trip (split, copy, post, wake, reply, copy back).
+ * pool's round trip (split, copy into shared memory, wake, wait, copy back).
  */
 import { createInProcessEvaluator, createWorkerPoolEvaluator, type BatchEvaluator } from '../../src/sampler/index.js';
 import { caseArguments, reportCase, runCaseMain } from '../support/childCase.js';
@@ -21,7 +21,7 @@ runCaseMain(async () => {
   const batch = Number(args.batch ?? 64);
   const evaluator: BatchEvaluator = workers === 0
     ? createInProcessEvaluator(createTrivialModel())
-    : await createWorkerPoolEvaluator({ moduleUrl: trivialModelUrl(), exportName: 'createTrivialModel', init: null }, workers);
+    : await createWorkerPoolEvaluator({ moduleUrl: trivialModelUrl(), exportName: 'createTrivialModel', init: null }, workers, { localModel: args.local === '1' ? createTrivialModel() : undefined });
   try {
     const points = Float64Array.from({ length: batch * 3 }, (_, i) => Math.sin(i));
     const logProb = new Float64Array(batch);

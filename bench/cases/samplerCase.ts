@@ -1,10 +1,11 @@
 /**
  * Sampler throughput case, run in its own process by bench/sampler.ts:
  *
- *   node dist/bench/cases/samplerCase.js --workers <0 | n> --count 1829 --burn 200 --steps 1000
+ *   node dist/bench/cases/samplerCase.js --workers <0 | n> [--local 1] --count 1829 --burn 200 --steps 1000
  *
  * workers 0 evaluates in process (what the pipeline does for one worker);
- * n >= 1 uses the worker pool with n threads. Flat w0waCDM on the dense
+ * n >= 1 uses the worker pool with n threads; with --local 1 this thread
+ * evaluates a share of every batch too (what the pipeline does for n + 1 workers). Flat w0waCDM on the dense
  * 1,829-supernova sample (compressed path), 4 ensembles of 32 walkers
  * started in a small ball around the truth; after `burn` steps, `steps`
  * timed steps. Reports log-posterior calls per second, the bulk ESS of the
@@ -48,9 +49,13 @@ runCaseMain(async () => {
   const steps = Number(args.steps ?? 1000);
   const init: FitModelInit = { count: Number(args.count ?? 1829), seed: 'bench-fit' };
   let start = process.hrtime.bigint();
-  let inner: BatchEvaluator;
-  if (workers === 0) inner = createInProcessEvaluator(buildFitModel(init).logProbability);
-  else inner = await createWorkerPoolEvaluator({ moduleUrl: fitModelUrl(), exportName: 'createBenchFitModel', init }, workers);
+  const local = args.local === '1';
+  let model: ReturnType<typeof buildFitModel> | undefined;
+  const pool = workers > 0
+    ? createWorkerPoolEvaluator({ moduleUrl: fitModelUrl(), exportName: 'createBenchFitModel', init }, workers, { localModel: local ? () => model!.logProbability : undefined })
+    : null;
+  if (workers === 0 || local) model = buildFitModel(init); // in parallel with the threads' builds
+  const inner: BatchEvaluator = pool ? await pool : createInProcessEvaluator(model!.logProbability);
   const setupMs = since(start);
   const evaluator = timedEvaluator(inner);
   try {
@@ -70,7 +75,7 @@ runCaseMain(async () => {
     const diagnosticsMs = since(start);
     const overheadMs = wallMs - evaluateMs;
     reportCase({
-      workers, walkers: WALKERS, ensembles: ENSEMBLES, burn_steps: burn, timed_steps: steps, setup_ms: setupMs,
+      workers, local: local ? 1 : 0, walkers: WALKERS, ensembles: ENSEMBLES, burn_steps: burn, timed_steps: steps, setup_ms: setupMs,
       wall_ms: wallMs, evaluate_ms: evaluateMs, calls,
       calls_per_second: calls / (wallMs / 1000),
       ms_per_call_in_evaluator: evaluateMs / calls,
