@@ -3,7 +3,7 @@ import { CandelaError } from '../errors.js';
 import { evaluatePoints } from './evaluatePoints.js';
 import type { BatchEvaluator, LogProbabilityModel, WorkerModelSpec } from './logProbabilityModel.js';
 import {
-  CONTROL, STATUS_FAILED, STOP_REQUEST, claimAndEvaluate, controlSlots, dataBlockLength, threadSlot,
+  CONTROL, STATUS_FAILED, STOP_REQUEST, awaitChange, claimAndEvaluate, controlSlots, dataBlockLength, threadSlot,
   type DataBlockMessage, type WorkerThreadData, type WorkerThreadReply,
 } from './sharedBatchChannel.js';
 import { WORKER_THREAD_ROLE } from './workerPoolThread.js';
@@ -67,8 +67,10 @@ const yieldToEventLoop = (): Promise<void> => new Promise((resolve) => setImmedi
  *
  * Cost: thread start-up (tens of ms each, plus building the model) once; per
  * batch the evaluations in parallel, one copy of the points in and of the
- * results out, and one atomic wake-up shared by the threads. The calling thread blocks in Atomics.wait
- * (in slices of WAIT_SLICE_MS) until the threads finish.
+ * results out, and one atomic wake-up shared by the threads. The calling
+ * thread polls, then blocks in Atomics.wait (in slices of WAIT_SLICE_MS),
+ * until the threads finish (awaitChange); idle threads do the same between
+ * batches, so a thread spins for up to SPIN_POLLS loads before it sleeps.
  * Throws (rejects) a CandelaError `sampler.invalid_option` for a thread count
  * that is not a positive integer, `sampler.worker_model_failed` when the
  * worker script or the model cannot be loaded, `sampler.worker_mismatch`
@@ -173,7 +175,7 @@ export async function createWorkerPoolEvaluator(spec: WorkerModelSpec, threads: 
       const done = Atomics.load(control, member.done);
       if (done === sequence) break;
       if (failure) throw failure;
-      if (Atomics.wait(control, member.done, done, WAIT_SLICE_MS) === 'timed-out') await yieldToEventLoop();
+      if (!awaitChange(control, member.done, done, WAIT_SLICE_MS)) await yieldToEventLoop();
     }
     if (Atomics.load(control, member.status) === STATUS_FAILED) {
       const reply = receiveMessageOnPort(member.port)?.message as WorkerThreadReply | undefined;

@@ -3,7 +3,7 @@ import { isCandelaError } from '../errors.js';
 import { evaluatePoints } from './evaluatePoints.js';
 import type { LogProbabilityModel } from './logProbabilityModel.js';
 import {
-  CONTROL, STATUS_FAILED, STATUS_OK, STOP_REQUEST, claimAndEvaluate, dataBlockLength, threadSlot,
+  CONTROL, STATUS_FAILED, STATUS_OK, STOP_REQUEST, awaitChange, claimAndEvaluate, dataBlockLength, threadSlot,
   type DataBlockMessage, type WorkerThreadData, type WorkerThreadReply,
 } from './sharedBatchChannel.js';
 
@@ -11,7 +11,7 @@ import {
  * The worker-thread side of the worker-pool evaluator (see
  * sharedBatchChannel.ts for the protocol). Loaded as a worker script with
  * `workerData.role === WORKER_THREAD_ROLE`; imported normally it does nothing.
- * After building the model it blocks in Atomics.wait between requests, so
+ * After building the model it polls, then blocks in Atomics.wait, between requests, so
  * its event loop no longer runs: everything after start-up goes through
  * shared memory and synchronous port reads.
  */
@@ -58,7 +58,7 @@ async function serve(data: WorkerThreadData): Promise<void> {
   let seen = 0;
   parentPort!.postMessage({ kind: 'ready', dimension, blobCount } satisfies WorkerThreadReply);
   for (;;) {
-    Atomics.wait(control, CONTROL.request, seen);
+    awaitChange(control, CONTROL.request, seen, Infinity);
     const request = Atomics.load(control, CONTROL.request);
     if (request === STOP_REQUEST) return;
     if (request === seen) continue;
