@@ -31,10 +31,17 @@ export const DEFAULT_SURVEY_SAMPLE = {
   calibrationOffsetMag: 0,
 } as const;
 
-/** Output folder (relative to the survey file) and file names. */
+/**
+ * Output folder (relative to the survey file), file names and the form of
+ * the systematics file: `covariance` is the default name of the dense
+ * matrix, `modesFile` the default name of the same key with
+ * `systematics_form: modes` (a CSV of N rows x K modes).
+ */
 export const DEFAULT_SURVEY_OUTPUT = {
   dir: 'mock-survey',
   table: 'supernovae.csv',
   covariance: 'systematics.txt',
+  modesFile: 'systematic_modes.csv',
   truth: 'truth.json',
+  systematicsForm: 'matrix',
 } as const;

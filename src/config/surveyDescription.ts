@@ -66,8 +66,15 @@ export interface SurveySample {
 export interface SurveyOutput {
   dir: ResolvedPath;
   table: string;
+  /** The systematics file (the matrix or the modes, by systematicsForm). */
   covariance: string;
   truth: string;
+  /**
+   * How the systematics are written: 'matrix', the dense N x N covariance
+   * (at most 10,000 supernovae); 'modes', the N x K shifts U with C = U U^T
+   * (no size limit).
+   */
+  systematicsForm: 'matrix' | 'modes';
 }
 
 /** The whole validated survey description. */

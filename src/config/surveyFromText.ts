@@ -20,7 +20,9 @@ import { readSurveyTruth } from './surveyTruthReader.js';
 export const SURVEY_TOP_LEVEL_KEYS = [
   'title', 'seed', 'truth', 'lensing_per_redshift', 'peculiar_velocity_km_s', 'redshift_drift_mag', 'samples', 'output',
 ] as const;
-const OUTPUT_KEYS = ['dir', 'table', 'covariance', 'truth'] as const;
+const OUTPUT_KEYS = ['dir', 'table', 'covariance', 'truth', 'systematics_form'] as const;
+/** Values of output.systematics_form. */
+const SYSTEMATICS_FORMS = ['matrix', 'modes'] as const;
 
 /**
  * Parses and validates a survey description. YAML syntax errors are reported
@@ -89,24 +91,30 @@ function readSeed(reader: ConfigReader, at: Located | undefined): number | strin
   return (reader.text(at) as string | undefined) ?? DEFAULT_SEED;
 }
 
-/** Output folder (resolved against the survey file) and plain, distinct file names. */
+/**
+ * Output folder (resolved against the survey file), plain, distinct file
+ * names, and the form of the systematics file (the default name of
+ * `covariance` follows the form).
+ */
 function readOutput(reader: ConfigReader, at: Located | undefined): SurveyOutput {
   const fields = reader.mapping(at, OUTPUT_KEYS);
+  const systematicsForm = reader.choice(fields?.get('systematics_form'), SYSTEMATICS_FORMS) ?? DEFAULT_SURVEY_OUTPUT.systematicsForm;
+  const defaults = { ...DEFAULT_SURVEY_OUTPUT, covariance: systematicsForm === 'modes' ? DEFAULT_SURVEY_OUTPUT.modesFile : DEFAULT_SURVEY_OUTPUT.covariance };
   const name = (key: 'table' | 'covariance' | 'truth'): string => {
     const value = reader.text(fields?.get(key));
-    if (typeof value !== 'string') return DEFAULT_SURVEY_OUTPUT[key];
+    if (typeof value !== 'string') return defaults[key];
     if (!LABEL_PATTERN.test(value)) {
       reader.report(fields!.get(key)!, 'config.bad_file_name', `"${value}" is not a plain file name`, {
         expected: 'a file name of letters, digits, "_", "." or "-" (the folder goes in output.dir)', found: `"${value}"`,
         fix: 'put the folder in output.dir and only the file name here',
       });
-      return DEFAULT_SURVEY_OUTPUT[key];
+      return defaults[key];
     }
     return value;
   };
   const output: SurveyOutput = {
     dir: resolveConfigPath(reader.fileName, reader.text(fields?.get('dir')) ?? DEFAULT_SURVEY_OUTPUT.dir),
-    table: name('table'), covariance: name('covariance'), truth: name('truth'),
+    table: name('table'), covariance: name('covariance'), truth: name('truth'), systematicsForm,
   };
   const names = [output.table, output.covariance, output.truth];
   if (new Set(names).size < names.length) {

@@ -2,13 +2,14 @@ import { CandelaError } from '../errors.js';
 import { createRandomStream, SPEED_OF_LIGHT_KM_PER_S } from '../math/index.js';
 import { createCosmology } from '../cosmology/index.js';
 import type { Cosmology } from '../cosmology/index.js';
-import type { SupernovaTable } from '../data/index.js';
+import type { SupernovaTable, SystematicModes } from '../data/index.js';
 import { highMassFraction } from '../standardize/index.js';
 import type { HostMassStep } from '../standardize/index.js';
 import { drawRedshifts } from './drawRedshifts.js';
 import { lightCurveErrors } from './lightCurveErrors.js';
 import type { MockSurveyOptions } from './mockSurveyOptions.js';
 import { systematicCovariance } from './systematicCovariance.js';
+import { systematicModes } from './systematicModes.js';
 
 /** Headroom on the largest redshift for the true cosmology's range (peculiar velocities push z_obs above the design maximum). */
 const REDSHIFT_RANGE_FACTOR = 1.1;
@@ -17,8 +18,14 @@ const REDSHIFT_RANGE_FACTOR = 1.1;
 export interface MockSurvey {
   /** Observed light-curve parameters, in the tool's table type (z_helio = z; no redshift errors, bias corrections or calibrators). */
   table: SupernovaTable;
-  /** Systematic covariance on the magnitudes (N x N, row major, mag^2), or null when no mode is on. */
+  /**
+   * Systematic covariance on the magnitudes (N x N, row major, mag^2), or
+   * null when no mode is on or when the options ask for the 'modes' form
+   * (the dense matrix is then never formed).
+   */
   systematicCovariance: Float64Array | null;
+  /** The same systematics as modes U (N x K, mag; C = U U^T, columns as systematicModeNames), or null when no mode is on. Both forms. */
+  systematicModes: SystematicModes | null;
   /** True (latent) values per supernova, for validation: redshift, x1, c (mag), host log mass (dex), mu at the true redshift (mag). */
   latent: { redshift: Float64Array; stretch: Float64Array; color: Float64Array; hostLogMass: Float64Array; distanceModulusMag: Float64Array };
   /** The drawn systematic offsets: per sample calibration offsets and the drift coefficient, mag (all 0 when noiseless). */
@@ -37,14 +44,17 @@ export interface MockSurvey {
  * Peculiar velocities perturb the observed redshift, z_obs = (1 + z)(1 + v/c) - 1.
  * Lensing scatter is lensingPerRedshift z mag (0.055 z: Jonsson et al. 2010).
  * Systematic modes (a coherent offset per sample, a redshift-proportional
- * drift) are drawn once, added to the magnitudes, and returned as a
- * covariance (see systematicCovariance). With `noiseless`, the same
+ * drift) are drawn once, added to the magnitudes, and returned as modes U
+ * (see systematicModes) and, with systematicsForm 'matrix' (the default),
+ * also as the dense covariance U U^T (see systematicCovariance). With `noiseless`, the same
  * supernovae are drawn and every noise, scatter and systematic deviate is
  * multiplied by zero, so that the table is the expectation of the data.
  * Deterministic for a given seed (one Alea stream, fixed draw order).
- * Cost: O(N + grid) plus O(N^2) for the covariance.
+ * Cost: O(N + grid) plus O(N K) for the modes, plus O(N^2) time and memory
+ * for the dense covariance with the 'matrix' form only.
  * @param options the survey design, truth and seed.
- * @throws CandelaError `mock.unphysical_truth`, `mock.empty`, `mock.redshift_range`, `mock.error_model`, `mock.error_correlation`.
+ * @throws CandelaError `mock.unphysical_truth`, `mock.empty`, `mock.redshift_range`, `mock.error_model`, `mock.error_correlation`,
+ *   `mock.covariance_too_large` (the 'matrix' form with a mode on above MAX_COVARIANCE_SUPERNOVAE supernovae).
  * @example generateMockSurvey({ samples, truth, lensingPerRedshift: 0.055, peculiarVelocityKmPerS: 250, redshiftDriftMag: 0, seed: '7' }).table.count
  */
 export function generateMockSurvey(options: MockSurveyOptions): MockSurvey {
@@ -124,7 +134,8 @@ export function generateMockSurvey(options: MockSurveyOptions): MockSurvey {
   };
   return {
     table,
-    systematicCovariance: systematicCovariance(options, redshift, sampleIndex),
+    systematicCovariance: options.systematicsForm === 'modes' ? null : systematicCovariance(options, redshift, sampleIndex),
+    systematicModes: systematicModes(options, redshift, sampleIndex),
     latent,
     systematicDraws: { calibrationOffsetMag, redshiftDriftMag },
   };

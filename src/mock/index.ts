@@ -17,3 +17,7 @@ export { systematicCovariance } from './systematicCovariance.js';
 export { MAX_COVARIANCE_SUPERNOVAE } from './systematicCovariance.js';
 // expectations
 export { expectedResidualVariance } from './expectedResidualVariance.js';
+export { systematicModes } from './systematicModes.js';
+export { systematicModeNames } from './systematicModes.js';
+export { REDSHIFT_DRIFT_MODE } from './systematicModes.js';
+export { CALIBRATION_MODE_PREFIX } from './systematicModes.js';

@@ -73,4 +73,10 @@ export interface MockSurveyOptions {
    * (the same seed gives the same supernovae). Default false.
    */
   noiseless?: boolean;
+  /**
+   * How the systematics are returned: 'matrix' (default) also forms the
+   * dense N x N covariance (at most MAX_COVARIANCE_SUPERNOVAE supernovae);
+   * 'modes' returns only the N x K modes U (C = U U^T), with no size limit.
+   */
+  systematicsForm?: 'matrix' | 'modes';
 }

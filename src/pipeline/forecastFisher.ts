@@ -77,8 +77,13 @@ export interface ModelForecast {
  * from the likelihood's own variances (covarianceInformation). (The curvature
  * of ln det C on noise-free data alone is not this expectation and can even be
  * negative for sigma_int.) Gaussian priors add 1/sd^2 to the diagonal.
- * Cost: one N x N factorization, ~2 P^2 likelihood evaluations of O(N^2) per
- * step set, and O(N^3) once when the covariance part is needed.
+ * The survey's systematics enter as they are given: a dense matrix (general
+ * path) or, with the 'modes' form, modes U through the Woodbury identity
+ * (low_rank path); both give the same forecast up to rounding.
+ * Cost: dense systematics: one N x N factorization, ~2 P^2 likelihood
+ * evaluations of O(N^2) per step set, and O(N^3) once when the covariance
+ * part is needed; modes: O(N K^2) per evaluation and for the covariance
+ * part, no N x N matrix; none: O(N) per evaluation.
  * @param setup the model, free parameters with their truths, fixed values, standardization.
  * @param mock the noise-free survey (generateMockSurvey with noiseless).
  * @param stepFraction the final steps as a fraction of the conditional errors (default STEP_FRACTION_OF_SIGMA).
@@ -88,8 +93,10 @@ export interface ModelForecast {
 export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFraction = STEP_FRACTION_OF_SIGMA): ModelForecast {
   const { table } = mock;
   const n = table.count;
-  const covariances: CovarianceMatrix[] = mock.systematicCovariance
-    ? [{ target: 'magnitudes', size: n, values: mock.systematicCovariance, sourceFile: 'mock systematic covariance' }] : [];
+  // The survey's systematics as the fit would read them: the dense matrix ('matrix' form) or the modes ('modes' form).
+  const dense = mock.systematicCovariance;
+  const modes = dense ? null : mock.systematicModes;
+  const covariances: CovarianceMatrix[] = dense ? [{ target: 'magnitudes', size: n, values: dense, sourceFile: 'mock systematic covariance' }] : [];
   const names = setup.free.map((p) => p.name);
   const atTruth: Record<string, number> = { ...setup.fixed };
   for (const p of setup.free) atTruth[p.name] = p.value;
@@ -97,7 +104,8 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFract
   const frozenAt = std.alphaBetaCovariance === 'frozen' && std.frozenAt ? std.frozenAt : { alpha: atTruth.alpha, beta: atTruth.beta };
   const base: Omit<SupernovaTermOptions, 'standardization' | 'fixed'> = {
     // Exact paths only (the compressed one trades 1e-7 in chi^2 for speed, which finite differences would amplify).
-    name: 'forecast', table, covariances, offset: 'sample', fastPath: mock.systematicCovariance ? 'general' : 'diagonal',
+    name: 'forecast', table, covariances, ...(modes ? { systematicModes: modes } : {}), offset: 'sample',
+    fastPath: dense ? 'general' : modes ? 'low_rank' : 'diagonal',
     cosmologyModel: { darkEnergy: setup.darkEnergy, flat: setup.flat, cmbTemperatureK: setup.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: EFFECTIVE_NEUTRINO_SPECIES },
   };
   const shapesOnlyCovariance = (name: string): boolean => parseParameterName(name)?.base === 'sigma_int';
@@ -119,7 +127,7 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFract
   const meanFisher = centralDifferenceHessian(minusLogLikelihood, center, steps, meanNames, reason);
   const meanFisherHalved = centralDifferenceHessian(minusLogLikelihood, center, halved, meanNames, reason);
 
-  const fromCovariance = covariancePart(() => createSupernovaTerm({ ...base, standardization: std, fixed: setup.fixed }), atTruth, names, mock.systematicCovariance, n);
+  const fromCovariance = covariancePart(() => createSupernovaTerm({ ...base, standardization: std, fixed: setup.fixed }), atTruth, names, dense ?? modes, n);
   const priors = setup.free
     .filter((p) => p.prior && (p.prior.kind === 'gaussian' || p.prior.kind === 'truncated_gaussian'))
     .map((p) => ({ name: p.name, sd: (p.prior as { sd: number }).sd }));

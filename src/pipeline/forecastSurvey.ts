@@ -42,8 +42,10 @@ export interface ForecastResult {
  * fiducial, see forecastSetups), builds the likelihood of each model as the
  * fit would, and computes the Fisher matrix at the truth (fisherForecast).
  * Writes nothing.
- * Cost: an N x N factorization per model plus O(P^2 N^2); O(N^3) more per
- * model whose covariance follows alpha, beta or sigma_int.
+ * Cost: with a systematic matrix (output.systematics_form: matrix), an
+ * N x N factorization per model plus O(P^2 N^2), and O(N^3) more per model
+ * whose covariance follows alpha, beta or sigma_int; with the 'modes' form
+ * O(P^2 N K^2) per model and no N x N matrix (10^5 supernovae are feasible).
  * @param request survey file, optional fit configuration, optional seed.
  * @throws CandelaError with every problem of either file, or when a forecast is degenerate.
  * @example forecastSurvey({ surveyPath: 'configs/demo-survey.yaml' }).models[0].marginals.figureOfMerit

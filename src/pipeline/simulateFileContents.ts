@@ -1,6 +1,9 @@
 import { createHash } from 'node:crypto';
 import type { SurveyDescription, SurveySample } from '../config/index.js';
+import { systematicModeNames } from '../mock/index.js';
 import type { MockSurvey } from '../mock/index.js';
+import type { SystematicModes } from '../data/index.js';
+import { mockOptionsFromSurvey } from './simulateMockOptions.js';
 import { VERSION } from './version.js';
 
 /** Columns of the mock table, in file order (the names a run configuration maps in `columns`). */
@@ -22,18 +25,22 @@ const SIGNIFICANT_DIGITS = 7;
 /** The text of the three files `candela simulate` writes. */
 export interface SimulateFileContents {
   table: string;
-  /** Null when the survey has no systematic mode. */
+  /** The systematics file in the survey's output.systematics_form (matrix or modes); null when the survey has no systematic mode. */
   covariance: string | null;
   truth: string;
 }
 
 /**
  * Formats a mock survey as files: the table as CSV with a header line
- * (columns {@link MOCK_TABLE_COLUMNS}), the systematic covariance as text
- * (first line N, then one row of N values per line) and truth.json (the
+ * (columns {@link MOCK_TABLE_COLUMNS}), the systematics in the survey's
+ * output.systematics_form -- 'matrix': the covariance as text (first line
+ * N, then one row of N values per line); 'modes': the modes U as CSV (a
+ * header of mode names, systematicModeNames, then one row of K values per
+ * supernova, the form readSystematicModes reads) -- and truth.json (the
  * truth, the survey settings, the drawn systematic offsets, the seed, and
- * SHA-256 checksums of the other two files). Pure: the same inputs give the
- * same bytes. Cost O(N^2) for the covariance text.
+ * the name, size and SHA-256 checksum of the other two files). Pure: the
+ * same inputs give the same bytes. Cost O(N^2) for the matrix text, O(N K)
+ * for the modes.
  * @param survey the survey description (truth and settings, output file names).
  * @param mock the drawn survey.
  * @param seed the seed used, as written or given on the command line.
@@ -41,7 +48,11 @@ export interface SimulateFileContents {
  */
 export function simulateFileContents(survey: SurveyDescription, mock: MockSurvey, seed: number | string): SimulateFileContents {
   const table = tableCsv(mock);
-  const covariance = mock.systematicCovariance ? matrixText(mock.systematicCovariance, mock.table.count) : null;
+  const modes = survey.output.systematicsForm === 'modes';
+  const modeNames = modes ? systematicModeNames(mockOptionsFromSurvey(survey, String(seed), false)) : [];
+  const covariance = modes
+    ? (mock.systematicModes ? modesText(mock.systematicModes, modeNames) : null)
+    : (mock.systematicCovariance ? matrixText(mock.systematicCovariance, mock.table.count) : null);
   const sha256 = (text: string): string => createHash('sha256').update(text, 'utf8').digest('hex');
   const record = {
     about: 'truth of a candela mock supernova survey (see docs/simulate.md)',
@@ -62,7 +73,9 @@ export function simulateFileContents(survey: SurveyDescription, mock: MockSurvey
     },
     files: {
       table: { name: survey.output.table, rows: mock.table.count, columns: [...MOCK_TABLE_COLUMNS], sha256: sha256(table) },
-      covariance: covariance === null ? null : { name: survey.output.covariance, size: mock.table.count, sha256: sha256(covariance) },
+      covariance: covariance === null ? null : modes
+        ? { name: survey.output.covariance, form: 'modes', size: [mock.table.count, modeNames.length], columns: modeNames, sha256: sha256(covariance) }
+        : { name: survey.output.covariance, size: mock.table.count, sha256: sha256(covariance) },
     },
   };
   return { table, covariance, truth: `${JSON.stringify(record, null, 2)}\n` };
@@ -100,6 +113,18 @@ function matrixText(values: Float64Array, n: number): string {
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) row[j] = significant(values[i * n + j]);
     lines.push(row.join(' '));
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+/** U as CSV: a header of mode names, then one row of K shifts (mag) per supernova. */
+function modesText(modes: SystematicModes, names: readonly string[]): string {
+  const k = modes.modeCount;
+  const lines = [names.join(',')];
+  const row: string[] = new Array(k);
+  for (let i = 0; i < modes.count; i++) {
+    for (let j = 0; j < k; j++) row[j] = significant(modes.values[i * k + j]);
+    lines.push(row.join(','));
   }
   return `${lines.join('\n')}\n`;
 }

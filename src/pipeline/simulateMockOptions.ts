@@ -3,7 +3,9 @@ import type { MockSurveyOptions } from '../mock/index.js';
 
 /**
  * The mock generator's options for a validated survey description: the
- * configuration type stops here, the mock layer sees plain numbers.
+ * configuration type stops here, the mock layer sees plain numbers. The
+ * form of the systematics (output.systematics_form) is passed on, so that
+ * the 'modes' form never forms the dense N x N matrix.
  * Cost O(samples).
  * @param survey the survey description.
  * @param seed the seed to draw with (the description's, or a command-line override), as text.
@@ -18,6 +20,7 @@ export function mockOptionsFromSurvey(survey: SurveyDescription, seed: string, n
     lensingPerRedshift: survey.lensingPerRedshift,
     peculiarVelocityKmPerS: survey.peculiarVelocityKmPerS,
     redshiftDriftMag: survey.redshiftDriftMag,
+    systematicsForm: survey.output.systematicsForm,
     truth: {
       darkEnergy: truth.darkEnergy,
       flat: truth.curvature === 'flat',

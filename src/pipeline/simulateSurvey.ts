@@ -35,6 +35,13 @@ export interface SimulateOutcome {
   seed: number | string;
   /** The drawn systematic offsets, mag. */
   systematicDraws: MockSurvey['systematicDraws'];
+  /**
+   * How a data set of a fit configuration loads the systematics file just
+   * written: under `covariances` (the 'matrix' form, on the magnitudes) or
+   * `systematic_modes` (the 'modes' form), with the path written; null when
+   * the survey has no systematic mode.
+   */
+  systematicsEntry: { key: 'covariances' | 'systematic_modes'; file: string } | null;
   /** Problems that did not stop the run (e.g. no seed). */
   warnings: Issue[];
   /** Wall-clock time of reading, drawing and writing, s. */
@@ -42,16 +49,19 @@ export interface SimulateOutcome {
 }
 
 /**
- * Reads a survey description and draws the survey into a CSV table, a text
- * covariance of the systematic modes and truth.json (see
- * simulateFileContents). Byte-identical output for the same description and
- * seed. Nothing is written when any problem is found, and no existing file
- * is replaced unless `force` (with `force`, a stale covariance file is removed
- * when the survey has no systematic mode).
- * Cost: O(N^2) for the covariance, plus writing it (~7 MB for N = 800).
+ * Reads a survey description and draws the survey into a CSV table, a file
+ * of the systematics (output.systematics_form: the dense covariance, or the
+ * modes U with C = U U^T) and truth.json (see simulateFileContents).
+ * Byte-identical output for the same description and seed. Nothing is
+ * written when any problem is found, and no existing file is replaced
+ * unless `force` (with `force`, a stale systematics file is removed when the
+ * survey has no systematic mode).
+ * Cost: 'matrix' form O(N^2) time and memory, plus writing it (~7 MB for
+ * N = 800; at most 10,000 supernovae with a mode on); 'modes' form O(N K).
  * @param request survey file, output folder, force, seed.
  * @throws CandelaError with every problem of the description (file, line, key, fix),
- *   an unphysical truth, or the files that would be overwritten.
+ *   an unphysical truth, the files that would be overwritten, or `mock.covariance_too_large`
+ *   (the 'matrix' form above 10,000 supernovae with a mode on).
  * @example simulateSurvey({ surveyPath: 'configs/demo-survey.yaml', force: true }).supernovae // 800
  */
 export function simulateSurvey(request: SimulateRequest): SimulateOutcome {
@@ -89,8 +99,10 @@ export function simulateSurvey(request: SimulateRequest): SimulateOutcome {
   }
   const samples: Record<string, number> = {};
   for (const sample of survey.value.samples) samples[sample.label] = sample.count;
+  const systematicsEntry: SimulateOutcome['systematicsEntry'] = contents.covariance === null ? null
+    : { key: names.systematicsForm === 'modes' ? 'systematic_modes' : 'covariances', file: planned[1].path };
   return {
-    dir, files, supernovae: mock.table.count, samples, seed, systematicDraws: mock.systematicDraws,
+    dir, files, supernovae: mock.table.count, samples, seed, systematicDraws: mock.systematicDraws, systematicsEntry,
     warnings: survey.warnings, wallSeconds: (Date.now() - started) / 1000,
   };
 }

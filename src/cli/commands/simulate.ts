@@ -16,14 +16,15 @@ function badFlag(flag: string, found: string, expected: string, fix: string): Ca
 }
 
 /**
- * `candela simulate SURVEY`: draws a mock survey into a table, a systematic
- * covariance and truth.json, or (--forecast) prints the Fisher forecast of
- * the survey without writing anything.
+ * `candela simulate SURVEY`: draws a mock survey into a table, a file of
+ * systematics (a covariance matrix or modes) and truth.json, or
+ * (--forecast) prints the Fisher forecast of the survey without writing
+ * anything.
  */
 export function registerSimulateCommand(program: Command): void {
   program
     .command('simulate')
-    .description('draw a mock supernova survey from a survey description (table, systematic covariance, truth.json), or forecast its constraints')
+    .description('draw a mock supernova survey from a survey description (table, systematic covariance or modes, truth.json), or forecast its constraints')
     .argument('<survey>', 'YAML survey description (see docs/simulate.md)')
     .option('--out <dir>', 'output folder (default: output.dir of the survey file)')
     .option('--force', 'replace existing output files')
@@ -48,6 +49,11 @@ export function registerSimulateCommand(program: Command): void {
         const counts = Object.entries(outcome.samples).map(([label, count]) => `${label} ${count}`).join(', ');
         const lines = [`drew ${outcome.supernovae} supernovae (${counts}) with seed ${outcome.seed} in ${outcome.wallSeconds.toFixed(2)} s`];
         for (const file of outcome.files) lines.push(`  wrote ${file.path} (${file.bytes} bytes)`);
+        const entry = outcome.systematicsEntry;
+        if (entry) {
+          const options = entry.key === 'covariances' ? ', applies_to: magnitudes' : '';
+          lines.push(`  to fit it, give its data set ${entry.key}: [{ file: ${entry.file}${options} }] (the path relative to the fit configuration)`);
+        }
         process.stdout.write(`${lines.join('\n')}\n`);
         return;
       }
