@@ -1,5 +1,7 @@
 import type { MessagePort } from 'node:worker_threads';
 import type { Issue } from '../errors.js';
+import { evaluatePoints } from './evaluatePoints.js';
+import type { LogProbabilityModel } from './logProbabilityModel.js';
 
 /*
  * The shared-memory protocol between the worker-pool evaluator (main side)
@@ -106,7 +108,33 @@ export type WorkerThreadReply =
 /** A grown data block, sent main -> worker on the shared port. */
 export interface DataBlockMessage { data: SharedArrayBuffer; capacity: number }
 
-/** Float64 entries a data block needs for `capacity` points. */
-export function dataBlockLength(capacity: number, dimension: number, blobCount: number): number {
-  return capacity * (dimension + 1 + blobCount);
+/** The data block of `capacity` points and its three regions (points row major, log posteriors, blobs row major). */
+export interface DataBlock {
+  readonly capacity: number;
+  readonly buffer: SharedArrayBuffer;
+  readonly points: Float64Array;
+  readonly logProb: Float64Array;
+  readonly blobs: Float64Array;
+}
+
+/**
+ * Lays out a data block over `buffer` (a new one when absent). Both sides
+ * call it once per growth of the block, never per batch.
+ */
+export function createDataBlock(capacity: number, dimension: number, blobCount: number, buffer?: SharedArrayBuffer): DataBlock {
+  const shared = buffer ?? new SharedArrayBuffer(capacity * (dimension + 1 + blobCount) * Float64Array.BYTES_PER_ELEMENT);
+  const whole = new Float64Array(shared, 0, capacity * (dimension + 1 + blobCount));
+  return {
+    capacity,
+    buffer: shared,
+    points: whole.subarray(0, capacity * dimension),
+    logProb: whole.subarray(capacity * dimension, capacity * (dimension + 1)),
+    blobs: whole.subarray(capacity * (dimension + 1)),
+  };
+}
+
+/** `evaluateRange` for claimAndEvaluate: evaluates claimed runs of the block's points with `model` into the block. */
+export function blockEvaluator(model: LogProbabilityModel, block: DataBlock): (first: number, count: number) => void {
+  const theta = new Float64Array(model.dimension);
+  return (first, count) => evaluatePoints(model, theta, block.points, first, count, block.logProb, block.blobs);
 }

@@ -1,9 +1,8 @@
 import { MessageChannel, Worker, receiveMessageOnPort, type MessagePort } from 'node:worker_threads';
 import { CandelaError } from '../errors.js';
-import { evaluatePoints } from './evaluatePoints.js';
 import type { BatchEvaluator, LogProbabilityModel, WorkerModelSpec } from './logProbabilityModel.js';
 import {
-  CONTROL, STATUS_FAILED, STOP_REQUEST, awaitChange, claimAndEvaluate, controlSlots, dataBlockLength, threadSlot,
+  CONTROL, STATUS_FAILED, STOP_REQUEST, awaitChange, blockEvaluator, claimAndEvaluate, controlSlots, createDataBlock, threadSlot,
   type DataBlockMessage, type WorkerThreadData, type WorkerThreadReply,
 } from './sharedBatchChannel.js';
 import { WORKER_THREAD_ROLE } from './workerPoolThread.js';
@@ -90,8 +89,6 @@ export async function createWorkerPoolEvaluator(spec: WorkerModelSpec, threads: 
   let closing = false;
   let evaluating = false;
   const control = new Int32Array(new SharedArrayBuffer(controlSlots(threads) * Int32Array.BYTES_PER_ELEMENT));
-  let capacity = 0;
-  let block: Float64Array<ArrayBufferLike> = new Float64Array(0);
   let sequence = 0;
   const ready = Array.from({ length: threads }, (_, index) => {
     const channel = new MessageChannel();
@@ -150,18 +147,18 @@ export async function createWorkerPoolEvaluator(spec: WorkerModelSpec, threads: 
     await stopAll();
     throw new CandelaError({ code: 'sampler.worker_mismatch', message: 'evaluation workers built models of different dimension or blob count', expected: `${dimension} parameters and ${blobCount} blobs in every worker` });
   }
-  const theta = new Float64Array(dimension);
+  let block = createDataBlock(0, dimension, blobCount);
+  let evaluateLocally = local ? blockEvaluator(local, block) : null;
 
   /** Copies the points into the shared block (growing it when needed) and wakes the threads. */
   const dispatch = (points: Float64Array, count: number): void => {
-    if (count > capacity) {
-      capacity = Math.max(count, 2 * capacity);
-      const buffer = new SharedArrayBuffer(dataBlockLength(capacity, dimension, blobCount) * Float64Array.BYTES_PER_ELEMENT);
-      block = new Float64Array(buffer);
-      for (const member of members) member.port.postMessage({ data: buffer, capacity } satisfies DataBlockMessage);
-      Atomics.store(control, CONTROL.capacity, capacity);
+    if (count > block.capacity) {
+      block = createDataBlock(Math.max(count, 2 * block.capacity), dimension, blobCount);
+      evaluateLocally = local ? blockEvaluator(local, block) : null;
+      for (const member of members) member.port.postMessage({ data: block.buffer, capacity: block.capacity } satisfies DataBlockMessage);
+      Atomics.store(control, CONTROL.capacity, block.capacity);
     }
-    block.set(points.subarray(0, count * dimension));
+    block.points.set(points.subarray(0, count * dimension));
     Atomics.store(control, CONTROL.count, count);
     Atomics.store(control, CONTROL.next, 0);
     sequence = sequence === 0x7fffffff ? 1 : sequence + 1;
@@ -194,22 +191,17 @@ export async function createWorkerPoolEvaluator(spec: WorkerModelSpec, threads: 
       evaluating = true;
       try {
         dispatch(points, count);
-        if (local) {
-          const shared = block;
-          const sharedPoints = shared.subarray(0, capacity * dimension);
-          const sharedLogProb = shared.subarray(capacity * dimension, capacity * (dimension + 1));
-          const sharedBlobs = shared.subarray(capacity * (dimension + 1));
+        if (evaluateLocally) {
           try {
-            claimAndEvaluate(control, count, (first, run) => evaluatePoints(local, theta, sharedPoints, first, run, sharedLogProb, sharedBlobs));
+            claimAndEvaluate(control, count, evaluateLocally);
           } catch (error) {
             failure ??= error instanceof Error ? error : new Error(String(error)); // the threads may still be busy: stay failed
             throw failure;
           }
         }
         for (const member of members) await awaitThread(member);
-        logProb.set(block.subarray(capacity * dimension, capacity * dimension + count));
-        const blobStart = capacity * (dimension + 1);
-        blobs.set(block.subarray(blobStart, blobStart + count * blobCount));
+        logProb.set(block.logProb.subarray(0, count));
+        blobs.set(block.blobs.subarray(0, count * blobCount));
       } finally {
         evaluating = false;
       }

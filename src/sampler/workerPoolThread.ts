@@ -1,9 +1,8 @@
 import { isMainThread, parentPort, receiveMessageOnPort, workerData } from 'node:worker_threads';
 import { isCandelaError } from '../errors.js';
-import { evaluatePoints } from './evaluatePoints.js';
 import type { LogProbabilityModel } from './logProbabilityModel.js';
 import {
-  CONTROL, STATUS_FAILED, STATUS_OK, STOP_REQUEST, awaitChange, claimAndEvaluate, dataBlockLength, threadSlot,
+  CONTROL, STATUS_FAILED, STATUS_OK, STOP_REQUEST, awaitChange, blockEvaluator, claimAndEvaluate, createDataBlock, threadSlot,
   type DataBlockMessage, type WorkerThreadData, type WorkerThreadReply,
 } from './sharedBatchChannel.js';
 
@@ -50,9 +49,8 @@ async function serve(data: WorkerThreadData): Promise<void> {
   const { dimension, blobCount } = model;
   const control = new Int32Array(data.control);
   const slot = threadSlot(data.index);
-  const theta = new Float64Array(dimension);
-  let capacity = 0;
-  let block: Float64Array<ArrayBufferLike> = new Float64Array(0);
+  let block = createDataBlock(0, dimension, blobCount);
+  let evaluateRange = blockEvaluator(model, block);
   // The main thread numbers requests from 1 once every thread is ready; starting from the block's
   // initial 0 (not a fresh load) keeps a request that arrives before the first wait from being missed.
   let seen = 0;
@@ -63,23 +61,20 @@ async function serve(data: WorkerThreadData): Promise<void> {
     if (request === STOP_REQUEST) return;
     if (request === seen) continue;
     seen = request;
-    while (Atomics.load(control, CONTROL.capacity) > capacity) {
+    while (Atomics.load(control, CONTROL.capacity) > block.capacity) {
       const received = receiveMessageOnPort(data.port);
       if (!received) {
         Atomics.wait(control, CONTROL.request, request, PORT_POLL_MS); // the grown block is on its way
         continue;
       }
       const message = received.message as DataBlockMessage;
-      capacity = message.capacity;
-      block = new Float64Array(message.data, 0, dataBlockLength(capacity, dimension, blobCount));
+      block = createDataBlock(message.capacity, dimension, blobCount, message.data);
+      evaluateRange = blockEvaluator(model, block);
     }
     const count = Atomics.load(control, CONTROL.count);
-    const points = block.subarray(0, capacity * dimension);
-    const logProb = block.subarray(capacity * dimension, capacity * (dimension + 1));
-    const blobs = block.subarray(capacity * (dimension + 1));
     let status = STATUS_OK;
     try {
-      claimAndEvaluate(control, count, (first, run) => evaluatePoints(model, theta, points, first, run, logProb, blobs));
+      claimAndEvaluate(control, count, evaluateRange);
     } catch (error) {
       data.port.postMessage(describeFailure(error, 'evaluate'));
       status = STATUS_FAILED;
