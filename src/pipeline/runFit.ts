@@ -100,28 +100,32 @@ export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
   const firstIndex = part ? part.modelIndex : 0;
   let models: BuiltModel[] = [];
   const early = startEarlyEvaluator(config, request, firstIndex, () => models[firstIndex].logProbability);
-  let data: LoadedSupernovae;
+  // fitOneModel closes the pool it is given; until then (bad data, an existing folder, an abort) this does.
+  let handedOver = false;
+  const handOver = (index: number): Promise<BatchEvaluator> | null => {
+    if (index !== firstIndex) return null;
+    handedOver = true;
+    return early;
+  };
   try {
-    data = loadSupernovae(config);
-    models = part ? [] : config.models.map((_, index) => buildModel(config, index, data));
-    if (part) models[part.modelIndex] = buildModel(config, part.modelIndex, data);
-  } catch (error) {
-    void early?.then((evaluator) => evaluator.close(), () => undefined); // its threads fail on the same input
-    throw error;
+    const data = loadSupernovae(config);
+    if (part) {
+      models[part.modelIndex] = buildModel(config, part.modelIndex, data);
+      prepareRunFolder(part.runDir, { force: Boolean(request.force), resume: Boolean(request.resume) });
+      return [await fitOneModel(config, part.modelIndex, models[part.modelIndex], data, part.runDir, request, part, handOver(part.modelIndex))];
+    }
+    models = config.models.map((_, index) => buildModel(config, index, data));
+    const folders = config.models.map((_, index) => runFolderFor(config, index, request.outDir));
+    for (const folder of folders) prepareRunFolder(folder, { force: Boolean(request.force), resume: Boolean(request.resume) });
+    const outcomes: FitOutcome[] = [];
+    for (let index = 0; index < models.length; index++) {
+      if (request.signal?.aborted) break;
+      outcomes.push(await fitOneModel(config, index, models[index], data, folders[index], request, undefined, handOver(index)));
+    }
+    return outcomes;
+  } finally {
+    if (!handedOver) void early?.then((evaluator) => evaluator.close(), () => undefined);
   }
-  if (part) {
-    prepareRunFolder(part.runDir, { force: Boolean(request.force), resume: Boolean(request.resume) });
-    return [await fitOneModel(config, part.modelIndex, models[part.modelIndex], data, part.runDir, request, part, early)];
-  }
-  const folders = config.models.map((_, index) => runFolderFor(config, index, request.outDir));
-  for (const folder of folders) prepareRunFolder(folder, { force: Boolean(request.force), resume: Boolean(request.resume) });
-  const outcomes: FitOutcome[] = [];
-  for (let index = 0; index < models.length; index++) {
-    if (request.signal?.aborted) break;
-    outcomes.push(await fitOneModel(config, index, models[index], data, folders[index], request, undefined, index === firstIndex ? early : null));
-  }
-  if (request.signal?.aborted && outcomes.length === 0) await (await early?.catch(() => null))?.close();
-  return outcomes;
 }
 
 /** The worker pool of model `index`, started before its model is built here (null when one worker or nested sampling). */
