@@ -49,3 +49,5 @@ export { createLowRankGaussian } from './lowRankGaussian.js';
 export { createLowRankEvaluation } from './lowRankGaussian.js';
 export type { LowRankWhitener } from './lowRankWhitener.js';
 export { createLowRankWhitener } from './lowRankWhitener.js';
+export { buildLowRankCapacitance } from './lowRankCapacitance.js';
+export type { LowRankCapacitance } from './lowRankCapacitance.js';

@@ -1,8 +1,8 @@
 import { parseParameterName } from '../config/index.js';
 import type { SystematicModes } from '../data/index.js';
 import { CandelaError } from '../errors.js';
-import type { SupernovaTerm } from '../likelihood/index.js';
-import { choleskyInPlace, logDeterminantFromCholesky, solveLowerInPlace } from '../math/index.js';
+import { buildLowRankCapacitance, type SupernovaTerm } from '../likelihood/index.js';
+import { solveLowerInPlace } from '../math/index.js';
 import { covarianceInformation } from './forecastCovarianceInformation.js';
 
 /**
@@ -105,33 +105,22 @@ function lowRankInformation(
 ): { information: Float64Array; logDeterminant: number } {
   const { count: n, modeCount: k, values: u } = modes;
   const diagonal = new Float64Array(n);
-  const capacitance = new Float64Array(k * k);
-  let logDeterminant = 0;
   for (let a = 0; a < n; a++) {
     let share = 0;
     for (let p = 0; p < k; p++) share += u[a * k + p] * u[a * k + p];
     diagonal[a] = variances[a] - share;
     if (!(diagonal[a] > 0)) throw notPositiveDefinite(`supernova ${a + 1}`, `diagonal variance ${diagonal[a]}`);
-    logDeterminant += Math.log(diagonal[a]);
-    for (let p = 0; p < k; p++) {
-      const scaled = u[a * k + p] / diagonal[a];
-      for (let q = 0; q <= p; q++) capacitance[p * k + q] += scaled * u[a * k + q];
-    }
   }
-  for (let p = 0; p < k; p++) {
-    capacitance[p * k + p] += 1;
-    for (let q = 0; q < p; q++) capacitance[q * k + p] = capacitance[p * k + q];
-  }
-  const factor = choleskyInPlace(capacitance, k);
-  if (!factor.ok) throw notPositiveDefinite(`mode ${factor.index + 1}`, `pivot ${factor.pivot} of I + U^T D^-1 U`);
-  logDeterminant += logDeterminantFromCholesky(capacitance, k);
-  // W = D^-1 U L^-T, row by row: L w_a = U_a / D_a; and the diagonal weight 1/D_a^2 - 2 |W_a|^2 / D_a.
+  // V = D^-1/2 U and the Cholesky factor L of I + V^T V, as the likelihood's Woodbury path builds them.
+  const { inverseDeviation, scaledModes, capacitanceFactor, logDeterminantDiagonal, logDeterminantCapacitance } = buildLowRankCapacitance(diagonal, u);
+  const logDeterminant = logDeterminantDiagonal + logDeterminantCapacitance;
+  // W = D^-1 U L^-T, row by row: L w_a = U_a / D_a = s_a V_a; and the diagonal weight 1/D_a^2 - 2 |W_a|^2 / D_a.
   const w = new Float64Array(n * k);
   const weight = new Float64Array(n);
   for (let a = 0; a < n; a++) {
     const row = w.subarray(a * k, a * k + k);
-    for (let p = 0; p < k; p++) row[p] = u[a * k + p] / diagonal[a];
-    solveLowerInPlace(capacitance, k, row);
+    for (let p = 0; p < k; p++) row[p] = scaledModes[p * n + a] * inverseDeviation[a];
+    solveLowerInPlace(capacitanceFactor, k, row);
     let norm = 0;
     for (let p = 0; p < k; p++) norm += row[p] * row[p];
     weight[a] = 1 / (diagonal[a] * diagonal[a]) - (2 * norm) / diagonal[a];
