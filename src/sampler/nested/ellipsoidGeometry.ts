@@ -43,18 +43,7 @@ export function unitBallLogVolume(dimension: number): number {
  * @example ellipsoidContains(unitDisk, Float64Array.of(0.5, 0), scratch) // true
  */
 export function ellipsoidContains(ellipsoid: BoundingEllipsoid, point: Float64Array, scratch: Float64Array): boolean {
-  const { dimension, center, factor } = ellipsoid;
-  let squaredNorm = 0;
-  for (let i = 0; i < dimension; i++) {
-    const row = i * dimension;
-    let value = point[i] - center[i];
-    for (let k = 0; k < i; k++) value -= factor[row + k] * scratch[k];
-    value /= factor[row + i];
-    scratch[i] = value;
-    squaredNorm += value * value;
-    if (squaredNorm > 1) return false;
-  }
-  return true;
+  return ellipsoidRadiusSquared(ellipsoid, point, scratch, 1) <= 1;
 }
 
 /**
@@ -62,12 +51,13 @@ export function ellipsoidContains(ellipsoid: BoundingEllipsoid, point: Float64Ar
  * below 1 inside the ellipsoid, 1 on its surface (the squared Mahalanobis
  * distance when L L^T is a covariance).
  *
- * Cost: D^2 / 2 multiply-adds, no allocation.
+ * Cost: D^2 / 2 multiply-adds at most, no allocation.
  * @param point D unit-cube coordinates.
  * @param scratch Work array of length >= D (overwritten with y).
+ * @param stopAbove stop as soon as the partial sum exceeds it and return that partial sum (default: never stop).
  * @example ellipsoidRadiusSquared(unitDisk, Float64Array.of(2, 0), scratch) // 4
  */
-export function ellipsoidRadiusSquared(ellipsoid: BoundingEllipsoid, point: Float64Array, scratch: Float64Array): number {
+export function ellipsoidRadiusSquared(ellipsoid: BoundingEllipsoid, point: Float64Array, scratch: Float64Array, stopAbove = Infinity): number {
   const { dimension, center, factor } = ellipsoid;
   let squaredNorm = 0;
   for (let i = 0; i < dimension; i++) {
@@ -77,6 +67,7 @@ export function ellipsoidRadiusSquared(ellipsoid: BoundingEllipsoid, point: Floa
     value /= factor[row + i];
     scratch[i] = value;
     squaredNorm += value * value;
+    if (squaredNorm > stopAbove) return squaredNorm;
   }
   return squaredNorm;
 }
