@@ -40,38 +40,36 @@ function layerOf(file: string): string {
 
 const files = listFiles('src');
 
+/** Every relative import or re-export of a source file that crosses into another layer (errors.ts excepted). */
+function crossLayerImports(): Array<{ file: string; layer: string; specifier: string; target: string; targetLayer: string }> {
+  const found: Array<{ file: string; layer: string; specifier: string; target: string; targetLayer: string }> = [];
+  for (const file of files) {
+    const layer = layerOf(file);
+    for (const match of readFileSync(file, 'utf8').matchAll(/(?:import|export)[^'"]*?from\s+['"](\.[^'"]+)['"]/g)) {
+      const target = join(file, '..', match[1]);
+      const targetLayer = layerOf(target);
+      if (targetLayer !== layer && targetLayer !== 'errors') found.push({ file, layer, specifier: match[1], target, targetLayer });
+    }
+  }
+  return found;
+}
+
 describe('layer imports (../shared/STYLE.md table)', () => {
   it('every source file belongs to a known layer', () => {
     for (const file of files) expect(Object.keys(ALLOWED), file).toContain(layerOf(file));
   });
 
   it('no layer imports a layer above it', () => {
-    const violations: string[] = [];
-    for (const file of files) {
-      const layer = layerOf(file);
-      const text = readFileSync(file, 'utf8');
-      for (const match of text.matchAll(/(?:import|export)[^'"]*?from\s+['"](\.[^'"]+)['"]/g)) {
-        const target = join(file, '..', match[1]);
-        const targetLayer = layerOf(target);
-        if (targetLayer === layer || targetLayer === 'errors') continue;
-        if (!ALLOWED[layer]?.includes(targetLayer)) violations.push(`${file} imports ${match[1]} (${layer} -> ${targetLayer})`);
-      }
-    }
+    const violations = crossLayerImports()
+      .filter(({ layer, targetLayer }) => !ALLOWED[layer]?.includes(targetLayer))
+      .map(({ file, specifier, layer, targetLayer }) => `${file} imports ${specifier} (${layer} -> ${targetLayer})`);
     expect(violations).toEqual([]);
   });
 
   it('a layer is imported from outside only through its index.ts barrel', () => {
-    const violations: string[] = [];
-    for (const file of files) {
-      const layer = layerOf(file);
-      const text = readFileSync(file, 'utf8');
-      for (const match of text.matchAll(/(?:import|export)[^'"]*?from\s+['"](\.[^'"]+)['"]/g)) {
-        const target = join(file, '..', match[1]);
-        const targetLayer = layerOf(target);
-        if (targetLayer === layer || targetLayer === 'errors') continue;
-        if (!/[/\\]index\.js$/.test(target)) violations.push(`${file} imports ${match[1]}`);
-      }
-    }
+    const violations = crossLayerImports()
+      .filter(({ target }) => !/[/\\]index\.js$/.test(target))
+      .map(({ file, specifier }) => `${file} imports ${specifier}`);
     expect(violations).toEqual([]);
   });
 

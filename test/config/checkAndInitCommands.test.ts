@@ -1,28 +1,15 @@
 // `candela check` and `candela init` through the real command-line entry point.
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
-import { main } from '../../src/cli/main.js';
+import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { checkConfiguration } from '../../src/pipeline/index.js';
+import { runCommandLine } from '../support/runCommandLine.js';
 
 mkdirSync('.candela-tmp', { recursive: true });
 const scratch = mkdtempSync(join('.candela-tmp', 'config-commands-'));
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 
-/** Runs the command line, capturing what it prints. */
-async function run(...argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk) => { stdout += String(chunk); return true; });
-  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk) => { stderr += String(chunk); return true; });
-  try {
-    const code = await main(argv);
-    return { code, stdout, stderr };
-  } finally {
-    out.mockRestore();
-    err.mockRestore();
-  }
-}
+const run = (...argv: string[]) => runCommandLine(argv);
 
 afterEach(() => {
   process.exitCode = undefined;

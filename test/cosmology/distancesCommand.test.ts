@@ -1,21 +1,8 @@
-import { afterEach, describe, expect, it, vi } from 'vitest';
-import { main } from '../../src/cli/main.js';
+import { afterEach, describe, expect, it } from 'vitest';
 import { loadReferenceRows } from './referenceDistances.js';
+import { runCommandLine } from '../support/runCommandLine.js';
 
-/** Runs the CLI in-process and captures what it writes. */
-async function run(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk) => { stdout += String(chunk); return true; });
-  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk) => { stderr += String(chunk); return true; });
-  try {
-    const code = await main(args);
-    return { code, stdout, stderr };
-  } finally {
-    out.mockRestore();
-    err.mockRestore();
-  }
-}
+const run = (args: string[]) => runCommandLine(args);
 
 afterEach(() => { process.exitCode = undefined; });
 

@@ -1,27 +1,16 @@
 // `candela simulate --forecast` through the real command-line entry point.
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
-import { main } from '../../src/cli/main.js';
+import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { SMALL_SURVEY } from './simulateSurveyText.js';
+import { runCommandLine } from '../support/runCommandLine.js';
 
 mkdirSync('.candela-tmp', { recursive: true });
 const scratch = mkdtempSync(join('.candela-tmp', 'forecast-'));
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 afterEach(() => { process.exitCode = undefined; });
 
-async function run(...argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk) => { stdout += String(chunk); return true; });
-  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk) => { stderr += String(chunk); return true; });
-  try {
-    return { code: await main(argv), stdout, stderr };
-  } finally {
-    out.mockRestore();
-    err.mockRestore();
-  }
-}
+const run = (...argv: string[]) => runCommandLine(argv);
 
 const survey = join(scratch, 'survey.yaml');
 writeFileSync(survey, SMALL_SURVEY);

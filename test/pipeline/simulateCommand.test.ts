@@ -2,30 +2,18 @@
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
-import { main } from '../../src/cli/main.js';
+import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { readCovarianceMatrix, readSupernovaTable } from '../../src/data/index.js';
 import { checkConfiguration, drawSurvey, loadSurvey, MOCK_TABLE_COLUMNS } from '../../src/pipeline/index.js';
 import { editSurvey, lineOf, SMALL_SURVEY } from './simulateSurveyText.js';
+import { runCommandLine } from '../support/runCommandLine.js';
 
 mkdirSync('.candela-tmp', { recursive: true });
 const scratch = mkdtempSync(join('.candela-tmp', 'simulate-'));
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 afterEach(() => { process.exitCode = undefined; });
 
-/** Runs the command line, capturing what it prints. */
-async function run(...argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk) => { stdout += String(chunk); return true; });
-  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk) => { stderr += String(chunk); return true; });
-  try {
-    return { code: await main(argv), stdout, stderr };
-  } finally {
-    out.mockRestore();
-    err.mockRestore();
-  }
-}
+const run = (...argv: string[]) => runCommandLine(argv);
 
 function surveyFile(name: string, text = SMALL_SURVEY): string {
   const path = join(scratch, name);
