@@ -68,7 +68,6 @@ export type { StarterOptions } from './starterConfigText.js';
 // Helpers
 export { resolveConfigPath } from './resolveConfigPath.js';
 export { closestWord } from './closestWord.js';
-export { editDistance } from './closestWord.js';
 // Survey descriptions (candela simulate)
 export type { SurveyDescription } from './surveyDescription.js';
 export type { SurveyTruth } from './surveyDescription.js';

@@ -1,3 +1,5 @@
+import { editDistance } from '../math/index.js';
+
 /**
  * "Did you mean" suggestions for misspelled column names: the candidate at the
  * smallest optimal-string-alignment distance (Levenshtein 1966 edits plus the
@@ -30,21 +32,4 @@ export function closestName(name: string, candidates: readonly string[]): string
     }
   }
   return bestDistance <= limit ? best : undefined;
-}
-
-function editDistance(a: string, b: string): number {
-  const rows = a.length + 1;
-  const cols = b.length + 1;
-  const table = new Int32Array(rows * cols);
-  for (let i = 0; i < rows; i++) table[i * cols] = i;
-  for (let j = 0; j < cols; j++) table[j] = j;
-  for (let i = 1; i < rows; i++) {
-    for (let j = 1; j < cols; j++) {
-      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      let best = Math.min(table[(i - 1) * cols + j] + 1, table[i * cols + j - 1] + 1, table[(i - 1) * cols + j - 1] + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) best = Math.min(best, table[(i - 2) * cols + j - 2] + 1);
-      table[i * cols + j] = best;
-    }
-  }
-  return table[rows * cols - 1];
 }

@@ -15,3 +15,6 @@ export { createCompositeGaussLegendre } from './compositeGaussLegendre.js';
 export type { CompositeGaussLegendre, GaussLegendrePlan } from './compositeGaussLegendre.js';
 export { adaptiveGaussKronrod } from './adaptiveGaussKronrod.js';
 export type { AdaptiveQuadratureOptions, AdaptiveQuadratureResult } from './adaptiveGaussKronrod.js';
+
+// Text
+export { editDistance } from './text/editDistance.js';
