@@ -1,6 +1,5 @@
 import { CandelaError } from '../errors.js';
-import { inverseNormalCdf } from '../diagnostics/index.js';
-import { logRegularizedGammaQ } from './regularizedGamma.js';
+import { HALF_LOG_TWO_PI, inverseNormalCdf, logRegularizedGammaQ } from '../math/index.js';
 
 /**
  * Below this tail probability the inverse normal CDF is replaced by Newton
@@ -10,7 +9,6 @@ import { logRegularizedGammaQ } from './regularizedGamma.js';
 const SMALLEST_DIRECT_TAIL = 1e-300;
 /** Newton steps on the asymptotic tail; from the leading-order start, 6 reach 1e-12 relative for z > 37. */
 const TAIL_NEWTON_STEPS = 6;
-const HALF_LOG_TWO_PI = 0.5 * Math.log(2 * Math.PI);
 
 /** The words that go with every frequentist significance in candela's tables. */
 export const SIGNIFICANCE_CAUTION =
@@ -44,7 +42,7 @@ function logTwoSidedTail(z: number): number {
 /**
  * The two-sided Gaussian significance n of a p-value given as its natural log:
  * P(|Z| > n) = p, i.e. n = -Phi^-1(p / 2), with Phi^-1 from Wichura (1988,
- * AS241; src/diagnostics inverseNormalCdf). For p below 2e-300 it solves the
+ * AS241; src/math/special/inverseNormalCdf.ts). For p below 2e-300 it solves the
  * asymptotic tail equation by Newton's method instead.
  *
  * Cost: O(1).

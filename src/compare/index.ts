@@ -33,10 +33,6 @@ export { deltaChiSquareSignificance } from './deltaChiSquareSignificance.js';
 export { twoSidedGaussianSigma } from './deltaChiSquareSignificance.js';
 export { SIGNIFICANCE_CAUTION } from './deltaChiSquareSignificance.js';
 export type { ChiSquareSignificance } from './deltaChiSquareSignificance.js';
-export { logGamma } from './logGamma.js';
-export { regularizedGammaP } from './regularizedGamma.js';
-export { regularizedGammaQ } from './regularizedGamma.js';
-export { logRegularizedGammaQ } from './regularizedGamma.js';
 
 // Comparison tables
 export { compareModels } from './compareModels.js';

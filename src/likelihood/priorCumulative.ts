@@ -1,4 +1,4 @@
-import { standardNormalCumulative } from './normalDistribution.js';
+import { standardNormalCumulative } from '../math/index.js';
 import type { Prior } from './prior.js';
 import { truncatedNormalCumulative } from './truncatedNormal.js';
 

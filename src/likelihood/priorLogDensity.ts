@@ -1,4 +1,4 @@
-import { HALF_LOG_TWO_PI } from './normalDistribution.js';
+import { HALF_LOG_TWO_PI } from '../math/index.js';
 import type { Prior } from './prior.js';
 import { truncatedNormalMass } from './truncatedNormal.js';
 

@@ -1,4 +1,4 @@
-import { standardNormalQuantile } from './normalDistribution.js';
+import { inverseNormalCdf as standardNormalQuantile } from '../math/index.js';
 import type { Prior } from './prior.js';
 import { truncatedNormalQuantile } from './truncatedNormal.js';
 
@@ -10,8 +10,8 @@ import { truncatedNormalQuantile } from './truncatedNormal.js';
  * For bounded priors u = 0 and u = 1 give the bounds; for the Gaussian they
  * give -Infinity and +Infinity. u outside [0, 1] gives NaN.
  *
- * Cost: O(1) for uniform and log-uniform; a few normal tail evaluations (Halley
- * refinement) for the Gaussians.
+ * Cost: O(1) for uniform and log-uniform; one inverse normal CDF (AS241) and a
+ * few normal tail evaluations for the Gaussians.
  * @param prior a prior that passed {@link validatePrior}
  * @param u cumulative probability, dimensionless in [0, 1]
  * @returns the parameter value, in the parameter's units

@@ -5,10 +5,10 @@
  */
 import {
   standardNormalCumulative,
-  standardNormalQuantile,
+  inverseNormalCdf as standardNormalQuantile,
   standardNormalSurvival,
   standardNormalSurvivalQuantile,
-} from './normalDistribution.js';
+} from '../math/index.js';
 
 /** P(lower <= Z <= upper) for a standard normal Z (bounds in standard deviations). @example truncatedNormalMass(-1, 1) // 0.6826894921370859 */
 export function truncatedNormalMass(lower: number, upper: number): number {

@@ -18,3 +18,5 @@ export const GRAVITATIONAL_CONSTANT_SI = 6.6743e-11;
 export const SPEED_OF_LIGHT_M_PER_S = 299792458;
 /** 5 / ln 10: converts a fractional distance error to magnitudes. */
 export const FIVE_OVER_LN10 = 5 / Math.LN10;
+/** ln(2 pi) / 2: the normalization of a Gaussian density in log form, and a term of Stirling's series. */
+export const HALF_LOG_TWO_PI = 0.5 * Math.log(2 * Math.PI);

@@ -4,7 +4,7 @@ export { choleskyInPlace, solveLowerInPlace, solveUpperTransposedInPlace, choles
 export type { CholeskyFailure, CholeskySuccess } from './cholesky.js';
 export { createRandomStream, deriveSeed } from './random.js';
 export type { RandomStream, RandomState } from './random.js';
-export { SPEED_OF_LIGHT_KM_PER_S, MEGAPARSEC_KM, GIGAYEAR_S, STEFAN_BOLTZMANN_W_PER_M2_K4, GRAVITATIONAL_CONSTANT_SI, SPEED_OF_LIGHT_M_PER_S, FIVE_OVER_LN10 } from './constants.js';
+export { SPEED_OF_LIGHT_KM_PER_S, MEGAPARSEC_KM, GIGAYEAR_S, STEFAN_BOLTZMANN_W_PER_M2_K4, GRAVITATIONAL_CONSTANT_SI, SPEED_OF_LIGHT_M_PER_S, FIVE_OVER_LN10, HALF_LOG_TWO_PI } from './constants.js';
 export { createFftPlan, fftOfRealSeries, nextPowerOfTwo } from './fft.js';
 export type { FftDirection, FftPlan } from './fft.js';
 export { nelderMeadSearch, minimizeNelderMead, NELDER_MEAD_EVALUATIONS_PER_DIMENSION, NELDER_MEAD_VALUE_TOLERANCE, NELDER_MEAD_POSITION_TOLERANCE } from './nelderMead.js';
@@ -15,6 +15,18 @@ export { createCompositeGaussLegendre } from './compositeGaussLegendre.js';
 export type { CompositeGaussLegendre, GaussLegendrePlan } from './compositeGaussLegendre.js';
 export { adaptiveGaussKronrod } from './adaptiveGaussKronrod.js';
 export type { AdaptiveQuadratureOptions, AdaptiveQuadratureResult } from './adaptiveGaussKronrod.js';
+
+// Special functions
+export { inverseNormalCdf } from './special/inverseNormalCdf.js';
+export { complementaryErrorFunction } from './special/standardNormal.js';
+export { standardNormalCumulative } from './special/standardNormal.js';
+export { standardNormalSurvival } from './special/standardNormal.js';
+export { standardNormalSurvivalQuantile } from './special/standardNormal.js';
+export { logStandardNormalDensity } from './special/standardNormal.js';
+export { logGamma } from './special/logGamma.js';
+export { regularizedGammaP } from './special/regularizedGamma.js';
+export { regularizedGammaQ } from './special/regularizedGamma.js';
+export { logRegularizedGammaQ } from './special/regularizedGamma.js';
 
 // Text
 export { editDistance } from './text/editDistance.js';

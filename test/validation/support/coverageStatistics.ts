@@ -1,5 +1,5 @@
 // Validation helper (not a test): the counting statistics of the coverage and calibration checks.
-import { regularizedGammaQ } from '../../../src/compare/index.js';
+import { regularizedGammaQ } from '../../../src/math/index.js';
 
 /**
  * Tail probability allowed on each side of a binomial or chi-square acceptance

@@ -1,4 +1,4 @@
-import { CandelaError } from '../errors.js';
+import { CandelaError } from '../../errors.js';
 
 /** |p - 1/2| up to which the central rational approximation is used (Wichura 1988, AS241). */
 const CENTRAL_REGION_HALF_WIDTH = 0.425;
@@ -17,12 +17,12 @@ const INTERMEDIATE_TAIL_LIMIT = 5;
  * Cost: one rational function (plus one log and one sqrt in the tails).
  * @param probability p in [0, 1]; p = 0 gives -Infinity and p = 1 gives +Infinity.
  * @returns z, in units of standard deviations.
- * @throws CandelaError `diagnostics.probability_range` for p outside [0, 1] or NaN.
+ * @throws CandelaError `math.probability_range` for p outside [0, 1] or NaN.
  * @example inverseNormalCdf(0.975) // => 1.959963984540054
  */
 export function inverseNormalCdf(probability: number): number {
   if (!(probability >= 0 && probability <= 1)) {
-    throw new CandelaError({ code: 'diagnostics.probability_range', message: 'a probability must lie in [0, 1]', expected: '0 <= p <= 1', found: String(probability) });
+    throw new CandelaError({ code: 'math.probability_range', message: 'a probability must lie in [0, 1]', expected: '0 <= p <= 1', found: String(probability) });
   }
   if (probability === 0) return -Infinity;
   if (probability === 1) return Infinity;

@@ -1,14 +1,13 @@
+import { HALF_LOG_TWO_PI } from '../constants.js';
+import { inverseNormalCdf } from './inverseNormalCdf.js';
+
 /**
- * The standard normal distribution to full double precision, for the Gaussian
- * and truncated-Gaussian priors (private helper of the likelihood layer; not
- * in the barrel).
- *
- * erf by its everywhere-positive power series (Abramowitz & Stegun 1964,
- * eq. 7.1.6) for |x| < 1.5; erfc by its continued fraction
- * (A&S eq. 7.1.14) evaluated with the modified Lentz method (Press et al.,
- * Numerical Recipes, 3rd ed., section 5.2) above it. The quantile starts from
- * the rational approximation A&S eq. 26.2.23 (error < 4.5e-4) and is polished
- * by Halley steps on the exact tail probability.
+ * The standard normal distribution to full double precision: erf by its
+ * everywhere-positive power series (Abramowitz & Stegun 1964, eq. 7.1.6) for
+ * |x| < 1.5; erfc by its continued fraction (A&S eq. 7.1.14) evaluated with
+ * the modified Lentz method (Press et al., Numerical Recipes, 3rd ed.,
+ * section 5.2) above it. Quantiles come from {@link inverseNormalCdf}
+ * (Wichura 1988, AS241), the one inverse normal CDF of candela.
  */
 
 /**
@@ -23,14 +22,10 @@ const CONVERGENCE_TOLERANCE = 1e-17;
 const TINY = 1e-300;
 /** Iteration cap for the series and the continued fraction (never reached for finite input). */
 const MAX_ITERATIONS = 500;
-/** Halley steps after the A&S 26.2.23 start (error 4.5e-4 -> 1e-10 -> below roundoff). */
-const HALLEY_STEPS = 3;
 
 const TWO_OVER_SQRT_PI = 2 / Math.sqrt(Math.PI);
 const INV_SQRT_PI = 1 / Math.sqrt(Math.PI);
 const INV_SQRT_TWO = Math.SQRT1_2;
-/** ln(2 pi) / 2. */
-export const HALF_LOG_TWO_PI = 0.5 * Math.log(2 * Math.PI);
 
 function erfSeries(x: number): number {
   const twiceSquare = 2 * x * x;
@@ -87,40 +82,16 @@ export function logStandardNormalDensity(z: number): number {
   return -0.5 * z * z - HALF_LOG_TWO_PI;
 }
 
-/** The z > 0 with Q(z) = q, for 0 < q <= 1/2. */
-function upperTailQuantile(q: number): number {
-  const t = Math.sqrt(-2 * Math.log(q));
-  let z = t - (2.515517 + t * (0.802853 + t * 0.010328)) / (1 + t * (1.432788 + t * (0.189269 + t * 0.001308)));
-  for (let step = 0; step < HALLEY_STEPS; step++) {
-    const density = Math.exp(logStandardNormalDensity(z));
-    if (density === 0) break;
-    const u = (standardNormalSurvival(z) - q) / density;
-    z += u / (1 - (z * u) / 2);
-  }
-  return z;
-}
-
 /**
- * Standard normal quantile Phi^-1(p) for 0 < p < 1 (-Infinity at 0, +Infinity at 1,
- * NaN outside [0, 1]). Relative accuracy ~1e-15 in p.
- * @example standardNormalQuantile(0.975) // 1.959963984540054
- */
-export function standardNormalQuantile(p: number): number {
-  if (!(p >= 0 && p <= 1)) return NaN;
-  if (p === 0) return -Infinity;
-  if (p === 1) return Infinity;
-  if (p === 0.5) return 0;
-  return p < 0.5 ? -upperTailQuantile(p) : upperTailQuantile(1 - p);
-}
-
-/**
- * The z with Q(z) = q (upper-tail quantile), precise when q is tiny.
+ * The z with Q(z) = q (upper-tail quantile), precise when q is tiny:
+ * -Phi^-1(q), since AS241 works on the smaller tail probability directly.
+ *
+ * Cost: one {@link inverseNormalCdf}.
+ * @param q upper-tail probability in [0, 1] (q = 0 gives +Infinity, q = 1 gives -Infinity).
+ * @returns z in standard deviations.
+ * @throws CandelaError `math.probability_range` for q outside [0, 1] or NaN.
  * @example standardNormalSurvivalQuantile(0.025) // 1.959963984540054
  */
 export function standardNormalSurvivalQuantile(q: number): number {
-  if (!(q >= 0 && q <= 1)) return NaN;
-  if (q === 0) return Infinity;
-  if (q === 1) return -Infinity;
-  if (q === 0.5) return 0;
-  return q < 0.5 ? upperTailQuantile(q) : -upperTailQuantile(1 - q);
+  return -inverseNormalCdf(q);
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { inverseNormalCdf } from '../../src/diagnostics/index.js';
+import { inverseNormalCdf } from '../../../src/math/index.js';
 
 // p -> qnorm(p) printed with 17 significant digits by R 4.2.2 (Wichura's AS241, the same
 // algorithm) and by scipy 1.17.1 scipy.special.ndtri (Cephes, an independent algorithm).
@@ -46,9 +46,9 @@ describe('inverseNormalCdf', () => {
     expect(inverseNormalCdf(1)).toBe(Infinity);
   });
 
-  it('throws diagnostics.probability_range outside [0, 1] and for NaN', () => {
+  it('throws math.probability_range outside [0, 1] and for NaN', () => {
     for (const bad of [-0.1, 1.5, Number.NaN]) {
-      expect(() => inverseNormalCdf(bad)).toThrow(expect.objectContaining({ issues: [expect.objectContaining({ code: 'diagnostics.probability_range' })] }));
+      expect(() => inverseNormalCdf(bad)).toThrow(expect.objectContaining({ issues: [expect.objectContaining({ code: 'math.probability_range' })] }));
     }
   });
 });

@@ -1,4 +1,4 @@
-import { CandelaError } from '../errors.js';
+import { CandelaError } from '../../errors.js';
 import { logGamma } from './logGamma.js';
 
 /** Relative size of a series term or continued-fraction factor at which the sum has converged (about the unit roundoff; Press et al. 2007, section 6.2). */
@@ -9,7 +9,7 @@ const LENTZ_TINY = 1e-300;
 const MAX_ITERATIONS = 100_000;
 
 function notConverged(a: number, x: number): CandelaError {
-  return new CandelaError({ code: 'compare.gamma_not_converged', message: 'the incomplete gamma function did not converge', expected: `convergence within ${MAX_ITERATIONS} terms`, found: `a = ${a}, x = ${x}` });
+  return new CandelaError({ code: 'math.gamma_not_converged', message: 'the incomplete gamma function did not converge', expected: `convergence within ${MAX_ITERATIONS} terms`, found: `a = ${a}, x = ${x}` });
 }
 
 /** ln P(a, x) from the series gamma(a,x) = e^-x x^a sum_n x^n / (a (a+1) ... (a+n)) (A&S eq. 6.5.29). */
@@ -47,7 +47,7 @@ function logUpperByContinuedFraction(a: number, x: number): number {
 
 function checkArguments(a: number, x: number): void {
   if (!(a > 0) || !Number.isFinite(a) || !(x >= 0) || Number.isNaN(x)) {
-    throw new CandelaError({ code: 'compare.invalid_argument', message: 'the incomplete gamma function needs a > 0 and x >= 0', expected: 'a > 0 finite, x >= 0', found: `a = ${a}, x = ${x}` });
+    throw new CandelaError({ code: 'math.invalid_argument', message: 'the incomplete gamma function needs a > 0 and x >= 0', expected: 'a > 0 finite, x >= 0', found: `a = ${a}, x = ${x}` });
   }
 }
 
@@ -62,7 +62,7 @@ function checkArguments(a: number, x: number): void {
  * Cost: O(sqrt(a) + 1) terms.
  * @param a Shape a > 0 (dimensionless).
  * @param x Argument x >= 0 (Infinity gives -Infinity).
- * @throws CandelaError `compare.invalid_argument` for a <= 0 or x < 0 or NaN; `compare.gamma_not_converged` for a beyond about 1e8.
+ * @throws CandelaError `math.invalid_argument` for a <= 0 or x < 0 or NaN; `math.gamma_not_converged` for a beyond about 1e8.
  * @example Math.exp(logRegularizedGammaQ(1, 2)) // e^-2 = 0.1353352832366127
  */
 export function logRegularizedGammaQ(a: number, x: number): number {

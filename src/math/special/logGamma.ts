@@ -1,4 +1,5 @@
-import { CandelaError } from '../errors.js';
+import { CandelaError } from '../../errors.js';
+import { HALF_LOG_TWO_PI } from '../constants.js';
 
 /**
  * Below this argument the recurrence Gamma(x) = Gamma(x + n) / (x (x+1) ... (x+n-1))
@@ -8,7 +9,6 @@ import { CandelaError } from '../errors.js';
 const STIRLING_THRESHOLD = 15;
 /** B_2k / (2k (2k - 1)) for k = 1..7 (Bernoulli numbers B_2 = 1/6 ... B_14 = 7/6). */
 const STIRLING_COEFFICIENTS = [1 / 12, -1 / 360, 1 / 1260, -1 / 1680, 1 / 1188, -691 / 360360, 1 / 156];
-const HALF_LOG_TWO_PI = 0.5 * Math.log(2 * Math.PI);
 
 /**
  * Natural log of the Gamma function for x > 0, by Stirling's asymptotic series
@@ -19,12 +19,12 @@ const HALF_LOG_TWO_PI = 0.5 * Math.log(2 * Math.PI);
  *
  * Cost: one log, up to 15 multiplications and 7 series terms.
  * @param x Argument, a finite number > 0 (dimensionless).
- * @throws CandelaError `compare.invalid_argument` for x <= 0, NaN or Infinity.
+ * @throws CandelaError `math.invalid_argument` for x <= 0, NaN or Infinity.
  * @example logGamma(0.5) // 0.5723649429247001 (= ln sqrt(pi))
  */
 export function logGamma(x: number): number {
   if (!(x > 0) || !Number.isFinite(x)) {
-    throw new CandelaError({ code: 'compare.invalid_argument', message: 'logGamma needs a finite positive argument', expected: 'x > 0', found: String(x) });
+    throw new CandelaError({ code: 'math.invalid_argument', message: 'logGamma needs a finite positive argument', expected: 'x > 0', found: String(x) });
   }
   let shifted = x;
   let product = 1;
