@@ -10,8 +10,10 @@ import { createAutocovarianceWorkspace } from './autocovariance.js';
 export const SOKAL_WINDOW_FACTOR = 5;
 
 /**
- * A tau estimate is trusted when the chain is at least this many tau long
- * (common practice: shorter chains underestimate tau).
+ * The "50 tau" rule: a tau estimate is trusted, and a chain counts as long
+ * enough, when it is at least this many tau long (common practice: shorter
+ * chains underestimate tau; Goodman & Weare 2010 advise tens of tau). The one
+ * home of this number: the run warnings, summary.json and the report use it.
  */
 export const RELIABLE_STEPS_PER_TAU = 50;
 

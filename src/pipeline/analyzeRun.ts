@@ -1,4 +1,4 @@
-import { acceptanceSummary, type ParameterDiagnostics } from '../diagnostics/index.js';
+import { acceptanceSummary, RELIABLE_STEPS_PER_TAU, type ParameterDiagnostics } from '../diagnostics/index.js';
 import { diagnoseTraces } from './diagnoseTraces.js';
 import {
   credibleContours, densityGrid2D, kishEffectiveCount, marginalDensity1D, sampleStatistics, summarizePosterior,
@@ -9,8 +9,6 @@ import { samplerMethodOf, type RunOnDisk } from './runFiles.js';
 
 /** Sampled parameters that describe the expansion history (the default contour pairs). */
 export const COSMOLOGICAL_PARAMETERS = ['omega_m', 'omega_de', 'w0', 'wa', 'h0'];
-/** A chain should be at least this many autocorrelation times long (Goodman & Weare 2010 advise tens of tau; common practice). */
-export const MINIMUM_CHAIN_LENGTH_IN_TAU = 50;
 /**
  * Nested-sampling rows whose weights together hold less than this posterior
  * mass are left out of summaries and densities: far below the Monte Carlo
@@ -208,7 +206,7 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
     for (const name of sampled) {
       const d = diagnostics[name];
       if (!d || d.rhat === null || d.essBulk === null || d.rhat > record.run.max_rhat || d.essBulk < record.run.target_ess) converged = false;
-      if (d?.tau && steps < MINIMUM_CHAIN_LENGTH_IN_TAU * d.tau) warnings.push(`the chain of ${name} is ${steps} steps, shorter than ${MINIMUM_CHAIN_LENGTH_IN_TAU} autocorrelation times (tau = ${d.tau.toFixed(1)} steps): the tau estimate and the diagnostics are less reliable`);
+      if (d?.tau && steps < RELIABLE_STEPS_PER_TAU * d.tau) warnings.push(`the chain of ${name} is ${steps} steps, shorter than ${RELIABLE_STEPS_PER_TAU} autocorrelation times (tau = ${d.tau.toFixed(1)} steps): the tau estimate and the diagnostics are less reliable`);
     }
     if (!converged) warnings.push(`the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`);
   } else {

@@ -5,6 +5,7 @@ import {
   marginalDensityCsv, reportHtml, summaryCells, summaryLatex, summaryMarkdown, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
   type BinnedResidual, type ContourSet2D, type ReportFigure, type ReportRunFacts, type TraceParameterPanel,
 } from '../output/index.js';
+import { RELIABLE_STEPS_PER_TAU } from '../diagnostics/index.js';
 import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
 import { readRunFolder, type RunOnDisk } from './runFiles.js';
 import { RUN_FILES } from './runFolder.js';
@@ -204,7 +205,7 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
         const d = analysis.diagnostics[name];
         return { parameter: name, rHat: d.rhat ?? Number.NaN, ess: d.essBulk ?? 0, autocorrelationTimeSteps: d.tau ?? Number.NaN };
       }),
-      chainLengthSteps: analysis.steps, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess, tauMultiple: 50,
+      chainLengthSteps: analysis.steps, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess, tauMultiple: RELIABLE_STEPS_PER_TAU,
       ...(analysis.acceptanceMean !== null ? { acceptanceFraction: analysis.acceptanceMean } : {}),
       ...(analysis.method === 'nested' ? { notApplicable: `Nested sampling draws independent weighted samples: R-hat and autocorrelation times do not apply. Kish effective sample size of the weights: ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}.` } : {}),
     },

@@ -1,3 +1,4 @@
+import { RELIABLE_STEPS_PER_TAU } from '../diagnostics/index.js';
 import type { RunAnalysis } from './analyzeRun.js';
 import type { RunOnDisk } from './runFiles.js';
 
@@ -52,7 +53,7 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
       max_rhat: record.run.max_rhat,
       acceptance_mean: analysis.acceptanceMean,
       stuck_walkers: analysis.stuckWalkers,
-      minimum_chain_length_over_tau: 50,
+      minimum_chain_length_over_tau: RELIABLE_STEPS_PER_TAU,
     };
   return {
     schema: SUMMARY_SCHEMA,
