@@ -25,3 +25,14 @@ export { transverseComovingDistance } from './transverseComovingDistance.js';
 export { findExpansionFailure, scanExpansion } from './expansionFailure.js';
 export type { ExpansionFailure, ExpansionScan } from './expansionFailure.js';
 export { accelerationRedshift, ACCELERATION_SEARCH_MAX_REDSHIFT } from './accelerationRedshift.js';
+
+// Early-universe scales: BAO distances, sound horizon, compressed CMB distances
+export { CMB_TEMPERATURE_K } from './cosmologyConstants.js';
+export { physicalRadiationDensity } from './physicalRadiationDensity.js';
+export { baoDistances } from './baoDistances.js';
+export type { BaoDistances } from './baoDistances.js';
+export { baoDistanceRatios, BAO_DISTANCE_KINDS } from './baoDistanceRatios.js';
+export type { BaoDistanceKind } from './baoDistanceRatios.js';
+export { dragRedshift } from './dragRedshift.js';
+export { dragSoundHorizonFitMpc } from './dragSoundHorizonFitMpc.js';
+export { decouplingRedshift } from './decouplingRedshift.js';
