@@ -11,6 +11,7 @@ export type { TraceEnsemble } from './tracePanel.js';
 export { bandFigure } from './bandFigure.js';
 export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './bandFigure.js';
 export { svgToPng } from './svgToPng.js';
+export { svgToPdf } from './pdf/svgToPdf.js';
 // Figure inputs (density types come from ../density/densityTypes.ts)
 export { interpolateModelMu } from './hubbleResiduals.js';
 export type { ModelMuCurve } from './hubbleResiduals.js';
