@@ -12,6 +12,7 @@ export { bandFigure } from './bandFigure.js';
 export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './bandFigure.js';
 export { svgToPng } from './svgToPng.js';
 export { svgToPdf } from './pdf/svgToPdf.js';
+export { withPngResolution } from './pngResolution.js';
 // Figure inputs (density types come from ../density/densityTypes.ts)
 export { interpolateModelMu } from './hubbleResiduals.js';
 export type { ModelMuCurve } from './hubbleResiduals.js';

@@ -1,3 +1,4 @@
+import { crc32 } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { svgDocument, svgElement, svgToPng, triangleFigure } from '../../../src/output/figures/index.js';
 import { gaussianContours, gaussianMarginals } from './gaussianPosterior.js';
@@ -24,6 +25,29 @@ describe('svgToPng', () => {
     }
     const blank = decodePng(svgToPng(svgDocument(200, 60, 'blank', [], []), 200));
     expect(countDarkPixels(blank, 100)).toBe(0);
+  });
+
+  it('records the print resolution in a pHYs chunk right after IHDR, with a valid CRC (PNG spec ISO/IEC 15948, 11.3.5.3; CRC checked with node:zlib)', () => {
+    // A 326.4 px (3.4 in) wide figure rendered at 300 dpi is 1020 px wide.
+    const png = svgToPng(svgDocument(326.4, 200, 'single column', [], []), { dotsPerInch: 300 });
+    expect(pngSize(png).width).toBe(1020);
+    const ihdrLength = png.readUInt32BE(8);
+    const offset = 8 + 12 + ihdrLength;
+    expect(png.toString('latin1', offset + 4, offset + 8)).toBe('pHYs');
+    expect(png.readUInt32BE(offset)).toBe(9);
+    // 300 / 0.0254 = 11811.02 pixels per metre, rounded (unit specifier 1 = metre).
+    expect(png.readUInt32BE(offset + 8)).toBe(11811);
+    expect(png.readUInt32BE(offset + 12)).toBe(11811);
+    expect(png.readUInt8(offset + 16)).toBe(1);
+    expect(png.readUInt32BE(offset + 17)).toBe(crc32(png.subarray(offset + 4, offset + 17)));
+    expect(png.toString('latin1').split('pHYs').length - 1).toBe(1);
+    decodePng(png);
+  });
+
+  it('records the resolution implied by a pixel width: 1200 px for a 600 px (6.25 in) figure is 192 dpi', () => {
+    const png = svgToPng(svgDocument(600, 100, 'wide', [], []), 1200);
+    const offset = 8 + 12 + png.readUInt32BE(8);
+    expect(png.readUInt32BE(offset + 8)).toBe(Math.round(192 / 0.0254));
   });
 
   it('throws figure.bad_png_width for a width that is not a whole number of pixels in range', () => {
