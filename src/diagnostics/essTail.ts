@@ -1,7 +1,7 @@
 import { assertNotConstant, assertUsableChains } from './checkChains.js';
-import { concatenateChains } from './moments.js';
+import { concatenateChains } from './concatenateChains.js';
 import { effectiveSampleSizeOfChains } from './multiChainEffectiveSampleSize.js';
-import { quantileOfDraws } from './quantileOfDraws.js';
+import { quantileOfDraws } from '../math/index.js';
 import { splitChains } from './splitChains.js';
 
 /** Lower quantile probed by the tail ESS (Vehtari et al. 2021, sec. 4.3). */

@@ -1,4 +1,4 @@
-import { concatenateChains } from './moments.js';
+import { concatenateChains } from './concatenateChains.js';
 
 /**
  * Folds draws about their pooled median, |x - median| (Vehtari et al. 2021,

@@ -14,7 +14,6 @@ export { mcseMean } from './mcseMean.js';
 export { splitChains } from './splitChains.js';
 export { rankNormalize, RANK_OFFSET } from './rankNormalize.js';
 export { foldAboutMedian } from './foldAboutMedian.js';
-export { quantileOfDraws } from './quantileOfDraws.js';
 export { MINIMUM_DRAWS_PER_CHAIN, CONSTANT_SPREAD_TOLERANCE } from './checkChains.js';
 
 // Ensemble samplers

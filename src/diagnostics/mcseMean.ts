@@ -1,5 +1,6 @@
 import { essMean } from './essMean.js';
-import { concatenateChains, sampleVarianceOf } from './moments.js';
+import { sampleVarianceOf } from '../math/index.js';
+import { concatenateChains } from './concatenateChains.js';
 
 /**
  * Monte Carlo standard error of the posterior mean: sd / sqrt(ESS_mean), with

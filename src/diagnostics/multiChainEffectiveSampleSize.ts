@@ -1,7 +1,6 @@
-import { compensatedSum } from '../math/index.js';
+import { compensatedSum, meanOf, sampleVarianceOf } from '../math/index.js';
 import { assertNotConstant } from './checkChains.js';
 import { createAutocovarianceWorkspace } from './autocovariance.js';
-import { meanOf, sampleVarianceOf } from './moments.js';
 
 /**
  * Effective sample size of m chains of n draws taken as they are (no

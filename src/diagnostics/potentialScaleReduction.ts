@@ -1,5 +1,5 @@
 import { assertNotConstant } from './checkChains.js';
-import { meanOf, sampleVarianceOf } from './moments.js';
+import { meanOf, sampleVarianceOf } from '../math/index.js';
 
 /**
  * Potential scale reduction factor of m chains of n draws taken as they are
@@ -23,7 +23,7 @@ export function potentialScaleReductionOfChains(chains: readonly Float64Array[],
   chains.forEach((chain, chainIndex) => {
     const mean = meanOf(chain);
     chainMeans[chainIndex] = mean;
-    varianceSum += sampleVarianceOf(chain, mean);
+    varianceSum += sampleVarianceOf(chain);
   });
   const betweenVariance = drawCount * sampleVarianceOf(chainMeans);
   const withinVariance = varianceSum / chains.length;

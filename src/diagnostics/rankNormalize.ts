@@ -1,6 +1,6 @@
 import { ascendingOrder } from './ascendingOrder.js';
 import { inverseNormalCdf } from '../math/index.js';
-import { concatenateChains } from './moments.js';
+import { concatenateChains } from './concatenateChains.js';
 
 /** Blom's offset c in (r - c) / (S - 2c + 1) (Blom 1958; Vehtari et al. 2021, eq. 14 uses c = 3/8). */
 export const RANK_OFFSET = 3 / 8;

@@ -30,5 +30,15 @@ export { regularizedGammaP } from './special/regularizedGamma.js';
 export { regularizedGammaQ } from './special/regularizedGamma.js';
 export { logRegularizedGammaQ } from './special/regularizedGamma.js';
 
+// Weighted statistics of samples
+export { checkSamples } from './statistics/checkSamples.js';
+export { weightedMoments, meanOf, sampleVarianceOf } from './statistics/weightedMoments.js';
+export type { WeightedMoments } from './statistics/weightedMoments.js';
+export { kishEffectiveCount } from './statistics/kishEffectiveCount.js';
+export { sortSample } from './statistics/sortSample.js';
+export type { SortedSample } from './statistics/sortSample.js';
+export { weightedQuantileOfSorted, weightedQuantiles } from './statistics/weightedQuantile.js';
+export { quantileOfDraws, quantileOfSortedDraws } from './statistics/quantileOfDraws.js';
+
 // Text
 export { editDistance } from './text/editDistance.js';

@@ -1,17 +1,10 @@
 // output layer barrel: one export per line, grouped by topic.
 
-// Posterior summaries: weighted statistics, intervals, MAP, correlations.
+// Posterior summaries: intervals, MAP, correlations (the weighted statistics themselves live in math/statistics).
 export { ONE_SIGMA_MASS } from './summaries/credibleMass.js';
 export { TWO_SIGMA_MASS } from './summaries/credibleMass.js';
-export { sortSample } from './summaries/sortSample.js';
-export type { SortedSample } from './summaries/sortSample.js';
-export { weightedQuantileOfSorted } from './summaries/weightedQuantile.js';
-export { weightedQuantiles } from './summaries/weightedQuantile.js';
 export { highestDensityInterval } from './summaries/highestDensityInterval.js';
 export { highestDensityIntervalOfSorted } from './summaries/highestDensityInterval.js';
-export { kishEffectiveCount } from './summaries/kishEffectiveCount.js';
-export { weightedMoments } from './summaries/weightedMoments.js';
-export type { WeightedMoments } from './summaries/weightedMoments.js';
 export { weightedCorrelationMatrix } from './summaries/weightedCorrelationMatrix.js';
 export { sampleStatistics } from './summaries/sampleStatistics.js';
 export type { SampleStatistics } from './summaries/sampleStatistics.js';

@@ -1,4 +1,4 @@
-import { weightedQuantiles } from '../output/index.js';
+import { weightedQuantiles } from '../math/index.js';
 import type { AnalyzedRun } from './compareInputs.js';
 import { resampleRowsByWeight } from './nestedResampleRows.js';
 

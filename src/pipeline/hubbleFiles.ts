@@ -1,6 +1,6 @@
 import { join } from 'node:path';
 import { createCosmology } from '../cosmology/index.js';
-import { createRandomStream, deriveSeed } from '../math/index.js';
+import { createRandomStream, deriveSeed, quantileOfSortedDraws } from '../math/index.js';
 import { writeFileAtomic } from '../output/index.js';
 import type { HubbleDiagram } from '../likelihood/index.js';
 import type { BuiltModel } from './buildModel.js';
@@ -16,13 +16,6 @@ const CMB_TEMPERATURE_K = 2.7255;
 
 function csvNumber(value: number): string {
   return Number.isFinite(value) ? String(value) : '';
-}
-
-function quantileOfSorted(sorted: Float64Array, probability: number): number {
-  const position = probability * (sorted.length - 1);
-  const low = Math.floor(position);
-  const high = Math.min(low + 1, sorted.length - 1);
-  return sorted[low] + (position - low) * (sorted[high] - sorted[low]);
 }
 
 /**
@@ -99,7 +92,7 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: E
   for (let i = 0; i < CURVE_POINTS; i++) {
     curves.forEach((c, k) => { column[k] = c[i]; });
     column.sort();
-    modelLines.push([grid[i], bestCurve[i], quantileOfSorted(column, 0.5), quantileOfSorted(column, 0.158655), quantileOfSorted(column, 0.841345)].map(csvNumber).join(','));
+    modelLines.push([grid[i], bestCurve[i], quantileOfSortedDraws(column, 0.5), quantileOfSortedDraws(column, 0.158655), quantileOfSortedDraws(column, 0.841345)].map(csvNumber).join(','));
   }
   writeFileAtomic(join(runDir, RUN_FILES.hubbleModel), `${modelLines.join('\n')}\n`);
 }

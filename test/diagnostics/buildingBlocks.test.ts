@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { foldAboutMedian, quantileOfDraws, rankNormalize, splitChains } from '../../src/diagnostics/index.js';
+import { foldAboutMedian, rankNormalize, splitChains } from '../../src/diagnostics/index.js';
 import { ascendingOrder } from '../../src/diagnostics/ascendingOrder.js';
 import { averageRanks } from '../../src/diagnostics/rankNormalize.js';
 import { createRandomStream } from '../../src/math/index.js';
@@ -54,21 +54,5 @@ describe('rankNormalize', () => {
 describe('foldAboutMedian', () => {
   it('returns |x - median| with the pooled median (R: abs(x - median(x)) for c(1, 5, 2, 4) is 2 2 1 1)', () => {
     expect(foldAboutMedian([Float64Array.of(1, 5), Float64Array.of(2, 4)]).map((chain) => Array.from(chain))).toEqual([[2, 2], [1, 1]]);
-  });
-});
-
-describe('quantileOfDraws', () => {
-  it('is the type-7 sample quantile of Hyndman & Fan (1996), as R quantile() prints it', () => {
-    // R 4.2.2: quantile(1:10, c(0.05, 0.95, 0.5)) = 1.45, 9.5499999999999989, 5.5
-    const oneToTen = Float64Array.from({ length: 10 }, (_, index) => index + 1);
-    expect(quantileOfDraws(oneToTen, 0.05)).toBe(1.45);
-    expect(quantileOfDraws(oneToTen, 0.95)).toBe(9.5499999999999989);
-    expect(quantileOfDraws(oneToTen, 0.5)).toBe(5.5);
-    // R 4.2.2: quantile(c(0.3, -1.2, 5, 2.2, 2.2, 7.5, -0.1), c(0.05, 0.37, 0.95)) = -0.87, 0.71799999999999953, 6.74999999999999822
-    const unsorted = Float64Array.of(0.3, -1.2, 5, 2.2, 2.2, 7.5, -0.1);
-    expect(quantileOfDraws(unsorted, 0.05)).toBeCloseTo(-0.87, 15);
-    expect(quantileOfDraws(unsorted, 0.37)).toBeCloseTo(0.71799999999999953, 15);
-    expect(quantileOfDraws(unsorted, 0.95)).toBeCloseTo(6.74999999999999822, 14);
-    expect(quantileOfDraws(Float64Array.of(4, 1, 3, 2), 0.5)).toBe(2.5);
   });
 });

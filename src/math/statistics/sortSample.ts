@@ -1,4 +1,4 @@
-import { checkSamples } from './sampleErrors.js';
+import { checkSamples } from './checkSamples.js';
 
 /**
  * A sample sorted by value with its running (cumulative) weight, the common

@@ -24,12 +24,12 @@ const QUANTILE_TIE_TOLERANCE = 1e-12;
  * @param sample output of {@link sortSample}.
  * @param probability p in [0, 1].
  * @returns the quantile, in the unit of the sample.
- * @throws CandelaError `output.bad_probability` when p is outside [0, 1].
+ * @throws CandelaError `math.bad_probability` when p is outside [0, 1].
  * @example weightedQuantileOfSorted(sortSample([1, 2, 3, 4]), 0.5) // 2.5
  */
 export function weightedQuantileOfSorted(sample: SortedSample, probability: number): number {
   if (!(probability >= 0 && probability <= 1)) {
-    throw new CandelaError({ code: 'output.bad_probability', message: 'a quantile needs a probability between 0 and 1', expected: '0 <= p <= 1', found: String(probability) });
+    throw new CandelaError({ code: 'math.bad_probability', message: 'a quantile needs a probability between 0 and 1', expected: '0 <= p <= 1', found: String(probability) });
   }
   const { values, cumulativeWeight, totalWeight } = sample;
   const target = probability * totalWeight;

@@ -1,5 +1,5 @@
 import { CandelaError } from '../../errors.js';
-import { weightedMoments } from '../summaries/weightedMoments.js';
+import { weightedMoments } from '../../math/index.js';
 import type { DensityGrid2D, DensityGridOptions } from './densityTypes.js';
 import { kernelBandwidth } from './kernelBandwidth.js';
 import { convolveAxis, fineCoordinate, planKernelAxis, reflectedPositions } from './kernelGridAxis.js';

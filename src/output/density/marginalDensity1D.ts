@@ -1,6 +1,4 @@
-import { sortSample } from '../summaries/sortSample.js';
-import { weightedMoments } from '../summaries/weightedMoments.js';
-import { weightedQuantileOfSorted } from '../summaries/weightedQuantile.js';
+import { sortSample, weightedMoments, weightedQuantileOfSorted } from '../../math/index.js';
 import type { MarginalDensity1D, MarginalDensityOptions } from './densityTypes.js';
 import { kernelBandwidth } from './kernelBandwidth.js';
 import { convolveAxis, fineCoordinate, planKernelAxis, reflectedPositions } from './kernelGridAxis.js';

@@ -1,6 +1,6 @@
 import { CandelaError } from '../../errors.js';
-import { sortSample } from './sortSample.js';
-import type { SortedSample } from './sortSample.js';
+import { sortSample } from '../../math/index.js';
+import type { SortedSample } from '../../math/index.js';
 
 /** Relative tolerance (times the total weight) for "the window holds the requested mass". */
 const MASS_TOLERANCE = 1e-12;

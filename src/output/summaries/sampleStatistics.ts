@@ -1,8 +1,6 @@
 import { ONE_SIGMA_MASS, TWO_SIGMA_MASS } from './credibleMass.js';
 import { highestDensityIntervalOfSorted } from './highestDensityInterval.js';
-import { sortSample } from './sortSample.js';
-import { weightedMoments } from './weightedMoments.js';
-import { weightedQuantileOfSorted } from './weightedQuantile.js';
+import { sortSample, weightedMoments, weightedQuantileOfSorted } from '../../math/index.js';
 
 /** Summary statistics of one parameter's posterior samples (all in the parameter's unit). */
 export interface SampleStatistics {

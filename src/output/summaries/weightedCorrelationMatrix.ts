@@ -1,5 +1,5 @@
 import { CandelaError } from '../../errors.js';
-import { checkSamples } from './sampleErrors.js';
+import { checkSamples } from '../../math/index.js';
 
 /**
  * Weighted Pearson correlation matrix of several columns of the same

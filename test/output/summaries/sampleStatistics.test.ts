@@ -1,10 +1,9 @@
-import { mean as ssMean, quantileSorted, sampleCorrelation, sampleStandardDeviation } from 'simple-statistics';
+import { sampleCorrelation } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { isCandelaError } from '../../../src/errors.js';
 import { createRandomStream } from '../../../src/math/index.js';
 import {
-  highestDensityInterval, kishEffectiveCount, ONE_SIGMA_MASS, sampleStatistics, summarizePosterior, TWO_SIGMA_MASS,
-  weightedCorrelationMatrix, weightedMoments, weightedQuantiles,
+  highestDensityInterval, ONE_SIGMA_MASS, sampleStatistics, summarizePosterior, TWO_SIGMA_MASS, weightedCorrelationMatrix,
 } from '../../../src/output/index.js';
 
 // Fixed weighted sample of test/fixtures/output/make_summary_reference.R (section 1).
@@ -22,61 +21,16 @@ function exponentialSample(seed: string, count: number): Float64Array {
   return Float64Array.from({ length: count }, () => -Math.log(1 - stream.uniform()));
 }
 
-describe('weightedQuantiles', () => {
-  it('equals R quantile(type = 2) of the sample with each value repeated weight times', () => {
-    // R 4.2.2: quantile(rep(values, weights), probs, type = 2) (make_summary_reference.R), exact.
-    const probabilities = [0, 0.02275, 0.158655, 0.25, 0.5, 0.75, 0.841345, 0.97725, 1];
-    const fromR = [-1.2, -1.2, -0.4, -0.4, 0.8, 2.8, 2.8, 2.8, 2.8];
-    const ours = weightedQuantiles(VALUES, probabilities, WEIGHTS);
-    ours.forEach((value, k) => expect(value).toBeCloseTo(fromR[k], 14));
-  });
-
-  it('does not depend on the scale of the weights and matches the expanded sample for integer weights', () => {
-    // Definition check (Hyndman & Fan 1996, definition 2): integer weights = repeat counts; the rule uses weight ratios only.
-    const stream = createRandomStream('quantile-expansion');
-    const values = Float64Array.from({ length: 400 }, () => stream.normal());
-    const weights = Float64Array.from({ length: 400 }, () => stream.integer(5));
-    const expanded: number[] = [];
-    values.forEach((value, i) => { for (let k = 0; k < weights[i]; k++) expanded.push(value); });
-    const probabilities = [0, 0.01, 0.1, 0.158655, 0.25, 0.5, 0.6, 0.841345, 0.97725, 1];
-    const fromExpanded = weightedQuantiles(expanded, probabilities);
-    expect(weightedQuantiles(values, probabilities, weights)).toEqual(fromExpanded);
-    const scaled = weights.map((w) => w / 7);
-    expect(weightedQuantiles(values, probabilities, scaled)).toEqual(fromExpanded);
-  });
-
-  it('stays within one sample spacing of the interpolated quantiles of simple-statistics (definition 7)', () => {
-    // simple-statistics quantileSorted (R type 7) is a general-purpose reference; the two definitions differ by at most one gap.
-    const sorted = Float64Array.from(normalSample('quantile-cross', 1001)).sort();
-    for (const p of [0.05, 0.158655, 0.5, 0.841345, 0.95]) {
-      const ours = weightedQuantiles(sorted, [p])[0];
-      const reference = quantileSorted(Array.from(sorted), p);
-      const index = Math.floor(p * 1000);
-      expect(Math.abs(ours - reference)).toBeLessThanOrEqual(sorted[index + 1] - sorted[index - 1]);
-    }
-  });
-});
-
-describe('weightedMoments and weightedCorrelationMatrix', () => {
-  it('match R cov.wt(method = "unbiased") on a weighted sample', () => {
+describe('weightedCorrelationMatrix', () => {
+  it('matches R cov.wt(method = "unbiased") on a weighted sample', () => {
     // R 4.2.2 stats::cov.wt with weights / sum(weights) (make_summary_reference.R), to 1e-14 relative.
-    const first = weightedMoments(VALUES, WEIGHTS);
-    const second = weightedMoments(OTHER, WEIGHTS);
-    expect(first.mean).toBeCloseTo(0.96428571428571419, 14);
-    expect(second.mean).toBeCloseTo(0.82857142857142851, 14);
-    expect(first.sd).toBeCloseTo(1.6242883056896025, 14);
-    expect(second.sd).toBeCloseTo(1.0301698889018258, 14);
     expect(weightedCorrelationMatrix([VALUES, OTHER], WEIGHTS)[1]).toBeCloseTo(0.93886730577299693, 14);
   });
 
-  it('match simple-statistics mean, sampleStandardDeviation and sampleCorrelation without weights', () => {
+  it('matches simple-statistics sampleCorrelation without weights', () => {
     const x = normalSample('moments-x', 5000);
     const noise = normalSample('moments-noise', 5000);
     const y = x.map((value, i) => 0.6 * value + 0.8 * noise[i] + 3);
-    const moments = weightedMoments(y);
-    expect(moments.mean).toBeCloseTo(ssMean(Array.from(y)), 12);
-    expect(moments.sd).toBeCloseTo(sampleStandardDeviation(Array.from(y)), 12);
-    expect(moments.effectiveCount).toBe(5000);
     const matrix = weightedCorrelationMatrix([x, y]);
     expect(matrix[0]).toBe(1);
     expect(matrix[1]).toBeCloseTo(sampleCorrelation(Array.from(x), Array.from(y)), 12);
@@ -86,13 +40,6 @@ describe('weightedMoments and weightedCorrelationMatrix', () => {
   it('gives a constant column zero correlation instead of NaN', () => {
     const matrix = weightedCorrelationMatrix([[1, 2, 3], [5, 5, 5]]);
     expect(Array.from(matrix)).toEqual([1, 0, 0, 1]);
-  });
-});
-
-describe('kishEffectiveCount', () => {
-  it('is (sum w)^2 / sum w^2 (Kish 1965)', () => {
-    expect(kishEffectiveCount([1, 1, 2])).toBeCloseTo(16 / 6, 15);
-    expect(kishEffectiveCount([0.25, 0.25, 0.25, 0.25])).toBeCloseTo(4, 15);
   });
 });
 
@@ -172,7 +119,7 @@ describe('summarizePosterior', () => {
       expect.unreachable();
     } catch (error) {
       expect(isCandelaError(error)).toBe(true);
-      if (isCandelaError(error)) expect(error.issues[0]).toMatchObject({ code: 'output.non_finite_sample', path: 'omega_m', row: 2 });
+      if (isCandelaError(error)) expect(error.issues[0]).toMatchObject({ code: 'math.non_finite_sample', path: 'omega_m', row: 2 });
     }
   });
 });
