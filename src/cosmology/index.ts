@@ -36,3 +36,8 @@ export type { BaoDistanceKind } from './baoDistanceRatios.js';
 export { dragRedshift } from './dragRedshift.js';
 export { dragSoundHorizonFitMpc } from './dragSoundHorizonFitMpc.js';
 export { decouplingRedshift } from './decouplingRedshift.js';
+export { comovingSoundHorizonMpc } from './comovingSoundHorizonMpc.js';
+export { cmbShiftParameter } from './cmbShiftParameter.js';
+export { acousticScale } from './acousticScale.js';
+export { compressedCmbDistances } from './compressedCmbDistances.js';
+export type { CompressedCmbDistances } from './compressedCmbDistances.js';
