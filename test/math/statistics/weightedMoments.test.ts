@@ -1,16 +1,7 @@
 import { mean as ssMean, sampleStandardDeviation, sampleVariance } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { createRandomStream, meanOf, sampleVarianceOf, weightedMoments } from '../../../src/math/index.js';
-
-// Fixed weighted sample of test/fixtures/output/make_summary_reference.R (section 1).
-const VALUES = [2.1, -0.4, 3.3, 0.7, 1.5, 2.8, -1.2, 0.9];
-const OTHER = [1.0, 0.2, 2.9, 0.1, 1.7, 2.0, -0.5, 1.1];
-const WEIGHTS = [1, 3, 0, 2, 1, 4, 2, 1];
-
-function normalSample(seed: string, count: number): Float64Array {
-  const stream = createRandomStream(seed);
-  return Float64Array.from({ length: count }, () => stream.normal());
-}
+import { meanOf, sampleVarianceOf, weightedMoments } from '../../../src/math/index.js';
+import { VALUES, OTHER, WEIGHTS, normalSample } from './referenceSample.js';
 
 describe('weightedMoments', () => {
   it('match R cov.wt(method = "unbiased") on a weighted sample', () => {

@@ -1,15 +1,7 @@
 import { quantileSorted } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { createRandomStream, weightedQuantiles } from '../../../src/math/index.js';
-
-// Fixed weighted sample of test/fixtures/output/make_summary_reference.R (section 1).
-const VALUES = [2.1, -0.4, 3.3, 0.7, 1.5, 2.8, -1.2, 0.9];
-const WEIGHTS = [1, 3, 0, 2, 1, 4, 2, 1];
-
-function normalSample(seed: string, count: number): Float64Array {
-  const stream = createRandomStream(seed);
-  return Float64Array.from({ length: count }, () => stream.normal());
-}
+import { VALUES, WEIGHTS, normalSample } from './referenceSample.js';
 
 describe('weightedQuantiles', () => {
   it('equals R quantile(type = 2) of the sample with each value repeated weight times', () => {

@@ -5,16 +5,7 @@ import { createRandomStream } from '../../../src/math/index.js';
 import {
   highestDensityInterval, ONE_SIGMA_MASS, sampleStatistics, summarizePosterior, TWO_SIGMA_MASS, weightedCorrelationMatrix,
 } from '../../../src/output/index.js';
-
-// Fixed weighted sample of test/fixtures/output/make_summary_reference.R (section 1).
-const VALUES = [2.1, -0.4, 3.3, 0.7, 1.5, 2.8, -1.2, 0.9];
-const OTHER = [1.0, 0.2, 2.9, 0.1, 1.7, 2.0, -0.5, 1.1];
-const WEIGHTS = [1, 3, 0, 2, 1, 4, 2, 1];
-
-function normalSample(seed: string, count: number): Float64Array {
-  const stream = createRandomStream(seed);
-  return Float64Array.from({ length: count }, () => stream.normal());
-}
+import { VALUES, OTHER, WEIGHTS, normalSample } from '../../math/statistics/referenceSample.js';
 
 function exponentialSample(seed: string, count: number): Float64Array {
   const stream = createRandomStream(seed);
