@@ -13,7 +13,7 @@ import type { Cosmology } from './cosmology.js';
  * @param redshift z, usually z* from decouplingRedshift (>= 0).
  * @returns l_A, dimensionless (a multipole).
  * @throws CandelaError as comovingSoundHorizonMpc.
- * @example acousticScale(planck2018BestFit, 0.02237, 1089.92) // => 301.6... (dimensionless)
+ * @example acousticScale(planck2018BestFit, 0.02237, 1089.92) // => 301.98... (flat, Omega_m 0.3153, H0 67.36, radiation on)
  */
 export function acousticScale(cosmology: Cosmology, omegaBaryonH2: number, redshift: number): number {
   const soundHorizonMpc = comovingSoundHorizonMpc(cosmology, omegaBaryonH2, redshift);

@@ -12,7 +12,7 @@ import type { Cosmology } from './cosmology.js';
  * @param redshift z, usually z* from decouplingRedshift (>= 0).
  * @returns R, dimensionless.
  * @throws CandelaError cosmology.redshift_out_of_range.
- * @example cmbShiftParameter(planck2018BestFit, 1089.92) // => 1.750... (dimensionless)
+ * @example cmbShiftParameter(planck2018BestFit, 1089.92) // => 1.7496... (flat, Omega_m 0.3153, H0 67.36, radiation on)
  */
 export function cmbShiftParameter(cosmology: Cosmology, redshift: number): number {
   return Math.sqrt(cosmology.omegaMatter) * cosmology.transverseComovingDistanceMpc(redshift) / cosmology.hubbleDistanceMpc;

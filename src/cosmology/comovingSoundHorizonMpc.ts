@@ -32,7 +32,7 @@ const SOUND_HORIZON_RELATIVE_TOLERANCE = 1e-11;
  * @returns r_s(z), comoving, Mpc.
  * @throws CandelaError cosmology.radiation_required, cosmology.redshift_range_too_small,
  *   cosmology.physical_density_invalid, cosmology.redshift_out_of_range, cosmology.quadrature_not_converged.
- * @example comovingSoundHorizonMpc(planckLike, 0.02237, 1090) // => 144.7... Mpc
+ * @example comovingSoundHorizonMpc(planckLike, 0.02237, 1089.92) // => 144.2656... Mpc (flat, Omega_m 0.3153, H0 67.36, T_CMB 2.7255 K, N_eff 3.046)
  */
 export function comovingSoundHorizonMpc(cosmology: Cosmology, omegaBaryonH2: number, redshift: number): number {
   const { cmbTemperatureK, effectiveNeutrinoSpecies, h0KmPerSPerMpc } = cosmology.parameters;

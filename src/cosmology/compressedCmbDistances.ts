@@ -33,7 +33,7 @@ export interface CompressedCmbDistances {
  * @throws CandelaError cosmology.radiation_required, cosmology.redshift_range_too_small,
  *   cosmology.physical_density_invalid, cosmology.last_scattering_unreachable (a closed universe whose
  *   D_M(z*) is not positive).
- * @example compressedCmbDistances(planck2018BestFit, 0.02237) // => { decouplingRedshift: 1091.9, shiftParameter: 1.750, acousticScale: 301.5, ... }
+ * @example compressedCmbDistances(planck2018BestFit, 0.02237) // => { decouplingRedshift: 1091.91, soundHorizonMpc: 144.09, shiftParameter: 1.7496, acousticScale: 302.35, ... }
  */
 export function compressedCmbDistances(cosmology: Cosmology, omegaBaryonH2: number): CompressedCmbDistances {
   checkEarlyUniverseCosmology(cosmology);
