@@ -16,8 +16,9 @@ const SOUND_HORIZON_RELATIVE_TOLERANCE = 1e-11;
  * Comoving sound horizon r_s(z) = int_z^inf c_s(z') / H(z') dz' of the
  * baryon-photon fluid, with c_s = c / sqrt(3 (1 + R_b)) and
  * R_b = 3 rho_b / (4 rho_gamma) = (3 omega_b / (4 omega_gamma)) / (1 + z)
- * (Hu & Sugiyama 1996, ApJ 471, 542, eqs. B5-B6; Eisenstein & Hu 1998,
- * ApJ 496, 605, eqs. 5-6). Integrated in the scale factor a = 1/(1+z),
+ * (Eisenstein & Hu 1998, ApJ 496, 605: R_b is their eq. 5, and their eq. 6 is
+ * this integral in closed form for matter and radiation alone; equation
+ * numbers from memory). Integrated in the scale factor a = 1/(1+z),
  *   r_s = (c/H0) int_0^a(z) da / (a^2 E(a) sqrt(3 (1 + R_b(a)))),
  * where a^2 E(a) -> sqrt(Omega_r) as a -> 0, so the infinite upper limit in z
  * becomes a finite, smooth integral (adaptive Gauss-Kronrod, never evaluated at

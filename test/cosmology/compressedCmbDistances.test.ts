@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { acousticScale, cmbShiftParameter, comovingSoundHorizonMpc, compressedCmbDistances, createCosmology, dragRedshift, CMB_TEMPERATURE_K } from '../../src/cosmology/index.js';
+import { acousticScale, cmbShiftParameter, comovingSoundHorizonMpc, compressedCmbDistances, createCosmology, dragRedshift, radiationDensity, CMB_TEMPERATURE_K } from '../../src/cosmology/index.js';
 import type { Cosmology, CosmologyParameters } from '../../src/cosmology/index.js';
 import { loadReferenceRows, parametersForRow, relativeDifference } from './referenceDistances.js';
 
@@ -130,6 +130,23 @@ describe('comovingSoundHorizonMpc', () => {
     const z = 1e8;
     const limit = cosmology.hubbleDistanceMpc / (1 + z) / Math.sqrt(3 * cosmology.omegaRadiation);
     expect(relativeDifference(comovingSoundHorizonMpc(cosmology, 0.02237, z), limit)).toBeLessThan(1e-4);
+  });
+
+  it('equals the closed form of Eisenstein & Hu (1998, eq. 6) in a flat universe of matter and radiation alone', () => {
+    // With a^2 E = sqrt(Omega_r + Omega_m a) and b = 3 omega_b / (4 omega_gamma), int da / sqrt((Omega_r + Omega_m a)(1 + b a))
+    // = (2 / sqrt(Omega_m b)) ln(sqrt(b (Omega_r + Omega_m a)) + sqrt(Omega_m (1 + b a))) (a standard integral; common practice).
+    const h = 0.7;
+    const radiation = radiationDensity(CMB_TEMPERATURE_K, 100 * h, 3.046);
+    const omegaMatter = 1 - radiation.total;
+    const matterRadiation = build({ darkEnergy: 'lambda', flat: false, omegaMatter, omegaDarkEnergy: 0, h0KmPerSPerMpc: 100 * h, cmbTemperatureK: CMB_TEMPERATURE_K });
+    const omegaBaryonH2 = 0.0224;
+    const b = (3 * omegaBaryonH2) / (4 * radiation.photons * h * h);
+    const primitive = (a: number): number => Math.log(Math.sqrt(b * (radiation.total + omegaMatter * a)) + Math.sqrt(omegaMatter * (1 + b * a)));
+    for (const z of [3000, 1090, 1020, 10]) {
+      const a = 1 / (1 + z);
+      const closedForm = (C_KM_PER_S / (100 * h)) / Math.sqrt(3) * (2 / Math.sqrt(omegaMatter * b)) * (primitive(a) - primitive(0));
+      expect(relativeDifference(comovingSoundHorizonMpc(matterRadiation, omegaBaryonH2, z), closedForm), `z = ${z}`).toBeLessThan(1e-11);
+    }
   });
 
   it('falls with redshift and with the baryon density', () => {
