@@ -4,9 +4,9 @@
  * path (no JS linear-algebra package works in place on typed arrays without
  * allocation).
  *
- * `choleskyInPlace` picks the fastest kernel available: the WebAssembly SIMD
- * kernel (wasmCholesky.ts) when the runtime has WebAssembly SIMD and the
- * matrix is large enough to repay copying it in and out, else the blocked,
+ * `choleskyInPlace` picks the fastest kernel available: from
+ * SMALL_CHOLESKY_DIMENSION on, the WebAssembly SIMD kernel (wasmCholesky.ts)
+ * when the runtime has WebAssembly SIMD, else the blocked,
  * register-tiled TypeScript kernel (blockedCholesky.ts), and for small
  * matrices the row-oriented Cholesky-Banachiewicz form (Golub & Van Loan,
  * Matrix Computations, 4th ed., algorithm 4.2.1), kept as
@@ -14,6 +14,7 @@
  * against and the baseline of the benchmark.
  */
 import { blockedCholeskyInPlace } from './blockedCholesky.js';
+import { wasmCholeskyAvailable, wasmCholeskyInPlace } from './wasmCholesky.js';
 
 /** Below this dimension the row-oriented kernel is used (tiles and copies do not pay off; same results as before for small matrices). */
 export const SMALL_CHOLESKY_DIMENSION = 32;
@@ -49,6 +50,7 @@ export interface CholeskySuccess {
  */
 export function choleskyInPlace(a: Float64Array, n: number): CholeskySuccess | CholeskyFailure {
   if (n < SMALL_CHOLESKY_DIMENSION) return referenceCholeskyInPlace(a, n);
+  if (wasmCholeskyAvailable()) return wasmCholeskyInPlace(a, n);
   return blockedCholeskyInPlace(a, n);
 }
 

@@ -2,16 +2,29 @@
 // factors of classic test matrices, agreement with the row-oriented reference kernel, and the
 // failure record. Sizes are chosen to cross the register tiles (4), the panels (64 rows) and
 // the k slices (256) of the blocked kernels, with ragged edges.
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { choleskyInPlace, referenceCholeskyInPlace, blockedCholeskyInPlace, logDeterminantFromCholesky, createRandomStream } from '../../src/math/index.js';
+import { choleskyInPlace, referenceCholeskyInPlace, blockedCholeskyInPlace, wasmCholeskyInPlace, wasmCholeskyAvailable, logDeterminantFromCholesky, createRandomStream } from '../../src/math/index.js';
+import { CHOLESKY_WASM_SOURCE_SHA256 } from '../../src/math/wasmCholeskyBinary.js';
 import type { CholeskyFailure, CholeskySuccess } from '../../src/math/index.js';
 
 type Kernel = (a: Float64Array, n: number) => CholeskySuccess | CholeskyFailure;
 const KERNELS: Array<[string, Kernel]> = [
   ['blockedCholeskyInPlace', blockedCholeskyInPlace],
+  ['wasmCholeskyInPlace', wasmCholeskyInPlace],
   ['choleskyInPlace (dispatch)', choleskyInPlace],
 ];
+
+describe('the WebAssembly SIMD kernel', () => {
+  it('is available in Node.js 20 (WebAssembly SIMD is on by default since Node.js 16.4, from memory)', () => {
+    expect(wasmCholeskyAvailable()).toBe(true);
+  });
+  it('was compiled from the AssemblyScript source in the repository as it is now (npm run build:wasm)', () => {
+    const source = readFileSync('wasm/choleskyKernel.ts');
+    expect(createHash('sha256').update(source).digest('hex')).toBe(CHOLESKY_WASM_SOURCE_SHA256);
+  });
+});
 
 /** Agreement asked of every fast kernel: 1e-10 of the row's norm ||L_i|| = sqrt(A_ii) (common practice: a norm-wise relative bound, since entries that cancel to near zero have no meaningful elementwise relative error). */
 const AGREEMENT = 1e-10;
