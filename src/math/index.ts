@@ -5,8 +5,6 @@ export type { CholeskyFailure, CholeskySuccess } from './cholesky.js';
 export { referenceCholeskyInPlace, SMALL_CHOLESKY_DIMENSION } from './cholesky.js';
 export { blockedCholeskyInPlace, BLOCK_ROWS, BLOCK_DEPTH } from './blockedCholesky.js';
 export { wasmCholeskyInPlace, wasmCholeskyAvailable } from './wasmCholesky.js';
-export { referenceCholeskyInPlace, SMALL_CHOLESKY_DIMENSION } from './cholesky.js';
-export { blockedCholeskyInPlace, BLOCK_ROWS, BLOCK_DEPTH } from './blockedCholesky.js';
 export { createRandomStream, deriveSeed } from './random.js';
 export type { RandomStream, RandomState } from './random.js';
 export { SPEED_OF_LIGHT_KM_PER_S, MEGAPARSEC_KM, GIGAYEAR_S, STEFAN_BOLTZMANN_W_PER_M2_K4, GRAVITATIONAL_CONSTANT_SI, SPEED_OF_LIGHT_M_PER_S, FIVE_OVER_LN10, HALF_LOG_TWO_PI } from './constants.js';
