@@ -8,7 +8,7 @@ import { checkPhysicalDensities } from './checkPhysicalDensities.js';
  *   g2 = 0.560 / [1 + 21.1 (omega_b)^1.81],
  * with omega_b = Omega_b h^2 and omega_m = Omega_m h^2 (their Omega_0 h^2).
  * It is the z* of the compressed CMB distance priors (e.g. Chen, Huang &
- * Wang 2019, JCAP 02, 028). Accuracy: about 1% over the paper's range; at
+ * Wang 2019, JCAP 02, 028). Accuracy: about 1% over the paper's range (from memory); at
  * Planck-like parameters it lies 0.2% above the Planck 2018 z* = 1089.9.
  * Cost: O(1).
  * @param omegaBaryonH2 omega_b = Omega_b h^2 (> 0).

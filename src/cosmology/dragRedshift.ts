@@ -8,7 +8,7 @@ import { checkPhysicalDensities } from './checkPhysicalDensities.js';
  *   b1 = 0.313 (omega_m)^-0.419 [1 + 0.607 (omega_m)^0.674],
  *   b2 = 0.238 (omega_m)^0.223,
  * with omega_m = Omega_m h^2 and omega_b = Omega_b h^2 (their Omega_0 h^2 and Omega_b h^2).
- * The paper states it fits their recombination calculation to 1%
+ * The paper states (from memory) that it fits their recombination calculation to 1%
  * (0.025 <= omega_m <= 0.64). It is known to fall about 4% below the drag
  * redshift of modern Boltzmann codes (about 1020 against 1060 at Planck-like
  * parameters), because the definitions of the epoch differ; the sound
