@@ -1,16 +1,27 @@
 import { escapeXml } from './escapeXml.js';
 import { FIGURE_STYLE } from './figureStyle.js';
 import { estimatePlainTextWidthPx } from './richTextSvg.js';
+import { formatPixels } from './formatPixels.js';
+import { markerPathData, truthMarkerPathData } from './markerPathData.js';
 import { svgElement } from './svgElement.js';
 
 /** One legend entry: plain-text label, colour and the kind of key drawn beside it. */
 export interface LegendEntry {
   label: string;
   color: string;
-  /** `fill`: filled swatch; `line`: solid line; `dashed`: dashed line; `marker`: dot with an error bar. */
-  key: 'fill' | 'line' | 'dashed' | 'marker';
+  /**
+   * `fill`: filled swatch; `region`: a credible-region swatch as the triangle
+   * figure draws it (hatched inside a heavy outline, within a light outline);
+   * `line`: solid line; `dashed`: the reference dot-dash line; `dotted`: the
+   * dotted line of constraints such as a flat universe; `marker`: a
+   * filled marker with an error bar; `open-marker`: an open circle with an
+   * error bar (binned means); `truth`: the truth cross.
+   */
+  key: 'fill' | 'region' | 'line' | 'dashed' | 'dotted' | 'marker' | 'open-marker' | 'truth';
   /** Fill opacity of a `fill` key (default 0.75). */
   opacity?: number;
+  /** Marker shape of a `marker` key (default circle). */
+  shape?: 'circle' | 'square' | 'diamond';
 }
 
 /** A drawn legend and the room it takes (px). */
@@ -35,16 +46,35 @@ const TEXT_MIDDLE_FRACTION = 0.35;
 
 function drawKey(entry: LegendEntry, xPx: number, middlePx: number): string {
   const common = { stroke: entry.color, fill: 'none' };
+  const centreX = xPx + KEY_WIDTH_PX / 2;
   switch (entry.key) {
+    case 'region': {
+      const top = middlePx - KEY_HEIGHT_PX / 2;
+      const hatch = Array.from({ length: 5 }, (_, k) => `M${formatPixels(xPx + 2 + k * 3.5)} ${formatPixels(top + KEY_HEIGHT_PX - 1.5)}l${3} ${-(KEY_HEIGHT_PX - 3)}`).join('');
+      return svgElement('g', {}, [
+        svgElement('rect', { x: xPx - 1.5, y: top - 1.5, width: KEY_WIDTH_PX + 3, height: KEY_HEIGHT_PX + 3, ...common, 'stroke-width': 0.7 }),
+        svgElement('path', { ...common, 'stroke-width': 0.5, 'stroke-opacity': 0.7, d: hatch }),
+        svgElement('rect', { x: xPx + 1, y: top + 1, width: KEY_WIDTH_PX - 2, height: KEY_HEIGHT_PX - 2, ...common, 'stroke-width': 1.6 }),
+      ]);
+    }
+    case 'open-marker':
+      return svgElement('g', {}, [
+        svgElement('path', { ...common, 'stroke-width': 1, d: `M${centreX} ${middlePx - 5.5}v11` }),
+        svgElement('circle', { cx: centreX, cy: middlePx, r: 3, fill: FIGURE_STYLE.background, stroke: entry.color, 'stroke-width': 1.1 }),
+      ]);
+    case 'truth':
+      return svgElement('path', { ...common, 'stroke-width': 1.3, d: truthMarkerPathData(centreX, middlePx) });
     case 'fill':
       return svgElement('rect', { x: xPx, y: middlePx - KEY_HEIGHT_PX / 2, width: KEY_WIDTH_PX, height: KEY_HEIGHT_PX, fill: entry.color, 'fill-opacity': entry.opacity ?? 0.75, stroke: entry.color, 'stroke-width': 0.6 });
     case 'line':
+      return svgElement('path', { ...common, 'stroke-width': FIGURE_STYLE.lineStrokePx, d: `M${xPx} ${middlePx}h${KEY_WIDTH_PX}` });
     case 'dashed':
-      return svgElement('path', { ...common, 'stroke-width': FIGURE_STYLE.lineStrokePx, 'stroke-dasharray': entry.key === 'dashed' ? FIGURE_STYLE.referenceDash : undefined, d: `M${xPx} ${middlePx}h${KEY_WIDTH_PX}` });
+    case 'dotted':
+      return svgElement('path', { ...common, 'stroke-width': FIGURE_STYLE.referenceStrokePx * 1.2, 'stroke-dasharray': entry.key === 'dashed' ? FIGURE_STYLE.referenceDash : FIGURE_STYLE.constraintDash, d: `M${xPx} ${middlePx}h${KEY_WIDTH_PX}` });
     case 'marker':
       return svgElement('g', {}, [
-        svgElement('path', { ...common, 'stroke-width': FIGURE_STYLE.thinStrokePx, d: `M${xPx + KEY_WIDTH_PX / 2} ${middlePx - 5}v10` }),
-        svgElement('circle', { cx: xPx + KEY_WIDTH_PX / 2, cy: middlePx, r: 2.2, fill: entry.color }),
+        svgElement('path', { ...common, 'stroke-width': FIGURE_STYLE.thinStrokePx, d: `M${centreX} ${middlePx - 5}v10` }),
+        svgElement('path', { fill: entry.color, stroke: 'none', d: markerPathData(entry.shape ?? 'circle', centreX, middlePx, 2.4) }),
       ]);
   }
 }

@@ -1,40 +1,51 @@
 /**
- * The colour-blind-safe palette of Okabe, M. & Ito, K. (2008), "Color
- * Universal Design (CUD): how to make figures and presentations that are
- * friendly to colorblind people", https://jfly.uni-koeln.de/color/ .
- * Values as published there (sRGB hex).
+ * candela's own "lantern" palette (see docs/style.md). Six series colours,
+ * chosen so that every pair stays at least 28 CIELAB units apart (CIE 1976
+ * colour difference) for normal colour vision and for simulated
+ * protanopia, deuteranopia and tritanopia (the simulation matrices of
+ * Machado, Oliveira & Fernandes 2009, severity 1), with lightness between
+ * 35 and 66 so that thin lines and small markers read on white paper.
+ * Two neutral colours take the roles no data series may take: ink (axes,
+ * text, the model line, binned means, truth markers) and haze (model bands,
+ * burn-in). A series never borrows a role colour, and a role never borrows a
+ * series colour.
  */
-export const OKABE_ITO_COLORS = {
-  black: '#000000',
-  orange: '#E69F00',
-  skyBlue: '#56B4E9',
-  bluishGreen: '#009E73',
-  yellow: '#F0E442',
-  blue: '#0072B2',
-  vermillion: '#D55E00',
-  reddishPurple: '#CC79A7',
+export const LANTERN_COLORS = {
+  /** Series 1: a deep blue-violet. */
+  indigo: '#4C32D5',
+  /** Series 2: a burnt orange-brown. */
+  rust: '#AC3E06',
+  /** Series 3: a dark blue-green. */
+  pine: '#007553',
+  /** Series 4: a greyed lilac. */
+  pewter: '#8889A9',
+  /** Series 5: a warm yellow-orange. */
+  amber: '#DE8E07',
+  /** Series 6: a light clear blue. */
+  sky: '#17A9F6',
+  /** Role: axes, text, model curves, binned means, truth markers. */
+  ink: '#22252B',
+  /** Role: model bands and burn-in shading. */
+  haze: '#B8BEC9',
 } as const;
 
-/**
- * Order in which runs, samples and ensembles take colours: the darker Okabe-Ito
- * hues first; yellow is left out because it is too light on white paper.
- */
+/** Order in which runs, samples and ensembles take colours. */
 export const SERIES_COLORS: readonly string[] = [
-  OKABE_ITO_COLORS.blue,
-  OKABE_ITO_COLORS.vermillion,
-  OKABE_ITO_COLORS.bluishGreen,
-  OKABE_ITO_COLORS.reddishPurple,
-  OKABE_ITO_COLORS.orange,
-  OKABE_ITO_COLORS.skyBlue,
-  OKABE_ITO_COLORS.black,
+  LANTERN_COLORS.indigo,
+  LANTERN_COLORS.rust,
+  LANTERN_COLORS.pine,
+  LANTERN_COLORS.pewter,
+  LANTERN_COLORS.amber,
+  LANTERN_COLORS.sky,
 ];
 
 /**
- * Colour of the series at a position (wraps around after seven series).
+ * Colour of the series at a position (wraps around after six series; the
+ * figures then change the marker shape, see seriesMarkerShape).
  *
  * @param index 0-based series position
  * @returns a hex colour
- * @example seriesColor(1) // '#D55E00'
+ * @example seriesColor(1) // '#AC3E06'
  */
 export function seriesColor(index: number): string {
   const count = SERIES_COLORS.length;
@@ -42,9 +53,22 @@ export function seriesColor(index: number): string {
 }
 
 /**
+ * Marker shape of the series at a position: circles for the first six
+ * series, squares for the next six, diamonds after that, so that series
+ * sharing a colour still differ.
+ *
+ * @param index 0-based series position
+ * @returns the shape name
+ * @example seriesMarkerShape(7) // 'square'
+ */
+export function seriesMarkerShape(index: number): 'circle' | 'square' | 'diamond' {
+  const round = Math.floor(Math.max(0, Math.trunc(index)) / SERIES_COLORS.length);
+  return round === 0 ? 'circle' : round === 1 ? 'square' : 'diamond';
+}
+
+/**
  * Mixes a `#rrggbb` colour with white: fraction 0 keeps the colour, 1 gives
- * white. Used to derive the darker 68% fill and the lighter 95% fill from one
- * run colour. Colours that are not `#rrggbb` are returned unchanged.
+ * white. Colours that are not `#rrggbb` are returned unchanged.
  *
  * @param hexColor colour as `#rrggbb`
  * @param whiteFraction share of white, 0 to 1

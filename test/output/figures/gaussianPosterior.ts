@@ -2,7 +2,7 @@
 // figure functions take. The highest-density region holding mass p of a 2-D Gaussian is the
 // ellipse chi^2 = -2 ln(1 - p) (exact for two degrees of freedom; e.g. Press et al.,
 // Numerical Recipes, section 15.6: 2.30 for 68.3%, 6.18 for 95.4%).
-import type { ContourSet2D, MarginalDensity1D } from '../../../src/output/index.js';
+import type { ContourSet2D, MarginalDensity1D } from '../../../src/output/density/densityTypes.js';
 
 export interface GaussianSpec {
   parameters: string[];

@@ -11,7 +11,9 @@ import {
   linePathData,
   mixWithWhite,
   multiPolygonPathData,
-  OKABE_ITO_COLORS,
+  LANTERN_COLORS,
+  SERIES_COLORS,
+  seriesMarkerShape,
   seriesColor,
   svgDocument,
   svgElement,
@@ -123,14 +125,46 @@ describe('drawLegend', () => {
 });
 
 describe('palette', () => {
-  it('holds the Okabe & Ito (2008) colour-blind-safe hues', () => {
-    // Values published at https://jfly.uni-koeln.de/color/ (Okabe & Ito 2008), e.g. blue (0, 114, 178), vermillion (213, 94, 0).
-    expect(OKABE_ITO_COLORS.blue).toBe('#0072B2');
-    expect(OKABE_ITO_COLORS.vermillion).toBe('#D55E00');
-    expect(OKABE_ITO_COLORS.bluishGreen).toBe('#009E73');
-    expect(seriesColor(0)).toBe('#0072B2');
-    expect(seriesColor(7)).toBe(seriesColor(0));
+  // Colour-vision-deficiency simulation matrices of Machado, Oliveira & Fernandes (2009), severity 1.0,
+  // applied to linear sRGB (from memory); sRGB decoding (IEC 61966-2-1) and CIELAB with the D65 white
+  // (CIE 15:2004) as published.
+  const simulations: Record<string, number[][] | undefined> = {
+    normal: undefined,
+    protanopia: [[0.152286, 1.052583, -0.204868], [0.114503, 0.786281, 0.099216], [-0.003882, -0.048116, 1.051998]],
+    deuteranopia: [[0.367322, 0.860646, -0.227968], [0.280085, 0.672501, 0.047413], [-0.01182, 0.04294, 0.968881]],
+    tritanopia: [[1.255528, -0.076749, -0.178779], [-0.078411, 0.930809, 0.147602], [0.004733, 0.691367, 0.3039]],
+  };
+  const toLab = (hex: string, matrix?: number[][]) => {
+    const linear = [1, 3, 5].map((at) => Number.parseInt(hex.slice(at, at + 2), 16) / 255).map((c) => (c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4));
+    const [r, g, b] = (matrix ? matrix.map((row) => row[0] * linear[0] + row[1] * linear[1] + row[2] * linear[2]) : linear).map((v) => Math.min(1, Math.max(0, v)));
+    const xyz = [0.4124 * r + 0.3576 * g + 0.1805 * b, 0.2126 * r + 0.7152 * g + 0.0722 * b, 0.0193 * r + 0.1192 * g + 0.9505 * b];
+    const f = (t: number) => (t > 216 / 24389 ? Math.cbrt(t) : ((24389 / 27) * t + 16) / 116);
+    const [fx, fy, fz] = [f(xyz[0] / 0.95047), f(xyz[1]), f(xyz[2] / 1.08883)];
+    return [116 * fy - 16, 500 * (fx - fy), 200 * (fy - fz)];
+  };
+
+  it('keeps every pair of series colours at least 25 CIELAB units apart for normal and simulated dichromatic vision', () => {
+    for (const [name, matrix] of Object.entries(simulations)) {
+      const labs = SERIES_COLORS.map((hex) => toLab(hex, matrix));
+      let smallest = Infinity;
+      for (let i = 0; i < labs.length; i++) for (let j = i + 1; j < labs.length; j++) smallest = Math.min(smallest, Math.hypot(labs[i][0] - labs[j][0], labs[i][1] - labs[j][1], labs[i][2] - labs[j][2]));
+      // CIE 1976 difference; about 2.3 is just noticeable (Sharma 2003, from memory): 25 is far apart.
+      expect(smallest, name).toBeGreaterThan(25);
+    }
   });
+
+  it('keeps series colours dark enough for thin lines on white (CIELAB lightness 30..68) and never uses the role colours', () => {
+    for (const hex of SERIES_COLORS) {
+      const [lightness] = toLab(hex);
+      expect(lightness).toBeGreaterThan(30);
+      expect(lightness).toBeLessThan(68);
+      expect([LANTERN_COLORS.ink, LANTERN_COLORS.haze]).not.toContain(hex);
+    }
+    expect(seriesColor(0)).toBe(LANTERN_COLORS.indigo);
+    expect(seriesColor(SERIES_COLORS.length)).toBe(seriesColor(0));
+    expect([0, 6, 12].map(seriesMarkerShape)).toEqual(['circle', 'square', 'diamond']);
+  });
+
   it('mixWithWhite moves each channel linearly towards 255', () => {
     expect(mixWithWhite('#000000', 0.5)).toBe('#808080');
     expect(mixWithWhite('#0072B2', 0)).toBe('#0072b2');

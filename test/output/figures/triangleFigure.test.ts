@@ -1,7 +1,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { parameterRanges, triangleFigure } from '../../../src/output/figures/index.js';
-import type { ContourSet2D, MarginalDensity1D } from '../../../src/output/index.js';
+import type { ContourSet2D, MarginalDensity1D } from '../../../src/output/density/densityTypes.js';
 import { gaussianContours, gaussianMarginals } from './gaussianPosterior.js';
 import type { GaussianSpec } from './gaussianPosterior.js';
 import { findAll, hasClass, parseXml, textContent } from './xmlTree.js';
@@ -19,24 +19,54 @@ describe('triangleFigure', () => {
   const svg = triangleFigure(runs, three.parameters, { reference: { omega_m: 0.3, w0: -1 }, referenceLabel: 'mock input' });
   const tree = parseXml(svg);
 
-  it('is a well-formed SVG with one filled path per credible region per run per pair', () => {
+  it('is a well-formed SVG with one outline per credible region per run per pair, hatching inside the innermost only', () => {
     expect(tree.name).toBe('svg');
-    // 3 pairs x 2 runs x 2 regions (68% and 95%).
-    expect(findAll(tree, 'path', (node) => hasClass(node, 'region'))).toHaveLength(12);
-    expect(findAll(tree, 'path', (node) => hasClass(node, 'region-outline'))).toHaveLength(12);
+    // 3 pairs x 2 runs x 2 regions (68% and 95%); hatching: 3 pairs x 2 runs.
+    const regions = findAll(tree, 'path', (node) => hasClass(node, 'region'));
+    expect(regions).toHaveLength(12);
+    for (const region of regions) expect(region.attributes.fill).toBe('none');
+    expect(findAll(tree, 'path', (node) => hasClass(node, 'hatching'))).toHaveLength(6);
     expect(findAll(tree, 'path', (node) => hasClass(node, 'marginal'))).toHaveLength(6);
-    for (const region of findAll(tree, 'path', (node) => hasClass(node, 'region'))) expect(region.attributes['fill-rule']).toBe('evenodd');
+    expect(findAll(tree, 'path', (node) => hasClass(node, 'marginal-area'))).toHaveLength(6);
   });
 
-  it('fills the 68% region darker than the 95% region', () => {
+  it('draws the 68% region with a heavier outline than the 95% region', () => {
     const regions = findAll(tree, 'path', (node) => hasClass(node, 'region')).slice(0, 2);
-    const byMass = Object.fromEntries(regions.map((node) => [node.attributes['data-mass'], node.attributes.fill]));
-    expect(luminance(byMass['0.6827'])).toBeLessThan(luminance(byMass['0.9545']));
+    const byMass = Object.fromEntries(regions.map((node) => [node.attributes['data-mass'], Number(node.attributes['stroke-width'])]));
+    expect(byMass['0.6827']).toBeGreaterThan(byMass['0.9545']);
   });
 
-  it('has a legend entry per run plus the reference lines', () => {
+  it('hatches each run in its own direction, clipped to the region outline', () => {
+    const hatching = findAll(tree, 'path', (node) => hasClass(node, 'hatching'));
+    const direction = (d: string) => {
+      const [x0, y0, x1, y1] = (/^M([-\d.]+) ([-\d.]+)L([-\d.]+) ([-\d.]+)/.exec(d) ?? []).slice(1).map(Number);
+      return Math.sign((x1 - x0) * (y1 - y0));
+    };
+    expect(direction(hatching[0].attributes.d)).not.toBe(direction(hatching[1].attributes.d));
+    const clipIds = findAll(tree, 'clipPath').map((node) => node.attributes.id);
+    expect(clipIds.filter((id) => id.includes('hatch'))).toHaveLength(6);
+  });
+
+  it('frames every panel, with tick marks pointing into it', () => {
+    const frames = findAll(tree, 'path', (node) => hasClass(node, 'frame'));
+    // 3 marginal panels + 3 pair panels.
+    expect(frames).toHaveLength(6);
+    for (const frame of frames) expect(frame.attributes.d).toMatch(/Z$/);
+  });
+
+  it('puts the legend in a caption strip below the panels: a run entry each, then the truth marker', () => {
     const entries = findAll(tree, 'g', (node) => hasClass(node, 'legend-entry')).map(textContent);
-    expect(entries).toEqual(['Lyra stat only', 'Lyra stat+sys', 'mock input']);
+    expect(entries).toEqual(['Lyra stat only (68% hatched, 95% outline)', 'Lyra stat+sys (68% hatched, 95% outline)', 'mock input']);
+    const strip = findAll(tree, 'g', (node) => hasClass(node, 'caption-strip'))[0];
+    const ruleY = Number(/^M[-\d.]+ ([-\d.]+)/.exec(findAll(strip, 'path', (node) => hasClass(node, 'caption-rule'))[0].attributes.d)?.[1]);
+    const lowestClip = Math.max(...findAll(tree, 'clipPath').map((node) => node.children[0].attributes).filter((a) => a.y !== undefined).map((a) => Number(a.y) + Number(a.height)));
+    expect(ruleY).toBeGreaterThan(lowestClip);
+  });
+
+  it('marks the true values with a cross in the pair panel that has both and lines on the marginals', () => {
+    expect(findAll(tree, 'path', (node) => hasClass(node, 'truth'))).toHaveLength(1);
+    // omega_m and w0 marginals, and the two panels against h0 (one known coordinate each).
+    expect(findAll(tree, 'path', (node) => hasClass(node, 'truth-line'))).toHaveLength(4);
   });
 
   it('labels the axes with symbols: a real Ω with subscript m, units in brackets', () => {
@@ -86,6 +116,34 @@ describe('triangleFigure', () => {
     expect(code(() => triangleFigure([], ['omega_m']))).toBe('figure.no_runs');
     expect(code(() => triangleFigure(runs, []))).toBe('figure.no_parameters');
     expect(code(() => triangleFigure(runs, ['omega_m', 'wa']))).toBe('figure.no_density');
+  });
+});
+
+describe('triangleFigure flat-universe line', () => {
+  it('draws Omega_m + Omega_DE = 1 on the (omega_m, omega_de) panel of a curved model (the flat FLRW condition, common practice)', () => {
+    const curved: GaussianSpec = { parameters: ['omega_m', 'omega_de'], means: [0.3, 0.7], sigmas: [0.05, 0.1] };
+    const ranges = { omega_m: [0.1, 0.5] as const, omega_de: [0.4, 1.0] as const };
+    const figure = parseXml(triangleFigure([{ label: 'curved', marginals: gaussianMarginals(curved), contours: gaussianContours(curved) }], curved.parameters, { ranges, idPrefix: 'cv' }));
+    const lines = findAll(figure, 'path', (node) => hasClass(node, 'flat-universe'));
+    expect(lines).toHaveLength(1);
+    const clip = findAll(figure, 'clipPath', (node) => node.attributes.id === 'cv-clip-1-0')[0].children[0].attributes;
+    const [left, top, width, height] = [clip.x, clip.y, clip.width, clip.height].map(Number);
+    const [x0, y0, x1, y1] = (/^M([-\d.]+) ([-\d.]+)L([-\d.]+) ([-\d.]+)$/.exec(lines[0].attributes.d) ?? []).slice(1).map(Number);
+    // At omega_m = 0.1 the flat line has omega_de = 0.9; at 0.5 it has 0.5.
+    expect(x0).toBeCloseTo(left, 1);
+    expect(y0).toBeCloseTo(top + height - ((0.9 - 0.4) / 0.6) * height, 1);
+    expect(x1).toBeCloseTo(left + width, 1);
+    expect(y1).toBeCloseTo(top + height - ((0.5 - 0.4) / 0.6) * height, 1);
+    expect(findAll(figure, 'g', (node) => hasClass(node, 'legend-entry')).map(textContent)).toContain('flat universe (Ωk = 0)');
+    const off = parseXml(triangleFigure([{ label: 'curved', marginals: gaussianMarginals(curved), contours: gaussianContours(curved) }], curved.parameters, { flatUniverseLine: false }));
+    expect(findAll(off, 'path', (node) => hasClass(node, 'flat-universe'))).toHaveLength(0);
+  });
+
+  it('fits a journal column: width single is 3.4 in = 326.4 px (96 px per inch, CSS Values 3)', () => {
+    const figure = parseXml(triangleFigure(runs, three.parameters, { width: 'single', fontFace: 'serif' }));
+    expect(Number(figure.attributes.width)).toBeCloseTo(326.4, 2);
+    expect(figure.attributes['font-family']).toMatch(/serif$/);
+    expect(figure.attributes['font-family']).not.toMatch(/sans-serif$/);
   });
 });
 
