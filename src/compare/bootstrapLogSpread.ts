@@ -1,4 +1,4 @@
-import { createRandomStream } from '../math/index.js';
+import { createRandomStream, sampleVarianceOf } from '../math/index.js';
 
 /**
  * Bootstrap standard deviation (Efron 1979, Ann. Stat. 7, 1) of the natural
@@ -19,7 +19,5 @@ export function bootstrapLogSpread(count: number, replicates: number, seed: stri
     if (value > 0 && Number.isFinite(value)) logs.push(Math.log(value));
   }
   if (logs.length < 2) return { spread: Infinity, used: logs.length };
-  const mean = logs.reduce((sum, value) => sum + value, 0) / logs.length;
-  const variance = logs.reduce((sum, value) => sum + (value - mean) ** 2, 0) / (logs.length - 1);
-  return { spread: Math.sqrt(variance), used: logs.length };
+  return { spread: Math.sqrt(sampleVarianceOf(logs)), used: logs.length };
 }

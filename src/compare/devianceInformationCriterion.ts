@@ -1,5 +1,5 @@
 import { CandelaError } from '../errors.js';
-import { compensatedSum } from '../math/index.js';
+import { kishEffectiveCount, weightedMoments } from '../math/index.js';
 
 /** DIC and its parts, all dimensionless (deviance D = -2 ln L). */
 export interface DevianceInformation {
@@ -32,9 +32,9 @@ function invalid(path: string, expected: string, found: string): CandelaError {
  * Weights (e.g. nested-sampling posterior weights) are allowed; the weighted
  * variance uses the unbiased reliability-weight form
  * sum w (D - D_bar)^2 / (sum w - sum w^2 / sum w), which is the usual n - 1
- * sample variance for equal weights. Sums are compensated (Neumaier 1974).
+ * sample variance for equal weights: the weighted moments of math/statistics.
  *
- * Cost: O(n), allocates three arrays of n.
+ * Cost: O(n), allocates one array of n.
  * @param devianceSamples -2 ln L at each posterior draw (at least 2, all finite).
  * @param devianceAtPosteriorMean -2 ln L at the posterior mean of the parameters.
  * @param weights Optional non-negative weights, one per draw, not all zero.
@@ -46,27 +46,15 @@ export function devianceInformationCriterion(devianceSamples: ArrayLike<number>,
   if (count < 2) throw invalid('devianceSamples', 'at least 2 draws', String(count));
   if (!Number.isFinite(devianceAtPosteriorMean)) throw invalid('devianceAtPosteriorMean', 'a finite number', String(devianceAtPosteriorMean));
   if (weights && weights.length !== count) throw invalid('weights', `${count} weights`, String(weights.length));
-  const weight = new Float64Array(count);
-  const weighted = new Float64Array(count);
-  const weightSquared = new Float64Array(count);
   for (let k = 0; k < count; k++) {
     const value = devianceSamples[k];
     const w = weights ? weights[k] : 1;
     if (!Number.isFinite(value)) throw invalid(`devianceSamples[${k}]`, 'a finite deviance', String(value));
     if (!(w >= 0) || !Number.isFinite(w)) throw invalid(`weights[${k}]`, 'a finite weight >= 0', String(w));
-    weight[k] = w;
-    weighted[k] = w * value;
-    weightSquared[k] = w * w;
   }
-  const weightTotal = compensatedSum(weight);
-  const reliabilityDenominator = weightTotal - compensatedSum(weightSquared) / weightTotal;
-  if (!(reliabilityDenominator > 0)) throw invalid('weights', 'positive weight on at least two draws', 'fewer');
-  const meanDeviance = compensatedSum(weighted) / weightTotal;
-  for (let k = 0; k < count; k++) {
-    const offset = devianceSamples[k] - meanDeviance;
-    weighted[k] = weight[k] * offset * offset;
-  }
-  const variance = compensatedSum(weighted) / reliabilityDenominator;
+  // Kish count > 1 is the reliability-weight denominator sum w - sum w^2 / sum w being positive.
+  if (!(kishEffectiveCount(weights ?? count) > 1)) throw invalid('weights', 'positive weight on at least two draws', 'fewer');
+  const { mean: meanDeviance, variance } = weightedMoments(devianceSamples, weights, 'devianceSamples');
   const effectiveParameters = meanDeviance - devianceAtPosteriorMean;
   const effectiveParametersFromVariance = variance / 2;
   return {

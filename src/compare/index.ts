@@ -15,7 +15,7 @@ export { KASS_RAFTERY_BOUNDARIES } from './readBayesFactor.js';
 export type { BayesFactorReading } from './readBayesFactor.js';
 export type { EvidenceStrength } from './readBayesFactor.js';
 
-// Savage-Dickey density ratio and kernel densities at a point
+// Savage-Dickey density ratio (its kernel density is math/density's, as the plotted marginals)
 export { savageDickeyRatio } from './savageDickeyRatio.js';
 export { DEFAULT_BOOTSTRAP_REPLICATES } from './savageDickeyRatio.js';
 export { DEFAULT_BOOTSTRAP_SEED } from './savageDickeyRatio.js';
@@ -23,10 +23,6 @@ export type { SavageDickeyInput } from './savageDickeyRatio.js';
 export type { SavageDickeyEstimate } from './savageDickeyRatio.js';
 export { savageDickeyRatio2D } from './savageDickeyRatio2D.js';
 export type { SavageDickeyInput2D } from './savageDickeyRatio2D.js';
-export { kernelDensity1D } from './kernelDensity1D.js';
-export { kernelBandwidth1D } from './kernelDensity1D.js';
-export { kernelDensity2D } from './kernelDensity2D.js';
-export { kernelBandwidth2D } from './kernelDensity2D.js';
 
 // Frequentist significance of a chi-square improvement
 export { deltaChiSquareSignificance } from './deltaChiSquareSignificance.js';

@@ -1,7 +1,7 @@
 import { CandelaError } from '../errors.js';
 import { bootstrapLogSpread } from './bootstrapLogSpread.js';
-import { kernelBandwidth1D, kernelDensity1D } from './kernelDensity1D.js';
-import { checkedWeights, effectiveDrawCount } from './weightedDraws.js';
+import { kishEffectiveCount } from '../math/index.js';
+import { kernelDensityAtPoint1D, resampledWeights } from './kernelDensityAtPoint.js';
 
 /** Bootstrap resamples for the Savage-Dickey error: 200 give the spread to about 5% (1 / sqrt(2 x 200)) (common practice). */
 export const DEFAULT_BOOTSTRAP_REPLICATES = 200;
@@ -22,7 +22,7 @@ export interface SavageDickeyEstimate {
   effectiveSampleSize: number;
   /** Bootstrap replicates used. */
   bootstrapReplicates: number;
-  /** Kernel width: [h] in 1-D, the kernel covariance [Hxx, Hxy, Hxy, Hyy] in 2-D. */
+  /** Kernel width: [h] in 1-D; in 2-D the kernel covariance [hx^2, 0, 0, hy^2] of the product kernel (parameter units squared). */
   bandwidth: number[];
 }
 
@@ -40,7 +40,7 @@ export interface SavageDickeyInput {
   lowerEdge?: number;
   /** Upper prior edge for reflection (default: none). */
   upperEdge?: number;
-  /** Kernel width (default: Silverman's normal-reference rule). */
+  /** Kernel standard deviation, parameter units (default: Scott's rule on the Kish effective count, as the plotted marginal). */
   bandwidth?: number;
   /** Bootstrap replicates (default {@link DEFAULT_BOOTSTRAP_REPLICATES}). */
   bootstrapReplicates?: number;
@@ -61,6 +61,13 @@ export function checkSavageDickeyInput(sampleCount: number, priorDensity: number
   }
 }
 
+/** Throws when the nested value lies outside the prior edges (shared with the 2-D form). */
+export function checkInsideEdges(value: number, lower: number, upper: number, path: string): void {
+  if (!(value >= lower && value <= upper)) {
+    throw new CandelaError({ code: 'compare.invalid_argument', path, message: 'the density is wanted outside the prior edges', expected: `${lower} <= value <= ${upper}`, found: String(value) });
+  }
+}
+
 /** The error raised when no draw comes near the nested value. */
 export function outOfReach(where: string): CandelaError {
   return new CandelaError({
@@ -78,9 +85,10 @@ export function outOfReach(where: string): CandelaError {
  * the extended model at a value, and the extended model's prior for the other
  * parameters at that value is the base model's prior,
  *   B_01 = p(value | data, extended) / pi(value | extended).
- * The posterior density comes from a weighted Gaussian kernel estimate with
- * reflection at the prior edges; its uncertainty from a bootstrap over the
- * draws, which assumes them approximately independent. The kernel estimate
+ * The posterior density comes from the kernel estimate of the plotted
+ * marginal (math/density: weighted Gaussian kernel, Scott's rule on the Kish
+ * effective count, reflection at the prior edges); its uncertainty from a
+ * bootstrap over the draws, which assumes them approximately independent. The kernel estimate
  * smooths: deep in a tail it overestimates the density (by about
  * h^2 / (2 sigma^2) x (z^2 - 1) in ln p at z sigma from the mean).
  *
@@ -94,21 +102,20 @@ export function savageDickeyRatio(input: SavageDickeyInput): SavageDickeyEstimat
   const { samples, nestedValue, priorDensity } = input;
   const replicates = input.bootstrapReplicates ?? DEFAULT_BOOTSTRAP_REPLICATES;
   checkSavageDickeyInput(samples.length, priorDensity, replicates);
-  const weights = checkedWeights(samples.length, input.weights, 'weights');
-  const lower = input.lowerEdge ?? -Infinity;
-  const upper = input.upperEdge ?? Infinity;
-  const bandwidth = input.bandwidth ?? kernelBandwidth1D(samples, weights);
-  const posteriorDensity = kernelDensity1D(samples, weights, nestedValue, bandwidth, lower, upper);
+  const { weights } = input;
+  const bounds = { lower: input.lowerEdge, upper: input.upperEdge };
+  checkInsideEdges(nestedValue, input.lowerEdge ?? -Infinity, input.upperEdge ?? Infinity, 'nestedValue');
+  const { density: posteriorDensity, bandwidth } = kernelDensityAtPoint1D(samples, weights, nestedValue, bounds, input.bandwidth);
   if (!(posteriorDensity > 0)) throw outOfReach(String(nestedValue));
   const { spread, used } = bootstrapLogSpread(samples.length, replicates, input.seed ?? DEFAULT_BOOTSTRAP_SEED, (indices) =>
-    kernelDensity1D(samples, weights, nestedValue, bandwidth, lower, upper, indices),
+    kernelDensityAtPoint1D(samples, resampledWeights(weights, samples.length, indices), nestedValue, bounds, bandwidth).density,
   );
   return {
     logBayesFactor: Math.log(posteriorDensity) - Math.log(priorDensity),
     logBayesFactorError: spread,
     posteriorDensity,
     priorDensity,
-    effectiveSampleSize: effectiveDrawCount(weights),
+    effectiveSampleSize: kishEffectiveCount(weights ?? samples.length),
     bootstrapReplicates: used,
     bandwidth: [bandwidth],
   };

@@ -1,9 +1,9 @@
 import { CandelaError } from '../errors.js';
 import { bootstrapLogSpread } from './bootstrapLogSpread.js';
-import { kernelBandwidth2D, kernelDensity2D } from './kernelDensity2D.js';
-import { checkSavageDickeyInput, DEFAULT_BOOTSTRAP_REPLICATES, DEFAULT_BOOTSTRAP_SEED, outOfReach } from './savageDickeyRatio.js';
+import { kishEffectiveCount } from '../math/index.js';
+import { kernelDensityAtPoint2D, resampledWeights } from './kernelDensityAtPoint.js';
+import { checkInsideEdges, checkSavageDickeyInput, DEFAULT_BOOTSTRAP_REPLICATES, DEFAULT_BOOTSTRAP_SEED, outOfReach } from './savageDickeyRatio.js';
 import type { SavageDickeyEstimate } from './savageDickeyRatio.js';
-import { checkedWeights, effectiveDrawCount } from './weightedDraws.js';
 
 /** Input of the 2-D Savage-Dickey ratio (e.g. w0 = -1 and wa = 0 together). */
 export interface SavageDickeyInput2D {
@@ -21,8 +21,8 @@ export interface SavageDickeyInput2D {
   lowerEdges?: readonly [number, number];
   /** Upper prior edges [bx, by] for reflection (Infinity for none). */
   upperEdges?: readonly [number, number];
-  /** Kernel covariance [Hxx, Hxy, Hxy, Hyy] (default: Scott's rule). */
-  bandwidthMatrix?: ArrayLike<number>;
+  /** Kernel standard deviations [hx, hy] of the product kernel, parameter units (default: Scott's rule per axis, as the plotted contours). */
+  bandwidths?: readonly [number, number];
   /** Bootstrap replicates (default 200). */
   bootstrapReplicates?: number;
   /** Seed of the bootstrap stream. */
@@ -33,8 +33,10 @@ export interface SavageDickeyInput2D {
  * Savage-Dickey density ratio for a base model that fixes two parameters of
  * the extended one (Dickey 1971; Trotta 2007, with a 2-D point):
  * B_01 = p(x0, y0 | data, extended) / pi(x0, y0 | extended), the joint
- * posterior density from a weighted 2-D Gaussian kernel estimate with
- * reflection at the prior edges, and a bootstrap error as in the 1-D form.
+ * posterior density from the kernel estimate of the plotted contours
+ * (math/density: weighted Gaussian product kernel, Scott's rule per axis on
+ * the Kish effective count, reflection at the prior edges), and a bootstrap
+ * error as in the 1-D form.
  *
  * Cost: O(n x images) for the estimate plus replicates times that for the bootstrap.
  * @param input Draws, weights, nested point, joint prior density, options.
@@ -49,22 +51,24 @@ export function savageDickeyRatio2D(input: SavageDickeyInput2D): SavageDickeyEst
   if (ys.length !== xs.length) {
     throw new CandelaError({ code: 'compare.invalid_argument', path: 'ys', message: 'both coordinates need the same number of draws', expected: String(xs.length), found: String(ys.length) });
   }
-  const weights = checkedWeights(xs.length, input.weights, 'weights');
-  const bandwidthMatrix = input.bandwidthMatrix ?? kernelBandwidth2D(xs, ys, weights);
+  const { weights } = input;
   const lower = input.lowerEdges ?? [-Infinity, -Infinity];
   const upper = input.upperEdges ?? [Infinity, Infinity];
-  const posteriorDensity = kernelDensity2D(xs, ys, weights, nestedPoint, bandwidthMatrix, lower, upper);
+  checkInsideEdges(nestedPoint[0], lower[0], upper[0], 'nestedPoint[0]');
+  checkInsideEdges(nestedPoint[1], lower[1], upper[1], 'nestedPoint[1]');
+  const bounds = [{ lower: lower[0], upper: upper[0] }, { lower: lower[1], upper: upper[1] }] as const;
+  const { density: posteriorDensity, bandwidths } = kernelDensityAtPoint2D(xs, ys, weights, nestedPoint, bounds, input.bandwidths);
   if (!(posteriorDensity > 0)) throw outOfReach(`(${nestedPoint.join(', ')})`);
   const { spread, used } = bootstrapLogSpread(xs.length, replicates, input.seed ?? DEFAULT_BOOTSTRAP_SEED, (indices) =>
-    kernelDensity2D(xs, ys, weights, nestedPoint, bandwidthMatrix, lower, upper, indices),
+    kernelDensityAtPoint2D(xs, ys, resampledWeights(weights, xs.length, indices), nestedPoint, bounds, bandwidths).density,
   );
   return {
     logBayesFactor: Math.log(posteriorDensity) - Math.log(priorDensity),
     logBayesFactorError: spread,
     posteriorDensity,
     priorDensity,
-    effectiveSampleSize: effectiveDrawCount(weights),
+    effectiveSampleSize: kishEffectiveCount(weights ?? xs.length),
     bootstrapReplicates: used,
-    bandwidth: Array.from(bandwidthMatrix),
+    bandwidth: [bandwidths[0] ** 2, 0, 0, bandwidths[1] ** 2],
   };
 }

@@ -41,5 +41,12 @@ export type { SortedSample } from './statistics/sortSample.js';
 export { weightedQuantileOfSorted, weightedQuantiles } from './statistics/weightedQuantile.js';
 export { quantileOfDraws, quantileOfSortedDraws } from './statistics/quantileOfDraws.js';
 
+// Kernel density estimates (one Gaussian-kernel estimator; the bandwidth rule is an option)
+export { kernelBandwidth } from './density/kernelBandwidth.js';
+export type { SampleSpread } from './density/kernelBandwidth.js';
+export { marginalDensity1D } from './density/marginalDensity1D.js';
+export { densityGrid2D } from './density/densityGrid2D.js';
+export type { MarginalDensity1D, DensityGrid2D, BandwidthRule, HardBounds, MarginalDensityOptions, DensityGridOptions } from './density/densityTypes.js';
+
 // Text
 export { editDistance } from './text/editDistance.js';

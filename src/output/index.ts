@@ -24,19 +24,11 @@ export { formatInterval } from './summaries/formatWithErrors.js';
 export { roundingPlaceFor } from './summaries/formatWithErrors.js';
 export type { NumberStyle } from './summaries/formatWithErrors.js';
 
-// Smoothed marginals and credible regions.
+// Credible regions of smoothed densities (the kernel density estimates live in math/density).
 export type { MarginalDensity1D } from './density/densityTypes.js';
 export type { DensityGrid2D } from './density/densityTypes.js';
 export type { CredibleRegion } from './density/densityTypes.js';
 export type { ContourSet2D } from './density/densityTypes.js';
-export type { BandwidthRule } from './density/densityTypes.js';
-export type { HardBounds } from './density/densityTypes.js';
-export type { MarginalDensityOptions } from './density/densityTypes.js';
-export type { DensityGridOptions } from './density/densityTypes.js';
-export { kernelBandwidth } from './density/kernelBandwidth.js';
-export type { SampleSpread } from './density/kernelBandwidth.js';
-export { marginalDensity1D } from './density/marginalDensity1D.js';
-export { densityGrid2D } from './density/densityGrid2D.js';
 export { credibleThresholds } from './density/credibleThresholds.js';
 export { credibleContours } from './density/credibleContours.js';
 export { credibleRegionArea } from './density/credibleRegionGeometry.js';

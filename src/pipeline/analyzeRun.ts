@@ -1,9 +1,8 @@
 import { acceptanceSummary, RELIABLE_STEPS_PER_TAU, type ParameterDiagnostics } from '../diagnostics/index.js';
 import { diagnoseTraces } from './diagnoseTraces.js';
-import { kishEffectiveCount } from '../math/index.js';
+import { densityGrid2D, kishEffectiveCount, marginalDensity1D, type HardBounds, type MarginalDensity1D } from '../math/index.js';
 import {
-  credibleContours, densityGrid2D, marginalDensity1D, sampleStatistics, summarizePosterior,
-  type ContourSet2D, type HardBounds, type MarginalDensity1D, type ParameterSummary, type RunSummary,
+  credibleContours, sampleStatistics, summarizePosterior, type ContourSet2D, type ParameterSummary, type RunSummary,
 } from '../output/index.js';
 import { arrayExtent } from './arrayExtent.js';
 import { samplerMethodOf, type RunOnDisk } from './runFiles.js';

@@ -1,11 +1,12 @@
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import {
-  contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, densityGrid2D, densityGridCsv, hubbleFigure,
+  contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, densityGridCsv, hubbleFigure,
   marginalDensityCsv, reportHtml, summaryCells, summaryLatex, summaryMarkdown, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
   type BinnedResidual, type ContourSet2D, type ReportFigure, type ReportRunFacts, type TraceParameterPanel,
 } from '../output/index.js';
 import { RELIABLE_STEPS_PER_TAU } from '../diagnostics/index.js';
+import { densityGrid2D } from '../math/index.js';
 import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
 import { readRunFolder, type RunOnDisk } from './runFiles.js';
 import { RUN_FILES } from './runFolder.js';

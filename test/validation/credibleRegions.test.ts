@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { credibleContours, credibleRegionArea, credibleRegionContains, densityGrid2D } from '../../src/output/index.js';
+import { densityGrid2D } from '../../src/math/index.js';
+import { credibleContours, credibleRegionArea, credibleRegionContains } from '../../src/output/index.js';
 import { DET, deltaChiSquare, gaussianDraws, RHO, SD_X, SD_Y, trueMassInsideEllipse } from '../output/density/correlatedGaussian.js';
 
 // Statistical validation of the smoothed credible regions on a correlated 2-D Gaussian (sd 1 and 2,

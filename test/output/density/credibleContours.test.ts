@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { createRandomStream } from '../../../src/math/index.js';
+import { createRandomStream, densityGrid2D, marginalDensity1D } from '../../../src/math/index.js';
 import {
   contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, credibleRegionArea, credibleRegionContains,
-  credibleThresholds, densityGrid2D, densityGridCsv, marginalDensity1D, marginalDensityCsv, ONE_SIGMA_MASS, TWO_SIGMA_MASS,
+  credibleThresholds, densityGridCsv, marginalDensityCsv, ONE_SIGMA_MASS, TWO_SIGMA_MASS,
 } from '../../../src/output/index.js';
 import type { ContourSet2D, DensityGrid2D } from '../../../src/output/index.js';
 import { DET, deltaChiSquare, gaussianDraws, MEAN_X, MEAN_Y, RHO, SD_X, SD_Y, trueMassInsideEllipse } from './correlatedGaussian.js';

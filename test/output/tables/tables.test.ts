@@ -1,8 +1,8 @@
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { createRandomStream } from '../../../src/math/index.js';
+import { createRandomStream, marginalDensity1D } from '../../../src/math/index.js';
 import {
-  marginalDensity1D, parameterSymbol, parameterSymbols, summaryLatex, summaryMarkdown, summaryTerminal, terminalMarginals,
+  parameterSymbol, parameterSymbols, summaryLatex, summaryMarkdown, summaryTerminal, terminalMarginals,
 } from '../../../src/output/index.js';
 import { HAND_BUILT_SUMMARY } from './handBuiltSummary.js';
 

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { isCandelaError } from '../../../src/errors.js';
-import { createRandomStream } from '../../../src/math/index.js';
-import { densityGrid2D, kernelBandwidth, marginalDensity1D } from '../../../src/output/index.js';
+import { createRandomStream, densityGrid2D, kernelBandwidth, marginalDensity1D } from '../../../src/math/index.js';
 
 // Deterministic point set of test/fixtures/output/make_summary_reference.R (sections 2 and 3).
 function referencePoints(): { x: Float64Array; y: Float64Array; weights: Float64Array } {
@@ -104,7 +103,7 @@ describe('marginalDensity1D', () => {
       marginalDensity1D('w0', [0, 1, 2], { gridPoints: 1 });
       expect.unreachable();
     } catch (error) {
-      expect(isCandelaError(error) && error.issues[0].code).toBe('output.bad_grid');
+      expect(isCandelaError(error) && error.issues[0].code).toBe('math.bad_grid');
     }
   });
 });

@@ -1,7 +1,10 @@
-import { sortSample, weightedMoments, weightedQuantileOfSorted } from '../../math/index.js';
+import { sortSample } from '../statistics/sortSample.js';
+import { weightedMoments } from '../statistics/weightedMoments.js';
+import { weightedQuantileOfSorted } from '../statistics/weightedQuantile.js';
 import type { MarginalDensity1D, MarginalDensityOptions } from './densityTypes.js';
 import { kernelBandwidth } from './kernelBandwidth.js';
 import { convolveAxis, fineCoordinate, planKernelAxis, reflectedPositions } from './kernelGridAxis.js';
+import { sampleExtent } from './sampleExtent.js';
 
 /** Default number of grid points of a 1-D marginal. */
 const DEFAULT_GRID_POINTS = 256;
@@ -23,7 +26,8 @@ const SQRT_TWO_PI = Math.sqrt(2 * Math.PI);
  * 6 h; the result is a true density (not renormalized on the grid), so it
  * integrates to the sample mass inside the grid.
  *
- * Cost: O(n log n) for the quantiles of Silverman's rule, else O(n); plus
+ * Cost: O(n log n) for the quantiles of Silverman's rule (when no bandwidth
+ * is given), else O(n); plus
  * O(gridPoints x 100) for the convolution.
  * @param parameter parameter name, e.g. 'omega_m'.
  * @param values samples (parameter unit), finite.
@@ -35,11 +39,12 @@ const SQRT_TWO_PI = Math.sqrt(2 * Math.PI);
 export function marginalDensity1D(parameter: string, values: ArrayLike<number>, options: MarginalDensityOptions = {}): MarginalDensity1D {
   const weights = options.weights;
   const moments = weightedMoments(values, weights, parameter);
-  const sorted = sortSample(values, weights, parameter);
   const rule = options.bandwidthRule ?? 'scott';
-  const interquartileRange = rule === 'silverman' ? weightedQuantileOfSorted(sorted, 0.75) - weightedQuantileOfSorted(sorted, 0.25) : undefined;
+  const sorted = rule === 'silverman' && options.bandwidth === undefined ? sortSample(values, weights, parameter) : undefined;
+  const interquartileRange = sorted ? weightedQuantileOfSorted(sorted, 0.75) - weightedQuantileOfSorted(sorted, 0.25) : undefined;
+  const [low, high] = sampleExtent(values, weights);
   const bandwidth = options.bandwidth ?? kernelBandwidth({ sd: moments.sd, interquartileRange }, moments.effectiveCount, 1, rule, options.bandwidthFactor ?? 1);
-  const axis = planKernelAxis(parameter, sorted.values[0], sorted.values[sorted.values.length - 1], bandwidth, options.gridPoints ?? DEFAULT_GRID_POINTS, MAX_FINE_NODES_1D, options.range, options.bounds);
+  const axis = planKernelAxis(parameter, low, high, bandwidth, options.gridPoints ?? DEFAULT_GRID_POINTS, MAX_FINE_NODES_1D, options.range, options.bounds);
   const bins = new Float64Array(axis.fineCount);
   const positions: number[] = [0, 0, 0];
   for (let i = 0; i < values.length; i++) {

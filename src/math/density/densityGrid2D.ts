@@ -1,8 +1,9 @@
 import { CandelaError } from '../../errors.js';
-import { weightedMoments } from '../../math/index.js';
+import { weightedMoments } from '../statistics/weightedMoments.js';
 import type { DensityGrid2D, DensityGridOptions } from './densityTypes.js';
 import { kernelBandwidth } from './kernelBandwidth.js';
 import { convolveAxis, fineCoordinate, planKernelAxis, reflectedPositions } from './kernelGridAxis.js';
+import { sampleExtent } from './sampleExtent.js';
 
 /** Default grid points per axis of a 2-D density. */
 const DEFAULT_GRID_POINTS = 128;
@@ -43,7 +44,7 @@ const MAX_FINE_NODES_2D = 2048;
  */
 export function densityGrid2D(xParameter: string, xValues: ArrayLike<number>, yParameter: string, yValues: ArrayLike<number>, options: DensityGridOptions = {}): DensityGrid2D {
   if (xValues.length !== yValues.length) {
-    throw new CandelaError({ code: 'output.column_length', path: yParameter, message: `${yParameter} has ${yValues.length} samples, ${xParameter} ${xValues.length}`, expected: String(xValues.length), found: String(yValues.length) });
+    throw new CandelaError({ code: 'math.column_length', path: yParameter, message: `${yParameter} has ${yValues.length} samples, ${xParameter} ${xValues.length}`, expected: String(xValues.length), found: String(yValues.length) });
   }
   const weights = options.weights;
   const xMoments = weightedMoments(xValues, weights, xParameter);
@@ -54,8 +55,8 @@ export function densityGrid2D(xParameter: string, xValues: ArrayLike<number>, yP
   const bandwidthY = options.bandwidthY ?? kernelBandwidth({ sd: yMoments.sd }, yMoments.effectiveCount, 2, rule, factor);
   const [nx, ny] = typeof options.gridPoints === 'number' || options.gridPoints === undefined
     ? [options.gridPoints ?? DEFAULT_GRID_POINTS, options.gridPoints ?? DEFAULT_GRID_POINTS] : options.gridPoints;
-  const [xMin, xMax] = extent(xValues, weights);
-  const [yMin, yMax] = extent(yValues, weights);
+  const [xMin, xMax] = sampleExtent(xValues, weights);
+  const [yMin, yMax] = sampleExtent(yValues, weights);
   const xAxis = planKernelAxis(xParameter, xMin, xMax, bandwidthX, nx, MAX_FINE_NODES_2D, options.xRange, options.xBounds);
   const yAxis = planKernelAxis(yParameter, yMin, yMax, bandwidthY, ny, MAX_FINE_NODES_2D, options.yRange, options.yBounds);
 
@@ -99,16 +100,4 @@ export function densityGrid2D(xParameter: string, xValues: ArrayLike<number>, yP
   const normalization = 1 / (xMoments.totalWeight * bandwidthX * bandwidthY * 2 * Math.PI);
   for (let k = 0; k < density.length; k++) density[k] *= normalization;
   return { xParameter, yParameter, x: xAxis.output, y: yAxis.output, density, bandwidthX, bandwidthY };
-}
-
-/** Smallest and largest sample with positive weight. */
-function extent(values: ArrayLike<number>, weights?: ArrayLike<number>): [number, number] {
-  let low = Infinity;
-  let high = -Infinity;
-  for (let i = 0; i < values.length; i++) {
-    if (weights && weights[i] === 0) continue;
-    if (values[i] < low) low = values[i];
-    if (values[i] > high) high = values[i];
-  }
-  return [low, high];
 }

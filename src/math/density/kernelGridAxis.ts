@@ -2,8 +2,8 @@ import { CandelaError } from '../../errors.js';
 import type { HardBounds } from './densityTypes.js';
 
 /**
- * One axis of a binned Gaussian kernel density estimate (private to the
- * output layer). Samples are linearly binned onto a fine grid whose nodes
+ * One axis of a binned Gaussian kernel density estimate (private to
+ * math/density, not in the barrel). Samples are linearly binned onto a fine grid whose nodes
  * include every output grid point, then convolved with the sampled Gaussian
  * kernel (binned KDE: Wand & Jones 1995, "Kernel Smoothing", Appendix D;
  * linear binning: Jones & Lotwick 1984). Cost: O(n) to bin plus
@@ -44,23 +44,23 @@ export interface KernelAxis {
  * refining it by an integer factor so that the spacing is at most h / 8
  * (fewer when the fine grid would exceed `maxFineNodes`), padded by the
  * kernel cutoff on both sides.
- * @throws CandelaError `output.bad_range` when the range is empty or not finite,
- *   `output.bad_grid` for fewer than 2 grid points, `output.bad_bandwidth`
+ * @throws CandelaError `math.bad_range` when the range is empty or not finite,
+ *   `math.bad_grid` for fewer than 2 grid points, `math.bad_bandwidth`
  *   for a bandwidth that is not positive.
  */
 export function planKernelAxis(name: string, sampleMin: number, sampleMax: number, bandwidth: number, points: number, maxFineNodes: number, range?: [number, number], bounds?: HardBounds): KernelAxis {
   const lower = bounds?.lower ?? -Infinity;
   const upper = bounds?.upper ?? Infinity;
   if (!(bandwidth > 0) || !Number.isFinite(bandwidth)) {
-    throw new CandelaError({ code: 'output.bad_bandwidth', path: name, message: 'the kernel bandwidth must be a positive number', expected: '> 0', found: String(bandwidth) });
+    throw new CandelaError({ code: 'math.bad_bandwidth', path: name, message: 'the kernel bandwidth must be a positive number', expected: '> 0', found: String(bandwidth) });
   }
   if (!Number.isInteger(points) || points < 2) {
-    throw new CandelaError({ code: 'output.bad_grid', path: name, message: 'a density grid needs at least 2 points', expected: 'an integer >= 2', found: String(points) });
+    throw new CandelaError({ code: 'math.bad_grid', path: name, message: 'a density grid needs at least 2 points', expected: 'an integer >= 2', found: String(points) });
   }
   const start = Math.max(lower, range ? range[0] : sampleMin - RANGE_PADDING_BANDWIDTHS * bandwidth);
   const end = Math.min(upper, range ? range[1] : sampleMax + RANGE_PADDING_BANDWIDTHS * bandwidth);
   if (!(end > start) || !Number.isFinite(start) || !Number.isFinite(end)) {
-    throw new CandelaError({ code: 'output.bad_range', path: name, message: `empty or infinite density range for ${name}`, expected: 'low < high, both finite', found: `[${start}, ${end}]` });
+    throw new CandelaError({ code: 'math.bad_range', path: name, message: `empty or infinite density range for ${name}`, expected: 'low < high, both finite', found: `[${start}, ${end}]` });
   }
   const step = (end - start) / (points - 1);
   const halfWidthFor = (fineStep: number): number => Math.ceil((KERNEL_CUTOFF_BANDWIDTHS * bandwidth) / fineStep);

@@ -31,13 +31,13 @@ export interface SampleSpread {
  * @param rule 'scott' or 'silverman'.
  * @param factor multiplier (> 0), default 1.
  * @returns bandwidth in the parameter's unit.
- * @throws CandelaError `output.degenerate_sample` when the spread is zero
- *   (every sample equal), `output.bad_bandwidth` for a non-positive factor.
+ * @throws CandelaError `math.degenerate_sample` when the spread is zero
+ *   (every sample equal), `math.bad_bandwidth` for a non-positive factor.
  * @example kernelBandwidth({ sd: 1 }, 100000, 1, 'scott') // 0.1 (100000^(-1/5))
  */
 export function kernelBandwidth(spread: SampleSpread, effectiveCount: number, dimension: 1 | 2, rule: BandwidthRule, factor = 1): number {
   if (!(factor > 0) || !Number.isFinite(factor)) {
-    throw new CandelaError({ code: 'output.bad_bandwidth', message: 'the bandwidth factor must be a positive number', expected: '> 0', found: String(factor) });
+    throw new CandelaError({ code: 'math.bad_bandwidth', message: 'the bandwidth factor must be a positive number', expected: '> 0', found: String(factor) });
   }
   let scale = spread.sd;
   let constant = 1;
@@ -53,7 +53,7 @@ export function kernelBandwidth(spread: SampleSpread, effectiveCount: number, di
   const bandwidth = factor * constant * scale * Math.pow(effectiveCount, -1 / (dimension + 4));
   if (!(bandwidth > 0) || !Number.isFinite(bandwidth)) {
     throw new CandelaError({
-      code: 'output.degenerate_sample', message: 'cannot smooth a sample without spread (every value equal)',
+      code: 'math.degenerate_sample', message: 'cannot smooth a sample without spread (every value equal)',
       expected: 'a positive standard deviation', found: String(spread.sd), fix: 'leave fixed parameters out of the density plots',
     });
   }
