@@ -1,5 +1,7 @@
-import { closeSync, fsyncSync, openSync, readFileSync, renameSync, writeSync } from 'node:fs';
 import { CandelaError } from '../errors.js';
+import { writeFileAtomicBy } from '../output/index.js';
+
+export { readChainsFile } from './readChainsFile.js';
 
 /**
  * chains.csv: one row per stored sample, ensemble-major then step then walker.
@@ -75,15 +77,18 @@ export function chainHeader(columns: ChainColumns, weighted = false): string[] {
 }
 
 /**
- * Writes chains.csv atomically (temporary file in the same folder, fsync,
- * rename), streaming rows so memory stays O(rows per write).
+ * Writes chains.csv atomically (writeFileAtomicBy: temporary file in the
+ * same folder, fsync, rename), streaming rows so memory stays O(rows per
+ * write); a failed write (full disk) leaves no temporary file and the
+ * previous chains.csv, if any, untouched.
  * @param path the file to write.
  * @param columns sampled and derived names.
  * @param ensembles the draws, one entry per ensemble.
  * @param burnInSteps steps flagged as burn-in (0 for nested sampling).
  * @param weights optional posterior weight per row, in file order (all ensembles' rows
  *   concatenated); when given, a `weight` column is written before `burn_in`.
- * @throws Error from the file system; CandelaError `run.bad_weights` when the weight count differs from the row count.
+ * @throws CandelaError `output.write_failed` when the file system refuses (full disk, read-only), after removing the
+ *   temporary file; `run.bad_weights` when the weight count differs from the row count.
  * @example writeChainsFile('out/chains.csv', { parameters: ['omega_m'], derived: [] }, [draws], 0, weights)
  */
 export function writeChainsFile(path: string, columns: ChainColumns, ensembles: EnsembleDraws[], burnInSteps: number, weights?: Float64Array): void {
@@ -92,10 +97,8 @@ export function writeChainsFile(path: string, columns: ChainColumns, ensembles: 
     throw new CandelaError({ code: 'run.bad_weights', file: path, message: 'one posterior weight per stored sample is needed', expected: `${rowCount} weights`, found: String(weights.length) });
   }
   let rowIndex = 0;
-  const temporary = `${path}.tmp-${process.pid}`;
-  const fd = openSync(temporary, 'w');
-  try {
-    writeSync(fd, `${chainHeader(columns, weights !== undefined).join(',')}\n`);
+  writeFileAtomicBy(path, (write) => {
+    write(`${chainHeader(columns, weights !== undefined).join(',')}\n`);
     const derivedCount = columns.derived.length;
     let buffer: string[] = [];
     ensembles.forEach((draws, ensembleIndex) => {
@@ -113,66 +116,12 @@ export function writeChainsFile(path: string, columns: ChainColumns, ensembles: 
           rowIndex++;
           buffer.push(parts.join(','));
           if (buffer.length >= ROWS_PER_WRITE) {
-            writeSync(fd, `${buffer.join('\n')}\n`);
+            write(`${buffer.join('\n')}\n`);
             buffer = [];
           }
         }
       }
     });
-    if (buffer.length) writeSync(fd, `${buffer.join('\n')}\n`);
-    fsyncSync(fd);
-  } finally {
-    closeSync(fd);
-  }
-  renameSync(temporary, path);
-}
-
-/**
- * Reads chains.csv back (with or without a weight column).
- * @param path the chains file.
- * @returns the columns, with `weights` set when the file has a weight column.
- * @throws CandelaError `run.no_chains` when unreadable, `run.bad_chains` naming the line of a malformed row or missing columns.
- * @example readChainsFile('out/run/chains.csv').columns.omega_m
- */
-export function readChainsFile(path: string): ChainTable {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch {
-    throw new CandelaError({ code: 'run.no_chains', file: path, message: 'cannot read the chains file', fix: 'point to a run folder written by `candela fit` (it holds chains.csv)' });
-  }
-  const lines = text.split('\n');
-  if (lines[lines.length - 1] === '') lines.pop();
-  const header = (lines[0] ?? '').split(',');
-  const required = ['ensemble', 'walker', 'step', 'log_prior', 'log_likelihood', 'log_posterior', 'burn_in'];
-  const missing = required.filter((name) => !header.includes(name));
-  if (missing.length) {
-    throw new CandelaError({ code: 'run.bad_chains', file: path, line: 1, message: `the chains file lacks the columns ${missing.join(', ')}`, fix: 'regenerate the run with `candela fit`' });
-  }
-  const rows = lines.length - 1;
-  const index = (name: string) => header.indexOf(name);
-  const valueNames = header.filter((name) => !['ensemble', 'walker', 'step', 'burn_in'].includes(name));
-  const table: ChainTable = {
-    header,
-    ensemble: new Int32Array(rows), walker: new Int32Array(rows), step: new Int32Array(rows), burnIn: new Uint8Array(rows),
-    columns: Object.fromEntries(valueNames.map((name) => [name, new Float64Array(rows)])), weights: null, rows,
-  };
-  const valueIndex = valueNames.map((name) => [index(name), table.columns[name]] as const);
-  const [ie, iw, is, ib] = ['ensemble', 'walker', 'step', 'burn_in'].map(index);
-  for (let r = 0; r < rows; r++) {
-    const parts = lines[r + 1].split(',');
-    if (parts.length !== header.length) {
-      throw new CandelaError({ code: 'run.bad_chains', file: path, line: r + 2, message: `row has ${parts.length} fields, the header ${header.length}`, fix: 'the file is damaged; rerun `candela fit --resume` to rewrite it' });
-    }
-    table.ensemble[r] = Number(parts[ie]);
-    table.walker[r] = Number(parts[iw]);
-    table.step[r] = Number(parts[is]);
-    table.burnIn[r] = parts[ib] === '1' ? 1 : 0;
-    for (const [i, column] of valueIndex) {
-      const text = parts[i];
-      column[r] = text === '' ? Number.NaN : text === '-inf' ? -Infinity : Number(text);
-    }
-  }
-  if (header.includes(WEIGHT_COLUMN)) table.weights = table.columns[WEIGHT_COLUMN];
-  return table;
+    if (buffer.length) write(`${buffer.join('\n')}\n`);
+  });
 }

@@ -13,6 +13,7 @@ export { VERSION } from './version.js';
 export { standardizeTable } from './standardizeTable.js';
 export type { StandardizedTable } from './standardizeTable.js';
 export { runFit, runFolderFor } from './runFit.js';
+export { FitInterrupted, isFitInterrupted } from './runFit.js';
 export type { FitRequest, FitProgress, FitOutcome } from './runFit.js';
 export { buildRunOutputs } from './buildRunOutputs.js';
 export { terminalRunReport } from './terminalRunReport.js';

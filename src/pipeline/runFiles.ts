@@ -56,7 +56,7 @@ function readCsvColumns(path: string): Record<string, string[]> | null {
  * (ensemble or nested-sampling run).
  * @param dir the run folder.
  * @returns the record, the chains (with weights for nested runs) and the Hubble files (null when absent).
- * @throws CandelaError `run.no_record` without a readable run.json; the errors of readChainsFile.
+ * @throws CandelaError `run.no_record` without a readable run.json; the errors of readChainsFile and checkChainLayout.
  * @example readRunFolder('out/pantheon/flat_lcdm').record.model.label // 'flat_lcdm'
  */
 export function readRunFolder(dir: string): RunOnDisk {
@@ -67,8 +67,45 @@ export function readRunFolder(dir: string): RunOnDisk {
     throw new CandelaError({ code: 'run.no_record', file: join(dir, RUN_FILES.run), message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
   }
   const chains = readChainsFile(join(dir, RUN_FILES.chains));
+  if (samplerMethodOf(record) === 'ensemble') checkChainLayout(join(dir, RUN_FILES.chains), chains, record);
   const hubble = readCsvColumns(join(dir, RUN_FILES.hubbleData));
   const model = readCsvColumns(join(dir, RUN_FILES.hubbleModel));
   const hubbleModel = model ? Object.fromEntries(Object.entries(model).map(([name, values]) => [name, Float64Array.from(values, Number)])) : null;
   return { dir, record, chains, hubble: hubble ? { columns: hubble } : null, hubbleModel };
+}
+
+/**
+ * Checks that an ensemble run's chains are whole: exactly one row per
+ * ensemble, step and walker that run.json counts (ensembles x steps x
+ * walkers), in file order (ensemble, then step, then walker). A file cut at
+ * a row boundary, or missing rows in the middle, is refused here instead of
+ * being summarized as if it were the whole run.
+ * Cost: O(rows).
+ * @param path the chains file (for the message).
+ * @param chains the chains as read.
+ * @param record run.json of the same folder.
+ * @throws CandelaError `run.bad_chains` naming the first row out of place, or the row counts.
+ * @example checkChainLayout('out/run/chains.csv', chains, record) // no throw for a whole file
+ */
+export function checkChainLayout(path: string, chains: ChainTable, record: StoredRunRecord): void {
+  const { ensembles, walkers, steps } = record.run;
+  const expected = ensembles * walkers * steps;
+  const fix = 'the file is incomplete or damaged; rerun `candela fit --resume` in its run folder to rewrite it';
+  if (chains.rows !== expected) {
+    throw new CandelaError({
+      code: 'run.bad_chains', file: path, message: 'the chains file does not hold every stored step of the run',
+      expected: `${expected} rows (${ensembles} ensembles x ${steps} steps x ${walkers} walkers, from run.json)`, found: `${chains.rows} rows`, fix,
+    });
+  }
+  for (let r = 0; r < chains.rows; r++) {
+    const walker = r % walkers;
+    const step = Math.floor(r / walkers) % steps;
+    const ensemble = Math.floor(r / (walkers * steps));
+    if (chains.ensemble[r] !== ensemble || chains.step[r] !== step || chains.walker[r] !== walker) {
+      throw new CandelaError({
+        code: 'run.bad_chains', file: path, line: r + 2, message: 'a row is out of place in the chains file',
+        expected: `ensemble ${ensemble}, step ${step}, walker ${walker}`, found: `ensemble ${chains.ensemble[r]}, step ${chains.step[r]}, walker ${chains.walker[r]}`, fix,
+      });
+    }
+  }
 }

@@ -20,10 +20,31 @@ import { writeHubbleFiles } from './hubbleFiles.js';
 import { buildRunOutputs } from './buildRunOutputs.js';
 import { workerModelUrl } from './workerModel.js';
 import { fitNestedModel } from './nestedFit.js';
+import { createInterruptibleEvaluator, isRunInterrupted } from './interruptibleEvaluator.js';
 import { locatePart, type FitPart, type PartFacts } from './slurmPart.js';
 
-/** Steps advanced between looks at the stop signal and the clock (keeps Ctrl-C responsive). */
+/** Steps advanced between looks at the clock, the progress display and the checkpoint schedule (the stop signal is seen within a step, see createInterruptibleEvaluator). */
 const STEPS_PER_SLICE = 25;
+/** Fewest steps a run needs before its summaries, densities and figures can be written (the diagnostics need a few draws per split chain). */
+const MINIMUM_STEPS_FOR_OUTPUTS = 80;
+
+/**
+ * Thrown by runFit when an interrupt came before every model of the
+ * configuration had sampled: `outcomes` holds the models that did (their
+ * folders are complete or hold a checkpoint), `message` says what the user
+ * can do next.
+ */
+export class FitInterrupted extends Error {
+  constructor(message: string, readonly outcomes: FitOutcome[]) {
+    super(message);
+    this.name = 'FitInterrupted';
+  }
+}
+
+/** True when `error` is a {@link FitInterrupted}. */
+export function isFitInterrupted(error: unknown): error is FitInterrupted {
+  return error instanceof Error && error.name === 'FitInterrupted' && Array.isArray((error as FitInterrupted).outcomes);
+}
 
 /** What the caller asks of `candela fit`. */
 export interface FitRequest {
@@ -40,7 +61,13 @@ export interface FitRequest {
    * combines the parts of a model into one run folder.
    */
   part?: number;
-  /** Set when the user interrupts (SIGINT, SIGTERM): checkpoint, write outputs so far, return. */
+  /**
+   * Set when the user interrupts (SIGINT, SIGTERM): the step in progress is
+   * abandoned (the sampler returns to its start), then the checkpoint and
+   * the outputs of the steps so far are written and the run returns with
+   * stop reason `interrupted`. An interrupt before the walkers are placed
+   * rejects with {@link FitInterrupted}.
+   */
   signal?: AbortSignal;
   /** Progress after every slice of steps. */
   onProgress?: (progress: FitProgress) => void;
@@ -77,6 +104,8 @@ export interface FitOutcome {
   record: RunRecord;
   /** Problems worth a warning (approximations in use, data warnings). */
   warnings: Issue[];
+  /** False when the run was interrupted before it had steps enough for summaries: only the checkpoint, chains.csv and run.json are written. */
+  summarized?: boolean;
 }
 
 /** Output folder of model `index`: the configured folder itself for one model, a subfolder per label for several. */
@@ -112,6 +141,7 @@ export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
     if (part) {
       models[part.modelIndex] = buildModel(config, part.modelIndex, data);
       prepareRunFolder(part.runDir, { force: Boolean(request.force), resume: Boolean(request.resume) });
+      if (request.signal?.aborted) throw new FitInterrupted('interrupted before the sampling started; run the same command with --resume to start it', []);
       return [await fitOneModel(config, part.modelIndex, models[part.modelIndex], data, part.runDir, request, part, handOver(part.modelIndex))];
     }
     models = config.models.map((_, index) => buildModel(config, index, data));
@@ -119,8 +149,16 @@ export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
     for (const folder of folders) prepareRunFolder(folder, { force: Boolean(request.force), resume: Boolean(request.resume) });
     const outcomes: FitOutcome[] = [];
     for (let index = 0; index < models.length; index++) {
-      if (request.signal?.aborted) break;
-      outcomes.push(await fitOneModel(config, index, models[index], data, folders[index], request, undefined, handOver(index)));
+      if (request.signal?.aborted) {
+        const left = models.slice(index).map((model) => model.label).join(', ');
+        throw new FitInterrupted(`interrupted before the model(s) ${left} started; run the same command with --resume to continue`, outcomes);
+      }
+      try {
+        outcomes.push(await fitOneModel(config, index, models[index], data, folders[index], request, undefined, handOver(index)));
+      } catch (error) {
+        if (!isFitInterrupted(error)) throw error;
+        throw new FitInterrupted(error.message, [...outcomes, ...error.outcomes]);
+      }
     }
     return outcomes;
   } finally {
@@ -176,7 +214,7 @@ async function fitOneModel(
   const rule = { targetEss: part ? settings.targetEss / part.ensembles : settings.targetEss, maxRhat: settings.maxRhat };
   say(`model ${model.label}${partNote}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
   for (const line of model.supernovae.describe()) say(`  ${line}`);
-  const evaluator = await (earlyEvaluator ?? createEvaluator(config, index, model, workers));
+  const evaluator = createInterruptibleEvaluator(await (earlyEvaluator ?? createEvaluator(config, index, model, workers)), request.signal);
   try {
     let sampler: EnsembleSampler;
     let previousSeconds = 0;
@@ -189,20 +227,20 @@ async function fitOneModel(
       say(`resuming from step ${sampler.stepCount}`);
     } else {
       const rejection = (theta: Float64Array) => model.posterior.rejectionReason(theta) ?? 'log posterior is -Infinity';
-      const start = await initializeWalkers({
+      const start = await interruptedIsStartup(initializeWalkers({
         walkers: settings.walkers,
         ensembles: settings.ensembles,
         seed,
         sampleStart: (rng, out) => model.priors.forEach((entry, d) => { out[d] = samplePrior(entry.prior, rng); }),
         describeRejection: rejection,
-      }, evaluator);
+      }, evaluator), model.label);
       const held = part ? [part.ensemble] : null;
       evaluations += start.optimizer.evaluations + settings.walkers * (held ? held.length : settings.ensembles);
-      sampler = await EnsembleSampler.start({
+      sampler = await interruptedIsStartup(EnsembleSampler.start({
         dimension: model.parameterNames.length, walkers: settings.walkers, seed,
         stretchScale: settings.stretchScale, differentialEvolutionWeight: settings.differentialEvolutionWeight,
         ...(held ? { ensembleIndices: held } : { ensembles: settings.ensembles }),
-      }, evaluator, held ? held.map((k) => start.positions[k]) : start.positions);
+      }, evaluator, held ? held.map((k) => start.positions[k]) : start.positions), model.label);
     }
     const stepsPerEvaluation = settings.walkers * sampler.options.ensembles;
     const saveCheckpoint = () => {
@@ -212,8 +250,10 @@ async function fitOneModel(
     let stopReason: StopReason | null = null;
     let check: ConvergenceCheck | null = null;
     let lastCheckpoint = sampler.stepCount;
+    // Convergence is checked at every multiple of check_every steps, and only there, whether or not the run was
+    // resumed in between: a resumed run checks at its checkpoint's step only when an uninterrupted run checked there.
     let lastCheck = sampler.stepCount - (sampler.stepCount % settings.checkEvery);
-    if (sampler.stepCount > 0) check = checkConvergence(sampler, rule);
+    if (sampler.stepCount > 0 && sampler.stepCount % settings.checkEvery === 0) check = checkConvergence(sampler, rule);
     if (check?.converged) stopReason = 'converged';
     while (stopReason === null) {
       if (request.signal?.aborted) { stopReason = 'interrupted'; break; }
@@ -221,8 +261,15 @@ async function fitOneModel(
       if (elapsed > settings.maxMinutes * 60) { stopReason = 'wall_time'; break; }
       if (sampler.stepCount >= settings.maxSteps) { stopReason = 'max_steps'; break; }
       const slice = Math.min(STEPS_PER_SLICE, settings.maxSteps - sampler.stepCount, settings.checkEvery - (sampler.stepCount - lastCheck));
-      await sampler.advance(slice);
-      evaluations += slice * stepsPerEvaluation;
+      const before = sampler.stepCount;
+      try {
+        await sampler.advance(slice);
+      } catch (error) {
+        if (!isRunInterrupted(error)) throw error;
+        stopReason = 'interrupted'; // the sampler is back at the end of its last whole step
+      }
+      evaluations += (sampler.stepCount - before) * stepsPerEvaluation;
+      if (stopReason !== null) break;
       if (sampler.stepCount - lastCheck >= settings.checkEvery) {
         lastCheck = sampler.stepCount;
         check = checkConvergence(sampler, rule);
@@ -235,7 +282,8 @@ async function fitOneModel(
       request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps: settings.maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: rule.targetEss, acceptance: meanAcceptance(sampler) });
     }
     saveCheckpoint();
-    if (sampler.stepCount < 2 * 40) {
+    const summarized = sampler.stepCount >= MINIMUM_STEPS_FOR_OUTPUTS;
+    if (!summarized && stopReason !== 'interrupted') {
       throw new CandelaError({ code: 'run.too_short', message: `the run stopped after ${sampler.stepCount} steps, too few to summarize`, fix: 'raise sampler.max_steps or sampler.max_minutes (or resume the run with --resume)' });
     }
     check = checkConvergence(sampler, rule);
@@ -250,12 +298,26 @@ async function fitOneModel(
     } : fullRecord;
     writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
     writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
+    const warnings: Issue[] = [...data.warnings, ...model.supernovae.warnings.map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
+    if (!summarized) {
+      say(`model ${model.label}${partNote}: interrupted after ${sampler.stepCount} steps, fewer than the ${MINIMUM_STEPS_FOR_OUTPUTS} the summaries need; wrote the checkpoint, chains.csv and run.json in ${runDir}`);
+      return { model: model.label, runDir, record, warnings, summarized: false };
+    }
     writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, seed);
     buildRunOutputs([runDir], runDir);
     say(`model ${model.label}${partNote}: ${stopReason} after ${sampler.stepCount} steps in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
-    const warnings: Issue[] = [...data.warnings, ...model.supernovae.warnings.map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
-    return { model: model.label, runDir, record, warnings };
+    return { model: model.label, runDir, record, warnings, summarized: true };
   } finally {
     await evaluator.close();
+  }
+}
+
+/** Awaits a start-up stage; an interrupt there becomes {@link FitInterrupted} (no walker state exists yet to checkpoint). */
+async function interruptedIsStartup<T>(stage: Promise<T>, label: string): Promise<T> {
+  try {
+    return await stage;
+  } catch (error) {
+    if (!isRunInterrupted(error)) throw error;
+    throw new FitInterrupted(`interrupted while the walkers of ${label} were being placed, before any step: nothing to checkpoint; run the same command with --resume to start it`, []);
   }
 }

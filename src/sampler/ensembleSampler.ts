@@ -10,6 +10,16 @@ import { evaluateInitialWalkers } from './evaluateInitialWalkers.js';
 import type { BatchEvaluator } from './logProbabilityModel.js';
 import { checkSnapshotShape, SNAPSHOT_FORMAT, SNAPSHOT_VERSION } from './samplerSnapshot.js';
 import type { SamplerSnapshot } from './samplerSnapshot.js';
+import type { RandomState } from '../math/index.js';
+
+/** One ensemble's live state copied at the start of a step. */
+interface StepStartCopy {
+  randomState: RandomState;
+  positions: Float64Array;
+  logProb: Float64Array;
+  blobs: Float64Array;
+  acceptedCounts: Float64Array;
+}
 
 /*
  * Affine-invariant ensemble sampler (Goodman & Weare 2010) with the parallel
@@ -39,6 +49,8 @@ export class EnsembleSampler {
   private steps: number;
   private busy = false;
   private readonly batch: HalfStepBatch;
+  /** Each ensemble's state at the start of the step in progress, restored when a step fails half done. */
+  private readonly stepStart: StepStartCopy[];
 
   private constructor(readonly options: ResolvedEnsembleOptions, private readonly evaluator: BatchEvaluator, private readonly states: EnsembleState[], stepCount: number) {
     this.steps = stepCount;
@@ -49,6 +61,37 @@ export class EnsembleSampler {
       blobs: new Float64Array(largestBatch * evaluator.blobCount),
       correction: new Float64Array(largestBatch),
     };
+    this.stepStart = states.map((state) => ({
+      randomState: state.rng.state(),
+      positions: new Float64Array(state.positions.length),
+      logProb: new Float64Array(state.logProb.length),
+      blobs: new Float64Array(state.blobs.length),
+      acceptedCounts: new Float64Array(state.acceptedCounts.length),
+    }));
+  }
+
+  /** Copies every ensemble's live state (O(walkers x ensembles x (dimension + blobs)), no allocation but the stream state). */
+  private markStepStart(): void {
+    this.states.forEach((state, k) => {
+      const copy = this.stepStart[k];
+      copy.randomState = state.rng.state();
+      copy.positions.set(state.positions);
+      copy.logProb.set(state.logProb);
+      copy.blobs.set(state.blobs);
+      copy.acceptedCounts.set(state.acceptedCounts);
+    });
+  }
+
+  /** Puts every ensemble back to where the step in progress began (its stored chain never saw that step). */
+  private restoreStepStart(): void {
+    this.states.forEach((state, k) => {
+      const copy = this.stepStart[k];
+      state.rng = createRandomStream('', { ...copy.randomState });
+      state.positions.set(copy.positions);
+      state.logProb.set(copy.logProb);
+      state.blobs.set(copy.blobs);
+      state.acceptedCounts.set(copy.acceptedCounts);
+    });
   }
 
   /**
@@ -111,9 +154,12 @@ export class EnsembleSampler {
    * Throws CandelaError `sampler.invalid_option` for a bad step count,
    * `sampler.busy` when called while another advance runs,
    * `sampler.invalid_log_probability` when the model returns NaN or
-   * +Infinity; rejects with whatever the evaluator rejects with. After such
-   * an error the current step is half done: continue only from the last
-   * snapshot, not from this sampler.
+   * +Infinity; rejects with whatever the evaluator rejects with. When a step
+   * fails half done (an evaluator that rejects on an interrupt, a model
+   * error), every ensemble is put back to the state at the start of that
+   * step, random streams included, so the sampler holds exactly the steps
+   * before it and may be snapshot or advanced again as if the failed step had
+   * never begun.
    */
   async advance(steps: number, onStep?: (step: number) => boolean | void): Promise<void> {
     if (!Number.isInteger(steps) || steps < 0) throw new CandelaError({ code: 'sampler.invalid_option', path: 'steps', message: 'the number of steps must be a non-negative integer', found: String(steps) });
@@ -122,10 +168,16 @@ export class EnsembleSampler {
     try {
       for (const state of this.states) state.chain.reserve(this.steps + steps);
       for (let step = 0; step < steps; step++) {
-        for (let half = 0; half < 2; half++) {
-          const count = proposeHalf(this.states, this.options, half, this.batch);
-          await this.evaluator.evaluate(this.batch.points, count, this.batch.logProb, this.batch.blobs);
-          acceptHalf(this.states, this.options, half, this.batch, count, this.evaluator.blobCount);
+        this.markStepStart();
+        try {
+          for (let half = 0; half < 2; half++) {
+            const count = proposeHalf(this.states, this.options, half, this.batch);
+            await this.evaluator.evaluate(this.batch.points, count, this.batch.logProb, this.batch.blobs);
+            acceptHalf(this.states, this.options, half, this.batch, count, this.evaluator.blobCount);
+          }
+        } catch (error) {
+          this.restoreStepStart();
+          throw error;
         }
         for (const state of this.states) state.chain.append(state.positions, state.logProb, state.blobs);
         this.steps += 1;

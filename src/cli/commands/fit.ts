@@ -2,10 +2,14 @@ import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
 import cliProgress from 'cli-progress';
 import { CandelaError, formatIssue } from '../../errors.js';
-import { planSlurmArray, runFit, terminalRunReport, type FitProgress } from '../../pipeline/index.js';
+import { isFitInterrupted, planSlurmArray, runFit, terminalRunReport, type FitOutcome, type FitProgress } from '../../pipeline/index.js';
 
 /** Seconds between status lines when the output is not a terminal. */
 const STATUS_INTERVAL_SECONDS = 5;
+/** Exit code of a fit that was interrupted (128 + SIGINT, the shell convention). */
+const EXIT_INTERRUPTED = 130;
+/** The signals that ask a fit to stop: Ctrl-C, and what a scheduler or `kill` sends before the wall-time limit. */
+const STOP_SIGNALS = ['SIGINT', 'SIGTERM'] as const;
 
 function formatNumber(value: number | null | undefined, digits: number): string {
   return value === null || value === undefined || !Number.isFinite(value) ? '-' : value.toFixed(digits);
@@ -67,14 +71,35 @@ export function registerFitCommand(program: Command): void {
         return;
       }
       const controller = new AbortController();
-      const stop = () => controller.abort();
-      process.once('SIGINT', stop);
-      process.once('SIGTERM', stop);
+      // First signal: stop sampling, write the checkpoint and the outputs so far. Second: leave at once. Every file
+      // is written to a temporary name and renamed, so leaving at once corrupts nothing; the last checkpoint stays.
+      const stop = (signal: NodeJS.Signals) => {
+        if (controller.signal.aborted) {
+          process.stderr.write(`\n${signal} again: leaving at once; continue later with --resume from the last checkpoint\n`);
+          process.exit(EXIT_INTERRUPTED);
+        }
+        controller.abort();
+        if (!options.quiet) process.stderr.write(`\n${signal}: stopping; writing a checkpoint and the outputs so far (send it again to leave at once)\n`);
+      };
+      for (const name of STOP_SIGNALS) process.on(name, stop);
       const quiet = Boolean(options.quiet);
       const interactive = Boolean(process.stderr.isTTY) && !quiet;
       const bar = interactive ? new cliProgress.SingleBar({ format: '{bar} {status}', barsize: 20, hideCursor: true, stream: process.stderr }, cliProgress.Presets.shades_classic) : null;
       let barStarted = false;
       let lastStatus = 0;
+      const interruptedMessage = (outcomes: FitOutcome[]) => {
+        const short = outcomes.filter((outcome) => outcome.summarized === false).map((outcome) => outcome.model);
+        return `interrupted: the checkpoint and ${short.length ? 'the chains so far' : 'the outputs so far'} are written; continue with --resume${short.length ? ` (too few steps for summaries yet: ${short.join(', ')})` : ''}\n`;
+      };
+      const printOutcomes = (outcomes: FitOutcome[]) => {
+        if (quiet) return;
+        for (const outcome of outcomes) {
+          // An interrupted run says where its outputs are instead of reading them back: a signal asks to stop soon.
+          if (outcome.record.run.stop_reason === 'interrupted') process.stdout.write(`== ${outcome.model}: interrupted after ${outcome.record.run.steps} steps; outputs so far in ${outcome.runDir}\n`);
+          else process.stdout.write(`${terminalRunReport(outcome.runDir)}\n`);
+          for (const warning of outcome.warnings) process.stderr.write(`${formatIssue(warning)}\n`);
+        }
+      };
       try {
         const outcomes = await runFit({
           configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, part: options.part, signal: controller.signal,
@@ -94,21 +119,24 @@ export function registerFitCommand(program: Command): void {
             }
           },
         });
-        if (bar && barStarted) bar.stop();
-        if (!quiet) {
-          for (const outcome of outcomes) {
-            process.stdout.write(`${terminalRunReport(outcome.runDir)}\n`);
-            for (const warning of outcome.warnings) process.stderr.write(`${formatIssue(warning)}\n`);
-          }
+        if (bar && barStarted) { bar.stop(); barStarted = false; }
+        printOutcomes(outcomes);
+        // Exit 130 only when a model really stopped early; a signal that came after the sampling finished changes nothing.
+        if (outcomes.some((outcome) => outcome.record.run.stop_reason === 'interrupted')) {
+          process.stderr.write(interruptedMessage(outcomes));
+          process.exitCode = EXIT_INTERRUPTED;
+        } else if (controller.signal.aborted && !quiet) {
+          process.stderr.write('the signal came after the sampling had finished: the run is complete\n');
         }
-        if (controller.signal.aborted) {
-          process.stderr.write('interrupted: a checkpoint and the outputs so far are written; continue with --resume\n');
-          process.exitCode = 130;
-        }
+      } catch (error) {
+        if (!isFitInterrupted(error)) throw error;
+        if (bar && barStarted) { bar.stop(); barStarted = false; }
+        printOutcomes(error.outcomes);
+        process.stderr.write(`${error.message}\n`);
+        process.exitCode = EXIT_INTERRUPTED;
       } finally {
         if (bar && barStarted) bar.stop();
-        process.off('SIGINT', stop);
-        process.off('SIGTERM', stop);
+        for (const name of STOP_SIGNALS) process.off(name, stop);
       }
     });
 }
