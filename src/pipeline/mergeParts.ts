@@ -1,5 +1,5 @@
 import { existsSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { configToPlainObject, loadConfigFile, resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
 import { CandelaError } from '../errors.js';
 import { writeFileAtomic } from '../output/index.js';
@@ -10,9 +10,11 @@ import { writeChainsFile } from './chainsFile.js';
 import { writeHubbleFiles } from './hubbleFiles.js';
 import { loadSupernovae } from './loadSupernovae.js';
 import { readPartsForMerge, type PartOnDisk, type PartRecord } from './mergeChecks.js';
+import { judgeMergedRun, type MergeVerdict } from './mergeVerdict.js';
 import { createRunRecord, type RunRecord } from './runRecord.js';
 import { prepareRunFolder, RUN_FILES } from './runFolder.js';
 import { checkConvergence, type StopReason } from './samplingLoop.js';
+import { SLURM_FILES, SLURM_FOLDER } from './slurmPlan.js';
 
 /** Fewest steps a merged run may keep (as for a fit: the diagnostics need a few draws per split chain). */
 const MINIMUM_MERGED_STEPS = 80;
@@ -33,9 +35,31 @@ export type MergedRunRecord = Omit<RunRecord, 'run'> & {
   merge: {
     ensembles_total: number;
     truncated_to_steps: number;
-    parts: Array<{ dir: string; ensemble: number; steps: number; stop_reason: string; evaluations: number; wall_seconds: number }>;
+    /** Every sampled parameter meets target_ess and max_rhat over the merged ensembles. */
+    targets_met: boolean;
+    /** Missed targets and parts that stopped before their step count, one sentence each. */
+    shortfalls: string[];
+    /** Steps to continue every part to (--resume) when the targets are missed, else null. */
+    steps_suggested: number | null;
+    /** What to run next when the targets are missed, else null. */
+    remedy: string | null;
+    parts: Array<{ dir: string; index: number; ensemble: number; steps: number; steps_target: number | null; stop_reason: string; evaluations: number; wall_seconds: number }>;
   };
 };
+
+/** The batch script of the plan the parts came from (`<out>/slurm/...` for parts in `<out>/parts/<model>/ensemble-<k>`), when it exists. */
+function planScriptOf(partDir: string): string | null {
+  const path = join(dirname(dirname(dirname(resolve(partDir)))), SLURM_FOLDER, SLURM_FILES.batch);
+  return existsSync(path) ? path : null;
+}
+
+/** One sentence saying how to continue the parts to `steps`: through the plan's batch script when there is one, else part by part. */
+function remedyFor(steps: number, parts: PartOnDisk[], configFile: string, outDir: string): string {
+  const script = planScriptOf(parts[0].dir);
+  const direct = `candela fit ${configFile} --out <out> --part I --steps-per-part ${steps} --resume for I in ${parts.map((part) => part.record.part.index).join(', ')}`;
+  const submit = script ? `submit the plan again with the step count, \`sbatch ${script} ${steps}\` (each part continues from its checkpoint), or run ` : 'run ';
+  return `continue every part to ${steps} steps: ${submit}${direct}; then merge again with --force into ${outDir}`;
+}
 
 /** The configuration the parts ran, loaded again from its file and checked against their records. */
 function loadPartConfiguration(first: PartRecord, dir: string): CandelaConfig {
@@ -86,15 +110,20 @@ function truncatedEnsemble(part: PartOnDisk, steps: number): EnsembleSnapshot {
  * again). When the parts hold every ensemble and ran to the same step count,
  * chains.csv equals that of a single `candela fit` byte for byte.
  *
+ * The merged run is judged against target_ess and max_rhat of the
+ * configuration (judgeMergedRun): the folder is written either way, and the
+ * returned verdict (also in run.json under `merge`) says whether the targets
+ * are met, what falls short, and how many steps to continue the parts to.
+ *
  * Cost: reading the parts, rebuilding the likelihood, the diagnostics and outputs of a fit.
  * @param request part folders, output folder, force.
- * @returns the merged folder and its record.
+ * @returns the merged folder, its record and the verdict on the targets.
  * @throws CandelaError: those of readPartsForMerge; `merge.configuration_missing`,
  *   `merge.configuration_changed`, `merge.inputs_changed` (data files changed since the parts ran),
  *   `merge.too_short`; `run.folder_not_empty` without force. Nothing is written when it throws before sampling outputs.
  * @example await mergeParts({ partDirs: ['out/parts/flat_lcdm/ensemble-0', 'out/parts/flat_lcdm/ensemble-1'], outDir: 'out/flat_lcdm' })
  */
-export async function mergeParts(request: MergeRequest): Promise<{ runDir: string; record: MergedRunRecord }> {
+export async function mergeParts(request: MergeRequest): Promise<{ runDir: string; record: MergedRunRecord; verdict: MergeVerdict }> {
   const parts = readPartsForMerge(request.partDirs, request.outDir);
   const first = parts[0];
   const config = loadPartConfiguration(first.record, first.dir);
@@ -104,7 +133,7 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   const steps = Math.min(...parts.map((part) => part.snapshot.stepCount));
   if (steps < MINIMUM_MERGED_STEPS) {
     const shortest = parts.find((part) => part.snapshot.stepCount === steps) as PartOnDisk;
-    throw new CandelaError({ code: 'merge.too_short', file: shortest.dir, message: `the part ${shortest.dir} holds ${steps} steps, too few to summarize`, expected: `>= ${MINIMUM_MERGED_STEPS} steps`, found: String(steps), fix: 'continue that part with `candela fit CONFIG --part I --resume` and a larger sampler.max_steps' });
+    throw new CandelaError({ code: 'merge.too_short', file: shortest.dir, message: `the part ${shortest.dir} holds ${steps} steps, too few to summarize`, expected: `>= ${MINIMUM_MERGED_STEPS} steps`, found: String(steps), fix: 'continue that part with `candela fit CONFIG --part I --resume --steps-per-part N` (or submit the plan again), then merge again' });
   }
   const indices = parts.map((part) => part.record.part.ensemble);
   const merged: SamplerSnapshot = {
@@ -123,13 +152,22 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   if (JSON.stringify(base.inputs.map((input) => input.sha256)) !== recorded) {
     throw new CandelaError({ code: 'merge.inputs_changed', file: join(first.dir, RUN_FILES.run), message: 'an input file (configuration or data) changed since the parts ran: its SHA-256 differs from the parts\' records', fix: 'restore the files the parts ran with, or rerun the parts' });
   }
+  const progress = parts.map((part) => ({ dir: part.dir, steps: part.snapshot.stepCount, stepsTarget: part.record.part.steps_target ?? null, stopReason: part.record.run.stop_reason }));
+  const verdict = judgeMergedRun(check, { targetEss: config.sampler.targetEss, maxRhat: config.sampler.maxRhat }, model.parameterNames, progress);
   const record: MergedRunRecord = {
     ...base,
     run: { ...base.run, ensembles: parts.length, stop_reason: 'merged' },
     merge: {
       ensembles_total: first.record.part.ensembles_total,
       truncated_to_steps: steps,
-      parts: parts.map((part) => ({ dir: part.dir, ensemble: part.record.part.ensemble, steps: part.snapshot.stepCount, stop_reason: part.record.run.stop_reason, evaluations: part.evaluations, wall_seconds: part.record.run.wall_seconds })),
+      targets_met: verdict.targetsMet,
+      shortfalls: verdict.shortfalls,
+      steps_suggested: verdict.suggestedSteps,
+      remedy: verdict.suggestedSteps === null ? null : remedyFor(verdict.suggestedSteps, parts, first.record.inputs[0].path, request.outDir),
+      parts: parts.map((part, i) => ({
+        dir: part.dir, index: part.record.part.index, ensemble: part.record.part.ensemble, steps: part.snapshot.stepCount, steps_target: progress[i].stepsTarget,
+        stop_reason: part.record.run.stop_reason, evaluations: part.evaluations, wall_seconds: part.record.run.wall_seconds,
+      })),
     },
   };
   prepareRunFolder(request.outDir, { force: Boolean(request.force), resume: false });
@@ -139,5 +177,5 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   writeFileAtomic(join(request.outDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
   writeHubbleFiles(request.outDir, model, ensembles, check.burnInSteps, String(config.seed));
   buildRunOutputs([request.outDir], request.outDir);
-  return { runDir: request.outDir, record };
+  return { runDir: request.outDir, record, verdict };
 }

@@ -62,6 +62,12 @@ export interface FitRequest {
    */
   part?: number;
   /**
+   * With `part`: the step count the part runs to, replacing sampler.max_steps
+   * (a cluster plan gives every part the same count, see planSlurmArray; the
+   * configuration stays unchanged, so the parts still merge).
+   */
+  partSteps?: number;
+  /**
    * Set when the user interrupts (SIGINT, SIGTERM): the step in progress is
    * abandoned (the sampler returns to its start), then the checkpoint and
    * the outputs of the steps so far are written and the run returns with
@@ -195,9 +201,11 @@ async function createEvaluator(config: CandelaConfig, index: number, model: Buil
  * part's ensemble k: the walkers of every ensemble are initialized as in a
  * full run (initializeWalkers is deterministic from the seed) and ensemble
  * k's are kept, and its random stream is derived from k (ensembleIndices),
- * so its chain is bit-identical to ensemble k of the full run. A part stops
- * at max_steps, at max_minutes, or when its own ensemble (every walker a
- * chain) has bulk ESS >= target_ess / ensembles and R-hat <= max_rhat.
+ * so its chain is bit-identical to ensemble k of the full run. A part never
+ * stops on its own diagnostics (one ensemble's R-hat and ESS say little about
+ * the merged run's): it runs to `request.partSteps` (default max_steps), or
+ * stops at max_minutes (of this session: each resumption gets a fresh budget)
+ * or on a signal; `candela merge` checks the targets.
  */
 async function fitOneModel(
   config: CandelaConfig, index: number, model: BuiltModel, data: LoadedSupernovae, runDir: string, request: FitRequest, part?: FitPart,
@@ -212,6 +220,7 @@ async function fitOneModel(
   const workers = workerCount(config, request);
   const partNote = part ? ` (part ${part.index}: ensemble ${part.ensemble} of ${part.ensembles})` : '';
   const rule = { targetEss: part ? settings.targetEss / part.ensembles : settings.targetEss, maxRhat: settings.maxRhat };
+  const maxSteps = part && request.partSteps !== undefined ? request.partSteps : settings.maxSteps;
   say(`model ${model.label}${partNote}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
   for (const line of model.supernovae.describe()) say(`  ${line}`);
   const evaluator = createInterruptibleEvaluator(await (earlyEvaluator ?? createEvaluator(config, index, model, workers)), request.signal);
@@ -254,13 +263,14 @@ async function fitOneModel(
     // resumed in between: a resumed run checks at its checkpoint's step only when an uninterrupted run checked there.
     let lastCheck = sampler.stepCount - (sampler.stepCount % settings.checkEvery);
     if (sampler.stepCount > 0 && sampler.stepCount % settings.checkEvery === 0) check = checkConvergence(sampler, rule);
-    if (check?.converged) stopReason = 'converged';
+    if (check?.converged && !part) stopReason = 'converged';
     while (stopReason === null) {
       if (request.signal?.aborted) { stopReason = 'interrupted'; break; }
-      const elapsed = previousSeconds + (Date.now() - started) / 1000;
+      // A part's max_minutes counts this session only: a cluster job that stopped at its time limit continues with a fresh budget when submitted again.
+      const elapsed = (part ? 0 : previousSeconds) + (Date.now() - started) / 1000;
       if (elapsed > settings.maxMinutes * 60) { stopReason = 'wall_time'; break; }
-      if (sampler.stepCount >= settings.maxSteps) { stopReason = 'max_steps'; break; }
-      const slice = Math.min(STEPS_PER_SLICE, settings.maxSteps - sampler.stepCount, settings.checkEvery - (sampler.stepCount - lastCheck));
+      if (sampler.stepCount >= maxSteps) { stopReason = 'max_steps'; break; }
+      const slice = Math.min(STEPS_PER_SLICE, maxSteps - sampler.stepCount, settings.checkEvery - (sampler.stepCount - lastCheck));
       const before = sampler.stepCount;
       try {
         await sampler.advance(slice);
@@ -273,13 +283,13 @@ async function fitOneModel(
       if (sampler.stepCount - lastCheck >= settings.checkEvery) {
         lastCheck = sampler.stepCount;
         check = checkConvergence(sampler, rule);
-        if (check.converged) stopReason = 'converged';
+        if (check.converged && !part) stopReason = 'converged';
       }
       if (settings.checkpointEvery > 0 && sampler.stepCount - lastCheckpoint >= settings.checkpointEvery) {
         saveCheckpoint();
         lastCheckpoint = sampler.stepCount;
       }
-      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps: settings.maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: rule.targetEss, acceptance: meanAcceptance(sampler) });
+      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: rule.targetEss, acceptance: meanAcceptance(sampler) });
     }
     saveCheckpoint();
     const summarized = sampler.stepCount >= MINIMUM_STEPS_FOR_OUTPUTS;
@@ -294,7 +304,7 @@ async function fitOneModel(
     const record: RunRecord & { part?: PartFacts } = part ? {
       ...fullRecord,
       run: { ...fullRecord.run, ensembles: 1, target_ess: rule.targetEss },
-      part: { index: part.index, model_index: part.modelIndex, ensemble: part.ensemble, ensembles_total: part.ensembles, part_target_ess: rule.targetEss },
+      part: { index: part.index, model_index: part.modelIndex, ensemble: part.ensemble, ensembles_total: part.ensembles, part_target_ess: rule.targetEss, steps_target: maxSteps },
     } : fullRecord;
     writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
     writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));

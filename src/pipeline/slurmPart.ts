@@ -29,8 +29,10 @@ export interface PartFacts {
   model_index: number;
   ensemble: number;
   ensembles_total: number;
-  /** The per-part bulk-ESS target: target_ess / ensembles_total. */
+  /** The bulk-ESS target of the part's own summary, target_ess / ensembles_total (informational: a part does not stop on it). */
   part_target_ess: number;
+  /** The step count the part was asked to run to (--steps-per-part, default sampler.max_steps). */
+  steps_target: number;
 }
 
 /** Name of the folder under the output folder that holds every part. */

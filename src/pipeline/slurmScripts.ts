@@ -4,7 +4,17 @@
  * options from `#SBATCH` comment lines before the first command (Slurm
  * sbatch manual, "batch script"); the array task id arrives in the
  * environment variable SLURM_ARRAY_TASK_ID and the granted CPUs in
- * SLURM_CPUS_PER_TASK (same manual, "output environment variables").
+ * SLURM_CPUS_PER_TASK (same manual, "output environment variables");
+ * arguments after the script name on the sbatch line reach the script as
+ * $1, $2, ... (same manual, synopsis).
+ *
+ * Stopping before the time limit: `--signal=B:TERM@S` asks Slurm to send
+ * SIGTERM to the batch shell S seconds before the limit (same manual,
+ * --signal; "B:" signals the batch shell only). The part's command is run
+ * with `exec`, so the batch shell *is* candela and receives the signal:
+ * candela finishes the step in progress, writes its checkpoint and exits
+ * 130. Submitting the same script again continues every part from its
+ * checkpoint (the script passes --resume when one exists).
  */
 
 /** Extra wall time granted to a part beyond sampler.max_minutes, as a fraction of it: data loading and the walker search before sampling. */
@@ -22,8 +32,16 @@ export interface SlurmScriptInput {
   partCount: number;
   /** CPUs per array task, also the worker threads of a part when Slurm does not say. */
   cpusPerTask: number;
-  /** sampler.max_minutes of the configuration. */
-  maxMinutes: number;
+  /** Time limit of each part, minutes. */
+  partMinutes: number;
+  /** Seconds before the time limit at which Slurm sends SIGTERM to a part. */
+  stopWarningSeconds: number;
+  /** Steps every part runs to unless the submit line gives another count as the script's first argument. */
+  stepsPerPart: number;
+  /** Account, partition and memory per job; null: not written (the cluster's default applies). */
+  account: string | null;
+  queue: string | null;
+  memory: string | null;
   /** Absolute folder the scripts `cd` into before running candela. */
   workingDir: string;
   /** The command that starts candela, one word per entry (e.g. node and the entry script, or npx candela). */
@@ -38,8 +56,8 @@ export interface SlurmScriptInput {
   sbatchPath: string;
   /** Absolute path of the merge script. */
   mergePath: string;
-  /** One line per part: index, model label, ensemble. */
-  parts: Array<{ index: number; label: string; ensemble: number }>;
+  /** One entry per part, in index order: index, model label, ensemble, absolute part folder. */
+  parts: Array<{ index: number; label: string; ensemble: number; runDir: string }>;
   /** One merge per model: its part folders and the merged folder, absolute. */
   merges: Array<{ label: string; partDirs: string[]; runDir: string }>;
 }
@@ -88,8 +106,20 @@ export function partTimeMinutes(maxMinutes: number): number {
 
 const quoteAll = (words: readonly string[]) => words.map(shellQuote).join(' ');
 
+/** The `#SBATCH` lines both jobs share: account, partition and memory, each only when given. */
+function siteLines(input: SlurmScriptInput): string[] {
+  return [
+    ...(input.account === null ? [] : [`#SBATCH --account=${input.account}`]),
+    ...(input.queue === null ? [] : [`#SBATCH --partition=${input.queue}`]),
+    ...(input.memory === null ? [] : [`#SBATCH --mem=${input.memory}`]),
+  ];
+}
+
 /**
- * The job-array batch script: task I runs `candela fit CONFIG --out DIR --part I`.
+ * The job-array batch script: task I runs
+ * `exec <launcher> fit CONFIG --out DIR --part I --steps-per-part N [--resume]`,
+ * with N the script's first argument or the plan's step count, and --resume
+ * when the part's folder already holds a checkpoint.
  * Cost: O(parts).
  * @param input the plan.
  * @returns the script text (bash).
@@ -97,15 +127,17 @@ const quoteAll = (words: readonly string[]) => words.map(shellQuote).join(' ');
  * @example slurmBatchScript(input).includes('#SBATCH --array=0-7') // for 8 parts
  */
 export function slurmBatchScript(input: SlurmScriptInput): string {
-  const command = [quoteAll(input.launcher), 'fit', shellQuote(input.configPath), '--out', shellQuote(input.outDir),
-    '--part', '"$SLURM_ARRAY_TASK_ID"', '--workers', `"\${SLURM_CPUS_PER_TASK:-${input.cpusPerTask}}"`].join(' ');
+  const command = ['exec', quoteAll(input.launcher), 'fit', shellQuote(input.configPath), '--out', shellQuote(input.outDir),
+    '--part', '"$SLURM_ARRAY_TASK_ID"', '--workers', `"\${SLURM_CPUS_PER_TASK:-${input.cpusPerTask}}"`, '--steps-per-part', '"$steps"', '$resume'].join(' ');
   return [
     '#!/bin/bash',
     `#SBATCH --job-name=${input.jobName}`,
     `#SBATCH --array=0-${input.partCount - 1}`,
     '#SBATCH --ntasks=1',
     `#SBATCH --cpus-per-task=${input.cpusPerTask}`,
-    `#SBATCH --time=${slurmTimeLimit(partTimeMinutes(input.maxMinutes))}`,
+    `#SBATCH --time=${slurmTimeLimit(input.partMinutes)}`,
+    `#SBATCH --signal=B:TERM@${input.stopWarningSeconds}`,
+    ...siteLines(input),
     `#SBATCH --output=${input.logsDir}/part-%A_%a.log`,
     '#',
     '# Written by `candela fit CONFIG --plan slurm`. One array task per part:',
@@ -113,20 +145,32 @@ export function slurmBatchScript(input: SlurmScriptInput): string {
     '# <out>/parts/<model>/ensemble-<k>/. Parts of this configuration:',
     ...input.parts.map((part) => `#   ${part.index}: model ${part.label}, ensemble ${part.ensemble}`),
     '#',
+    `# Every part runs to the same step count (${input.stepsPerPart}, or the first argument after`,
+    '# the script name), so that the merged run equals one fit of that length.',
     `# Submit:     sbatch ${shellQuote(input.sbatchPath)}`,
     `# Then merge: sbatch --dependency=afterok:<jobid> ${shellQuote(input.mergePath)}`,
-    '# A task that failed or ran out of time continues with the same command plus --resume.',
+    `# ${input.stopWarningSeconds} s before the time limit Slurm sends SIGTERM; the part writes its`,
+    '# checkpoint and exits 130. Submitting this script again continues every part',
+    '# from its checkpoint (--array=I,J for some parts only); more steps after a',
+    `# merge that did not converge: sbatch ${shellQuote(input.sbatchPath)} <steps>`,
     'set -euo pipefail',
     `cd ${shellQuote(input.workingDir)}`,
+    `steps="\${1:-${input.stepsPerPart}}"`,
+    `folders=(${input.parts.map((part) => shellQuote(part.runDir)).join(' ')})`,
+    'resume=\'\'',
+    'if [ -e "${folders[$SLURM_ARRAY_TASK_ID]}/checkpoint.bin" ]; then resume=--resume; fi',
     command,
     '',
   ].join('\n');
 }
 
 /**
- * The merge script: one `candela merge` per model, each into `<out>/<model>`.
- * Runs as a Slurm job after the array (`sbatch --dependency=afterok:<jobid>`)
- * or directly with bash.
+ * The merge script: one `candela merge --force` per model, each into
+ * `<out>/<model>` (a merged folder holds nothing the parts do not, so it is
+ * replaced when the parts ran longer). Runs as a Slurm job after the array
+ * (`sbatch --dependency=afterok:<jobid>`) or directly with bash. It runs every
+ * merge and exits with the last non-zero code: 3 when a merged run misses
+ * the convergence targets, 2 on bad parts.
  * Cost: O(parts).
  * @param input the plan.
  * @returns the script text (bash).
@@ -140,15 +184,19 @@ export function slurmMergeScript(input: SlurmScriptInput): string {
     '#SBATCH --ntasks=1',
     '#SBATCH --cpus-per-task=1',
     `#SBATCH --time=${slurmTimeLimit(MERGE_TIME_MINUTES)}`,
+    ...siteLines(input),
     `#SBATCH --output=${input.logsDir}/merge-%j.log`,
     '#',
     '# Combines the parts of each model into one run folder once every array task',
     '# has finished. Submit it so that it waits for the array job:',
     `#   sbatch --dependency=afterok:<jobid> ${shellQuote(input.mergePath)}`,
-    '# or run it with bash when the array is done.',
-    'set -euo pipefail',
-    `cd ${shellQuote(input.workingDir)}`,
-    ...input.merges.map((merge) => [quoteAll(input.launcher), 'merge', ...merge.partDirs.map(shellQuote), '--out', shellQuote(merge.runDir)].join(' ')),
+    '# or run it with bash when the array is done. Exit code 3: a merged run does',
+    '# not meet target_ess and max_rhat; its log says how many steps to add.',
+    'set -uo pipefail',
+    `cd ${shellQuote(input.workingDir)} || exit 2`,
+    'status=0',
+    ...input.merges.map((merge) => `${[quoteAll(input.launcher), 'merge', ...merge.partDirs.map(shellQuote), '--out', shellQuote(merge.runDir), '--force'].join(' ')} || status=$?`),
+    'exit "$status"',
     '',
   ].join('\n');
 }

@@ -17,7 +17,8 @@ import { mergeParts, runFit } from '../../src/pipeline/index.js';
 // the merged chains.csv must equal its chains.csv byte for byte. Data:
 // the Pantheon 2018 binned Hubble diagram (../shared/data-real/pantheon2018,
 // Scolnic et al. 2018); target_ess is out of reach so every run stops at
-// max_steps.
+// max_steps, and the merge must say that the merged run misses it.
+// slurmCluster.test.ts runs the same scripts under a real one-node Slurm.
 const scratch = resolve('.candela-tmp/slurm-array');
 const STEPS = 150;
 
@@ -33,7 +34,7 @@ function writeConfig(name: string, seed = 11): string {
   return path;
 }
 
-/** Splits one shell command line into words: single quotes literal, double quotes expand $NAME and ${NAME:-default}. */
+/** Splits one shell command line into words: single quotes literal, double quotes expand $NAME and ${NAME:-default}; an unquoted expansion that is empty is no word. */
 function shellWords(line: string, env: Record<string, string>): string[] {
   const expand = (text: string) => text.replace(/\$\{(\w+):-([^}]*)\}|\$(\w+)/g, (_, name: string, fallback: string, bare: string) => env[name ?? bare] ?? (name ? fallback : ''));
   const words: string[] = [];
@@ -42,6 +43,7 @@ function shellWords(line: string, env: Record<string, string>): string[] {
   for (const match of line.matchAll(pattern)) {
     if (match[4] !== undefined) { if (current !== null) words.push(current); current = null; continue; }
     const piece = match[1] ?? expand(match[2] ?? match[3]);
+    if (match[3] !== undefined && piece === '' && current === null) continue;
     current = (current ?? '') + piece;
   }
   if (current !== null) words.push(current);
@@ -89,6 +91,8 @@ describe('candela fit --plan slurm, the array tasks, and merge.sh', () => {
     expect(batch).toMatch(/^#SBATCH --array=0-1$/m); // 1 model x 2 ensembles
     expect(batch).toMatch(/^#SBATCH --cpus-per-task=1$/m); // sampler.workers
     expect(batch).toMatch(/^#SBATCH --time=00:43:00$/m); // 30 min x 1.1 + 10 min
+    expect(batch).toMatch(/^#SBATCH --signal=B:TERM@600$/m); // SIGTERM to the batch shell 10 min before the limit (sbatch manual, --signal)
+    expect(batch).not.toMatch(/^#SBATCH --(account|partition|mem)=/m); // none asked: the cluster's defaults
     expect(batch).toMatch(/^#SBATCH --job-name=candela-cluster$/m);
     expect(batch).toMatch(/^#SBATCH --output=.*\/slurm\/logs\/part-%A_%a\.log$/m);
     expect(existsSync(join(clusterDir, 'slurm', 'logs'))).toBe(true);
@@ -103,29 +107,42 @@ describe('candela fit --plan slurm, the array tasks, and merge.sh', () => {
     const range = /^#SBATCH --array=(\d+)-(\d+)$/m.exec(batch);
     expect(range).not.toBeNull();
     const command = batch.trim().split('\n').at(-1) as string;
+    expect(command.startsWith('exec ')).toBe(true); // the batch shell becomes candela, so Slurm's signal reaches it
+    const steps = /^steps="\$\{1:-(\d+)\}"$/m.exec(batch);
+    expect(steps?.[1]).toBe(String(STEPS)); // sampler.max_steps when --steps-per-part is not given
     const cd = shellWords(batch.split('\n').find((line) => line.startsWith('cd ')) as string, {});
     expect(cd[1]).toBe(process.cwd());
     // The launcher is this node binary and candela's own entry script (src/cli/main.ts here, dist/src/cli/main.js when built).
-    const launcher = shellWords(command, {}).slice(0, 2);
+    const launcher = shellWords(command, {}).slice(1, 3);
     expect(launcher[0]).toBe(process.execPath);
     expect(launcher[1]).toBe(resolve('src/cli/main.js'));
     for (let task = Number(range![1]); task <= Number(range![2]); task++) {
-      const argv = candelaArguments(shellWords(command, { SLURM_ARRAY_TASK_ID: String(task) }), 'fit');
+      // No checkpoint yet, so the script's `resume` is empty.
+      const argv = candelaArguments(shellWords(command, { SLURM_ARRAY_TASK_ID: String(task), steps: steps![1], resume: '' }), 'fit');
       expect(argv).toContain('--part');
       expect(await runCli(argv)).toBe(0);
       const record = JSON.parse(readFileSync(join(partDir(task), 'run.json'), 'utf8'));
       expect(record.part.ensemble).toBe(task);
       expect(record.run.ensembles).toBe(1);
       expect(record.run.steps).toBe(STEPS);
+      expect(record.part.steps_target).toBe(STEPS);
     }
   }, 60_000);
 
-  it('merges the parts into chains.csv equal byte for byte to a single full fit', async () => {
+  it('merges the parts into chains.csv equal byte for byte to a single full fit, and says that it misses target_ess', async () => {
     const merge = readFileSync(join(clusterDir, 'slurm', 'merge.sh'), 'utf8');
     expect(merge).toMatch(/sbatch --dependency=afterok:<jobid>/);
     const commands = merge.split('\n').filter((line) => !line.startsWith('#') && / merge /.test(line));
     expect(commands).toHaveLength(1); // one model
-    for (const line of commands) expect(await runCli(candelaArguments(shellWords(line, {}), 'merge'))).toBe(0);
+    const stderrBefore = vi.mocked(process.stderr.write).mock.calls.length;
+    for (const line of commands) {
+      expect(line.endsWith(' || status=$?')).toBe(true);
+      expect(await runCli(candelaArguments(shellWords(line.replace(/ \|\| status=\$\?$/, ''), {}), 'merge'))).toBe(3); // target_ess 10^6 is out of reach
+    }
+    const printed = vi.mocked(process.stderr.write).mock.calls.slice(stderrBefore).map((call) => String(call[0])).join('');
+    expect(printed).toMatch(/^NOT CONVERGED: the merged run of flat_wcdm misses its targets \(target_ess 1000000, max_rhat 1\.01\):$/m);
+    expect(printed).toMatch(/the bulk ESS of w0 is \d+, below target_ess 1000000/);
+    expect(printed).toContain(`sbatch ${join(clusterDir, 'slurm', 'candela-parts.sbatch')} `);
     const merged = readFileSync(join(mergedDir, 'chains.csv'));
     const full = readFileSync(join(fullDir, 'chains.csv'));
     expect(merged.length).toBeGreaterThan(1000);
@@ -135,6 +152,9 @@ describe('candela fit --plan slurm, the array tasks, and merge.sh', () => {
     const record = JSON.parse(readFileSync(join(mergedDir, 'run.json'), 'utf8'));
     const partEvaluations = [0, 1].map((k) => JSON.parse(readFileSync(join(partDir(k), 'run.json'), 'utf8')).run.evaluations as number);
     expect(record.run.stop_reason).toBe('merged');
+    expect(record.merge.targets_met).toBe(false);
+    expect(record.merge.steps_suggested).toBeGreaterThan(STEPS);
+    expect(record.merge.parts.map((part: { steps_target: number }) => part.steps_target)).toEqual([STEPS, STEPS]);
     expect(record.run.ensembles).toBe(2);
     expect(record.run.evaluations).toBe(partEvaluations[0] + partEvaluations[1]);
     expect(record.merge.parts.map((part: { ensemble: number }) => part.ensemble)).toEqual([0, 1]);
@@ -193,6 +213,7 @@ describe('mergeParts', () => {
     await runFit({ configPath: writeConfig('cluster'), outDir: shortDir, part: 1, signal: controller.signal, onProgress: (p) => { if (p.step >= 100) controller.abort(); } });
     const { record } = await mergeParts({ partDirs: [partDir(0), join(shortDir, 'parts', 'flat_wcdm', 'ensemble-1')], outDir: join(scratch, 'cut') });
     expect(record.run.steps).toBe(100);
+    expect(record.merge.shortfalls).toContain(`the part ${join(shortDir, 'parts', 'flat_wcdm', 'ensemble-1')} stopped (interrupted) at step 100 of ${STEPS}; the merge cut every part to its length`);
     // Every value of the cut run equals the full run's at the same ensemble, walker and step (the burn-in flag is chosen again).
     const rows = (path: string) => readFileSync(path, 'utf8').trim().split('\n').map((line) => line.slice(0, line.lastIndexOf(',')));
     const cut = rows(join(scratch, 'cut', 'chains.csv'));

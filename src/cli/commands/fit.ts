@@ -40,6 +40,18 @@ function currentLauncher(): string[] {
   return [process.execPath, fileURLToPath(new URL('../main.js', import.meta.url))];
 }
 
+/** A parser for an option that takes a whole number (>= 0). */
+function wholeNumber(option: string): (text: string) => number {
+  return (text) => {
+    if (!/^\d+$/.test(text.trim())) throw new CandelaError({ code: 'fit.bad_number', path: option, message: `${option} takes a whole number`, found: text });
+    return Number(text);
+  };
+}
+
+/** The options of a cluster plan (`--plan slurm`), by their command-line names. */
+const PLAN_OPTIONS = ['clusterAccount', 'clusterQueue', 'partMemory', 'partMinutes', 'stopWarning', 'nodeBinary'] as const;
+const optionName = (key: string) => `--${key.replace(/[A-Z]/g, (letter) => `-${letter.toLowerCase()}`)}`;
+
 function parsePart(text: string): number {
   if (!/^\d+$/.test(text.trim())) throw new CandelaError({ code: 'fit.bad_part', path: '--part', message: 'the part index must be a whole number >= 0', found: text, fix: 'use a task id of the array written by --plan slurm' });
   return Number(text);
@@ -61,15 +73,34 @@ export function registerFitCommand(program: Command): void {
     .option('--quiet', 'print nothing but errors')
     .option('--part <index>', 'run only part I = model index x ensembles + ensemble, into <out>/parts/<model>/ensemble-<k>', parsePart)
     .option('--plan <scheduler>', 'write a job-array plan for a cluster scheduler instead of sampling (slurm)')
-    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n  candela fit configs/demo.yaml --out out/demo --plan slurm\n  candela fit configs/demo.yaml --out out/demo --part 3\n\nCtrl-C writes a checkpoint and the outputs so far; --resume continues the run.\n')
-    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string }) => {
+    .option('--steps-per-part <n>', 'with --plan or --part: the step count every part runs to (default sampler.max_steps; a part never stops early on its own diagnostics)', wholeNumber('--steps-per-part'))
+    .option('--cluster-account <name>', 'with --plan: the Slurm account the jobs are charged to (default: your default account)')
+    .option('--cluster-queue <partition>', 'with --plan: the Slurm partition the jobs run in (default: the cluster\'s default)')
+    .option('--part-memory <size>', 'with --plan: memory per job, e.g. 4G or 4000 (megabytes); default: the partition\'s')
+    .option('--part-minutes <n>', 'with --plan: time limit of each part in minutes (default sampler.max_minutes x 1.1 + 10)', wholeNumber('--part-minutes'))
+    .option('--stop-warning <seconds>', 'with --plan: Slurm sends SIGTERM this long before the time limit; the part writes its checkpoint and stops (default 600)', wholeNumber('--stop-warning'))
+    .option('--node-binary <path>', 'with --plan: the node the cluster starts candela with (default: the node running this command)')
+    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n  candela fit configs/demo.yaml --out out/demo --plan slurm --steps-per-part 8000 --cluster-queue short --part-memory 4G\n  candela fit configs/demo.yaml --out out/demo --part 3\n\nCtrl-C writes a checkpoint and the outputs so far; --resume continues the run.\n')
+    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string;
+      stepsPerPart?: number; clusterAccount?: string; clusterQueue?: string; partMemory?: string; partMinutes?: number; stopWarning?: number; nodeBinary?: string }) => {
       if (options.plan !== undefined) {
         if (options.plan !== 'slurm') throw new CandelaError({ code: 'fit.unknown_plan', path: '--plan', message: 'this scheduler is not supported', expected: 'slurm', found: options.plan });
         if (options.part !== undefined) throw new CandelaError({ code: 'fit.plan_with_part', path: '--part', message: '--plan writes the scripts of every part; it takes no --part', fix: 'drop --part' });
-        const plan = planSlurmArray({ configPath, outDir: options.out, force: options.force, launcher: currentLauncher(), workingDir: process.cwd() });
-        process.stdout.write(`wrote ${plan.batchPath} (${plan.parts} array tasks) and ${plan.mergePath}\nsubmit with:\n  ${plan.submitCommand}\nthen merge when every task has succeeded:\n  sbatch --dependency=afterok:<jobid> ${plan.mergePath}\n`);
+        const launcher = currentLauncher();
+        if (options.nodeBinary !== undefined) launcher[0] = options.nodeBinary;
+        const plan = planSlurmArray({
+          configPath, outDir: options.out, force: options.force, launcher, workingDir: process.cwd(),
+          account: options.clusterAccount, queue: options.clusterQueue, memory: options.partMemory, partMinutes: options.partMinutes,
+          stopWarningSeconds: options.stopWarning, stepsPerPart: options.stepsPerPart,
+        });
+        const { resources } = plan;
+        const asked = [`time limit ${resources.partMinutes} min`, `SIGTERM ${resources.stopWarningSeconds} s before it`, ...(resources.account ? [`account ${resources.account}`] : []), ...(resources.queue ? [`partition ${resources.queue}`] : []), ...(resources.memory ? [`memory ${resources.memory}`] : [])];
+        process.stdout.write(`wrote ${plan.batchPath} (${plan.parts} array tasks, ${resources.stepsPerPart} steps each; ${asked.join(', ')}) and ${plan.mergePath}\nsubmit with:\n  ${plan.submitCommand}\nthen merge when every task has succeeded:\n  sbatch --dependency=afterok:<jobid> ${plan.mergePath}\nthe merge exits 3 and says how many steps to add when the merged run misses target_ess or max_rhat\n`);
         return;
       }
+      const planOnly = PLAN_OPTIONS.filter((key) => options[key] !== undefined);
+      if (planOnly.length > 0) throw new CandelaError({ code: 'fit.option_needs_plan', path: optionName(planOnly[0]), message: `${planOnly.map(optionName).join(', ')} describe${planOnly.length === 1 ? 's' : ''} the jobs of a cluster plan`, fix: 'add --plan slurm, or drop the option' });
+      if (options.stepsPerPart !== undefined && options.part === undefined) throw new CandelaError({ code: 'fit.option_needs_part', path: '--steps-per-part', message: '--steps-per-part sets the length of a part; a whole fit stops on sampler.max_steps and its targets', fix: 'add --part I, or set sampler.max_steps' });
       const controller = new AbortController();
       // First signal: stop sampling, write the checkpoint and the outputs so far. Second: leave at once. Every file
       // is written to a temporary name and renamed, so leaving at once corrupts nothing; the last checkpoint stays.
@@ -102,7 +133,7 @@ export function registerFitCommand(program: Command): void {
       };
       try {
         const outcomes = await runFit({
-          configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, part: options.part, signal: controller.signal,
+          configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, part: options.part, partSteps: options.stepsPerPart, signal: controller.signal,
           onLine: (line) => {
             if (quiet) return;
             if (bar && barStarted) { bar.stop(); barStarted = false; }
