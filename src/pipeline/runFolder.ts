@@ -1,5 +1,5 @@
-import { closeSync, existsSync, mkdirSync, openSync, readdirSync, rmSync, statSync, unlinkSync } from 'node:fs';
-import { join } from 'node:path';
+import { accessSync, closeSync, constants, existsSync, mkdirSync, openSync, readdirSync, rmSync, statSync, unlinkSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
 import { CandelaError } from '../errors.js';
 
 /** File names inside a run folder. */
@@ -82,9 +82,26 @@ export function prepareRunFolder(dir: string, options: { force: boolean; resume:
   try {
     mkdirSync(dir, { recursive: true });
   } catch (error) {
-    throw folderError(dir, 'create', error);
+    throw folderError(dir, 'create', causeInAncestor(dir) ?? error);
   }
   checkWritable(dir);
+}
+
+/**
+ * Why a folder cannot be created when the system only says ENOENT (a
+ * recursive mkdir reports the missing parent, not the read-only or
+ * forbidden ancestor): the write-access error of the nearest existing
+ * ancestor, or null when it is writable.
+ */
+function causeInAncestor(dir: string): unknown {
+  let ancestor = dirname(resolve(dir));
+  while (!existsSync(ancestor) && dirname(ancestor) !== ancestor) ancestor = dirname(ancestor);
+  try {
+    accessSync(ancestor, constants.W_OK);
+    return null;
+  } catch (error) {
+    return error;
+  }
 }
 
 /** Creates and removes an empty probe file in `dir`; throws `run.folder_unwritable` when the folder takes no new file. */
