@@ -7,6 +7,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { choleskyInPlace, referenceCholeskyInPlace, blockedCholeskyInPlace, wasmCholeskyInPlace, wasmCholeskyAvailable, logDeterminantFromCholesky, createRandomStream } from '../../src/math/index.js';
 import { CHOLESKY_WASM_SOURCE_SHA256 } from '../../src/math/wasmCholeskyBinary.js';
+import { maxRowRelativeDifference } from '../../bench/factorization.js';
 import type { CholeskyFailure, CholeskySuccess } from '../../src/math/index.js';
 
 type Kernel = (a: Float64Array, n: number) => CholeskySuccess | CholeskyFailure;
@@ -33,16 +34,6 @@ function fill(n: number, entry: (i: number, j: number) => number): Float64Array 
   const a = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) a[i * n + j] = entry(i, j);
   return a;
-}
-
-/** Largest |L_ij - R_ij| / sqrt(A_ii) over the lower triangle. */
-function maxRowRelativeDifference(factor: Float64Array, reference: Float64Array, original: Float64Array, n: number): number {
-  let worst = 0;
-  for (let i = 0; i < n; i++) {
-    const scale = Math.sqrt(original[i * n + i]);
-    for (let j = 0; j <= i; j++) worst = Math.max(worst, Math.abs(factor[i * n + j] - reference[i * n + j]) / scale);
-  }
-  return worst;
 }
 
 /** A covariance shaped like a supernova compilation's: diagonal errors plus a few smooth systematic modes (C = D + U U^T), seeded. */
