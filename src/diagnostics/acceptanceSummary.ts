@@ -1,5 +1,5 @@
 import { CandelaError } from '../errors.js';
-import { compensatedSum } from '../math/index.js';
+import { compensatedSum, quantileOfSortedDraws } from '../math/index.js';
 
 /**
  * A walker is stuck when its acceptance fraction is below this share of the
@@ -51,8 +51,7 @@ export function acceptanceSummary(fractions: Float64Array): AcceptanceSummary {
     });
   }
   const sorted = Float64Array.from(fractions).sort();
-  const middle = sorted.length >>> 1;
-  const median = sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
+  const median = quantileOfSortedDraws(sorted, 0.5);
   const stuckWalkers: number[] = [];
   fractions.forEach((fraction, walker) => {
     if (fraction === 0 || fraction < STUCK_SHARE_OF_MEDIAN * median) stuckWalkers.push(walker);

@@ -1,3 +1,4 @@
+import { quantileOfSortedDraws } from '../math/index.js';
 import { concatenateChains } from './concatenateChains.js';
 
 /**
@@ -12,8 +13,6 @@ import { concatenateChains } from './concatenateChains.js';
  * @example foldAboutMedian([Float64Array.of(1, 5), Float64Array.of(2, 4)]) // median 3 -> [[2, 2], [1, 1]]
  */
 export function foldAboutMedian(chains: readonly Float64Array[]): Float64Array[] {
-  const sorted = concatenateChains(chains).sort();
-  const middle = sorted.length >>> 1;
-  const median = sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
+  const median = quantileOfSortedDraws(concatenateChains(chains).sort(), 0.5);
   return chains.map((chain) => chain.map((value) => Math.abs(value - median)));
 }

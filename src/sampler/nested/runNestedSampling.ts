@@ -1,5 +1,5 @@
 import { CandelaError } from '../../errors.js';
-import { compensatedSum, createRandomStream } from '../../math/index.js';
+import { createRandomStream, kishEffectiveCount } from '../../math/index.js';
 import { buildEllipsoidalBound } from './buildEllipsoidalBound.js';
 import type { EllipsoidalBound } from './buildEllipsoidalBound.js';
 import { DeadPointStore } from './deadPointStore.js';
@@ -173,10 +173,10 @@ export function runNestedSampling(problem: NestedProblem, options: NestedOptions
   if (tally.logZ === -Infinity) throw zeroEvidence(likelihoodCalls);
   const { samples, logLikelihoods, logWidths } = store.finish();
   const logWeights = new Float64Array(logLikelihoods.length);
-  const squaredWeights = new Float64Array(logLikelihoods.length);
+  const weights = new Float64Array(logLikelihoods.length);
   for (let k = 0; k < logWeights.length; k++) {
     logWeights[k] = logLikelihoods[k] === -Infinity ? -Infinity : logWidths[k] + logLikelihoods[k] - tally.logZ;
-    squaredWeights[k] = Math.exp(2 * logWeights[k]);
+    weights[k] = Math.exp(logWeights[k]);
   }
   const information = Math.max(0, tally.information);
   return {
@@ -188,7 +188,7 @@ export function runNestedSampling(problem: NestedProblem, options: NestedOptions
     samples,
     logLikelihoods,
     logWeights,
-    effectiveSampleSize: 1 / compensatedSum(squaredWeights),
+    effectiveSampleSize: kishEffectiveCount(weights),
     stopReason,
     remainingLogZ: remaining,
   };
