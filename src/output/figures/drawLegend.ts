@@ -15,9 +15,10 @@ export interface LegendEntry {
    * `line`: solid line; `dashed`: the reference dot-dash line; `dotted`: the
    * dotted line of constraints such as a flat universe; `marker`: a
    * filled marker with an error bar; `open-marker`: an open circle with an
-   * error bar (binned means); `truth`: the truth cross.
+   * error bar (binned means); `truth`: the truth cross; `cut`: the small
+   * triangle that marks an error bar cut at the axis.
    */
-  key: 'fill' | 'region' | 'line' | 'dashed' | 'dotted' | 'marker' | 'open-marker' | 'truth';
+  key: 'fill' | 'region' | 'line' | 'dashed' | 'dotted' | 'marker' | 'open-marker' | 'truth' | 'cut';
   /** Fill opacity of a `fill` key (default 0.75). */
   opacity?: number;
   /** Marker shape of a `marker` key (default circle). */
@@ -62,6 +63,8 @@ function drawKey(entry: LegendEntry, xPx: number, middlePx: number): string {
         svgElement('path', { ...common, 'stroke-width': 1, d: `M${centreX} ${middlePx - 5.5}v11` }),
         svgElement('circle', { cx: centreX, cy: middlePx, r: 3, fill: FIGURE_STYLE.background, stroke: entry.color, 'stroke-width': 1.1 }),
       ]);
+    case 'cut':
+      return svgElement('path', { ...common, 'stroke-width': 0.8, d: `M${formatPixels(centreX - 2.4)} ${formatPixels(middlePx + 1.8)}L${formatPixels(centreX)} ${formatPixels(middlePx - 1.8)}L${formatPixels(centreX + 2.4)} ${formatPixels(middlePx + 1.8)}Z` });
     case 'truth':
       return svgElement('path', { ...common, 'stroke-width': 1.3, d: truthMarkerPathData(centreX, middlePx) });
     case 'fill':

@@ -2,21 +2,26 @@ import { CandelaError } from '../../errors.js';
 import { createAxisScale } from './axisScale.js';
 import { bandPathData } from './bandPathData.js';
 import { circleMarkersPathData } from './circleMarkersPathData.js';
+import { clippedErrorBars } from './clippedErrorBars.js';
 import { drawAxes } from './drawAxes.js';
-import { drawLegend } from './drawLegend.js';
 import type { LegendEntry } from './drawLegend.js';
-import { errorBarsPathData } from './errorBarsPathData.js';
 import { FIGURE_STYLE } from './figureStyle.js';
+import type { FontFace } from './figureStyle.js';
+import { figureWidthPx } from './figureWidth.js';
+import type { FigureWidth } from './figureWidth.js';
 import { formatTickLabel } from './formatTickLabel.js';
 import { interpolateModelMu } from './hubbleResiduals.js';
 import type { ModelMuCurve } from './hubbleResiduals.js';
 import { linePathData } from './linePathData.js';
 import { logTicks } from './logTicks.js';
 import { niceTicks } from './niceTicks.js';
-import { seriesColor } from './palette.js';
+import { legendStrip } from './legendStrip.js';
+import { shapedMarkersPathData } from './markerPathData.js';
+import { LANTERN_COLORS, seriesColor, seriesMarkerShape } from './palette.js';
 import { clipPathElement, clippedGroup } from './plotFrame.js';
 import type { PlotFrame } from './plotFrame.js';
 import { residualRangeMag } from './residualRange.js';
+import { robustDataRange } from './robustDataRange.js';
 import { svgDocument } from './svgDocument.js';
 import { svgElement } from './svgElement.js';
 
@@ -38,55 +43,88 @@ export interface HubbleFigureInput {
   muObsMag: ArrayLike<number>;
   /** Its one-sigma error (mag), e.g. the square root of the covariance diagonal. */
   muErrMag: ArrayLike<number>;
-  /** Sample (survey) name of each supernova; colours and legend entries follow it. */
+  /** Sample (survey) code or name of each supernova; colours, marker shapes and legend entries follow it. */
   sample?: readonly string[];
   /** Best-fit model distance modulus at each supernova (mag); default: the curve median interpolated in ln z. */
   bestFitMuMag?: ArrayLike<number>;
   /** Model curve with its 68% band, on a z grid that covers the data. */
   modelCurve: ModelMuCurve;
-  /** Binned mean residuals to overlay in the lower panel. */
+  /** Binned mean residuals to overlay in the lower panel (ignored when the options say the data are already binned). */
   binnedResiduals?: readonly BinnedResidual[];
 }
 
 /** Optional settings of {@link hubbleFigure}. */
 export interface HubbleFigureOptions {
-  /** Figure width (px; default 640). */
+  /** Figure width (px; default 640); ignored when `width` is given. */
   widthPx?: number;
-  /** Figure height (px; default 500), shared 70:30 by the two panels. */
+  /** Figure height (px; default 500, or for a journal width 0.7 x the width for the panels plus the legend strip), legend strip included. */
   heightPx?: number;
+  /** Figure width: one journal column (3.4 in), both columns (7 in) or `{ inches }`. */
+  width?: FigureWidth;
+  /** Text face: `sans` (default) or `serif`. */
+  fontFace?: FontFace;
   /** Legend label of the model curve (default 'best fit'). */
   modelLabel?: string;
+  /** Names to show for sample codes, e.g. { '10': 'DES', '150': 'Foundation' }; codes without a name are shown as they are. */
+  sampleNames?: Readonly<Record<string, string>>;
+  /** The data are already binned (e.g. a compressed compilation): no binned means are drawn over them, markers are larger. */
+  dataAreBinned?: boolean;
   /** Fixed [low, high] range of the residual axis (mag); default from residualRangeMag. */
   residualRangeMag?: readonly [number, number];
   /** Prefix of the clip-path ids (default 'hubble'). */
   idPrefix?: string;
 }
 
-const MARGIN = { left: 66, right: 16, top: 12, bottom: 48 } as const;
+const MARGIN = { left: 62, right: 12, top: 10 } as const;
+/** Space below the lower panel for the redshift tick labels and title (px). */
+const X_AXIS_SPACE_PX = 40;
+/** Space under the legend strip (px). */
+const BOTTOM_PAD_PX = 4;
+/** Height of the two panels of a journal-width figure as a share of its width. */
+const JOURNAL_PANEL_ASPECT = 0.7;
+/** Figure width (px) at which markers have their full size; narrower figures get smaller markers (square-root scaling). */
+const FULL_MARKER_WIDTH_PX = 640;
 /** Share of the plotting height given to the upper (distance-modulus) panel. */
-const UPPER_PANEL_SHARE = 0.7;
-const PANEL_GAP_PX = 8;
-/** Marker radius (px) and error-bar opacity: many supernovae must stay readable. */
-const MARKER_RADIUS_PX = 1.9;
+const UPPER_PANEL_SHARE = 0.68;
+const PANEL_GAP_PX = 0;
+/** Share of the residual half-range within which residual ticks are placed. */
+const EDGE_FREE_SHARE = 0.9;
+/** Marker radius (px) for many supernovae and for binned data; error-bar opacity. */
+const MARKER_RADIUS_PX = 1.8;
+const BINNED_DATA_MARKER_RADIUS_PX = 2.8;
 const ERROR_BAR_OPACITY = 0.45;
+/** Bars cut at an axis are drawn faint and finely dashed, so a few huge errors do not cover the panel. */
+const CUT_BAR_OPACITY = 0.3;
+const CUT_BAR_DASH = '1 2';
+/** Binned means: open circle radius and stroke (px). */
+const BINNED_MEAN_RADIUS_PX = 3.2;
+const BINNED_MEAN_STROKE_PX = 1.2;
 /** Redshift axis padding factor on each side (log axis). */
 const REDSHIFT_PADDING_FACTOR = 1.12;
-/** Distance-modulus axis padding on each side, as a fraction of the data span. */
-const MU_PADDING_FRACTION = 0.04;
+/** Quantiles of the distance moduli that set the upper panel's range (the extreme 0.5% on each side may be cut). */
+const MU_RANGE_QUANTILES = [0.005, 0.995] as const;
+/** Distance-modulus axis padding on each side, as a fraction of the span. */
+const MU_PADDING_FRACTION = 0.05;
 
 /**
- * A Hubble diagram: the upper panel shows the supernovae (coloured by
- * sample, with error bars) against redshift on a log axis, the best-fit
- * model curve and its 68% band; the lower panel shows residuals (data minus
- * best fit) with the band around zero and optional binned means.
+ * A Hubble diagram in candela's house style (docs/style.md): the upper
+ * panel shows the supernovae against redshift on a log axis, each sample in
+ * its own colour (and, past six samples, marker shape), under its given
+ * name; the model curve in ink with its 68% band in haze (colours no sample
+ * takes); the lower panel shows residuals (data minus best fit) with the
+ * band around zero and binned means as open circles. Both ranges come from
+ * the data (robust quantiles that ignore strongly down-weighted points), not
+ * from the largest error bar: bars beyond an axis are cut there and marked
+ * with a small triangle, and the legend counts them. The legend sits in a
+ * caption strip below the panels, so it hides no data.
  *
- * Cost: O(n log m) for n supernovae and m model grid points.
+ * Cost: O(n log n) for n supernovae (range quantiles) plus O(n log m) for m model grid points.
  *
  * @param input supernovae (redshift, mag), samples, model curve (mag), binned residuals (mag)
- * @param options size (px), model label, residual range (mag), clip id prefix
+ * @param options size (px or journal width), font face, model label, sample names, binned-data flag, residual range (mag), clip id prefix
  * @returns the SVG document
  * @throws CandelaError `figure.length_mismatch` when per-supernova arrays differ in length; `figure.redshift_outside_model` (see interpolateModelMu)
- * @example hubbleFigure({ redshift, muObsMag, muErrMag, modelCurve })
+ * @example hubbleFigure({ redshift, muObsMag, muErrMag, sample, modelCurve }, { width: 'single', sampleNames: { '10': 'DES' } })
  */
 export function hubbleFigure(input: HubbleFigureInput, options: HubbleFigureOptions = {}): string {
   const count = input.redshift.length;
@@ -94,34 +132,39 @@ export function hubbleFigure(input: HubbleFigureInput, options: HubbleFigureOpti
   if (lengths.some((length) => length !== count)) {
     throw new CandelaError({ code: 'figure.length_mismatch', message: 'redshift, muObsMag, muErrMag, sample and bestFitMuMag must have one entry per supernova', expected: `${count} entries each`, found: lengths.join(', ') });
   }
-  const widthPx = Math.round(options.widthPx ?? 640);
-  const heightPx = Math.round(options.heightPx ?? 500);
+  const widthPx = figureWidthPx(options.width, options.widthPx ?? 640);
   const prefix = options.idPrefix ?? 'hubble';
   const curve = input.modelCurve;
   const bestFit = input.bestFitMuMag ?? interpolateModelMu(input.redshift, curve);
   const residual = Float64Array.from({ length: count }, (_, index) => input.muObsMag[index] - bestFit[index]);
-  const plotHeight = heightPx - MARGIN.top - MARGIN.bottom - PANEL_GAP_PX;
-  const upper: PlotFrame = { leftPx: MARGIN.left, topPx: MARGIN.top, widthPx: widthPx - MARGIN.left - MARGIN.right, heightPx: plotHeight * UPPER_PANEL_SHARE, clipId: `${prefix}-clip-upper` };
-  const lower: PlotFrame = { ...upper, topPx: upper.topPx + upper.heightPx + PANEL_GAP_PX, heightPx: plotHeight * (1 - UPPER_PANEL_SHARE), clipId: `${prefix}-clip-lower` };
+  const binnedData = options.dataAreBinned === true;
+  const markerRadius = (binnedData ? BINNED_DATA_MARKER_RADIUS_PX : MARKER_RADIUS_PX) * Math.sqrt(Math.min(1, widthPx / FULL_MARKER_WIDTH_PX));
+  const plotWidth = widthPx - MARGIN.left - MARGIN.right;
+
+  // Samples in order of first appearance, each with its members, colour, marker shape and shown name.
+  const codes = input.sample ? [...new Set(input.sample)] : ['supernovae'];
+  const samples = codes.map((code, sampleIndex) => ({
+    code,
+    name: options.sampleNames?.[code] ?? code,
+    members: Array.from({ length: count }, (_, index) => index).filter((index) => !input.sample || input.sample[index] === code),
+    color: seriesColor(sampleIndex),
+    shape: seriesMarkerShape(sampleIndex),
+  }));
 
   let zLow = Infinity;
   let zHigh = -Infinity;
-  let muLow = Infinity;
-  let muHigh = -Infinity;
   for (let index = 0; index < count; index++) {
     const z = input.redshift[index];
     if (z > 0 && Number.isFinite(z)) {
       zLow = Math.min(zLow, z);
       zHigh = Math.max(zHigh, z);
     }
-    const error = Number.isFinite(input.muErrMag[index]) ? input.muErrMag[index] : 0;
-    if (Number.isFinite(input.muObsMag[index])) {
-      muLow = Math.min(muLow, input.muObsMag[index] - error);
-      muHigh = Math.max(muHigh, input.muObsMag[index] + error);
-    }
   }
   if (!(zHigh >= zLow)) [zLow, zHigh] = [curve.z[0], curve.z[curve.z.length - 1]];
   const zDomain: [number, number] = [zLow / REDSHIFT_PADDING_FACTOR, zHigh * REDSHIFT_PADDING_FACTOR];
+  const muRange = robustDataRange(input.muObsMag, input.muErrMag, MU_RANGE_QUANTILES[0], MU_RANGE_QUANTILES[1]);
+  let muLow = Number.isFinite(muRange.low) ? muRange.low : Infinity;
+  let muHigh = Number.isFinite(muRange.high) ? muRange.high : -Infinity;
   for (let index = 0; index < curve.z.length; index++) {
     if (curve.z[index] < zDomain[0] || curve.z[index] > zDomain[1]) continue;
     for (const value of [curve.low68[index], curve.high68[index], curve.median[index]]) {
@@ -130,61 +173,80 @@ export function hubbleFigure(input: HubbleFigureInput, options: HubbleFigureOpti
       muHigh = Math.max(muHigh, value);
     }
   }
-  const muPadding = MU_PADDING_FRACTION * (muHigh - muLow);
+  if (!(muHigh > muLow)) [muLow, muHigh] = Number.isFinite(muLow) ? [muLow - 1, muLow + 1] : [30, 46];
+  const muPadding = MU_PADDING_FRACTION * (muHigh - muLow) + muRange.typicalError;
   const muDomain: [number, number] = [muLow - muPadding, muHigh + muPadding];
   const muTicks = niceTicks(muDomain[0], muDomain[1], 6);
   const residualRange = options.residualRangeMag ?? residualRangeMag(residual, input.muErrMag);
-  const residualTicks = niceTicks(residualRange[0], residualRange[1], 5);
+  // The panels touch: ticks keep clear of the shared edge, where labels of the two panels would meet.
+  const residualTicks = niceTicks(residualRange[0] * EDGE_FREE_SHARE, residualRange[1] * EDGE_FREE_SHARE, 5);
   const zTicks = logTicks(zDomain[0], zDomain[1]);
-  const xUpper = createAxisScale('log', zDomain, [upper.leftPx, upper.leftPx + upper.widthPx]);
+
+  // The legend strip is measured first: the panels take the height left above it.
+  const modelColor = LANTERN_COLORS.ink;
+  const bandColor = FIGURE_STYLE.bandFill;
+  const bins = binnedData ? [] : input.binnedResiduals ?? [];
+  const entries: LegendEntry[] = samples.map((sample) => ({ label: `${sample.name} (${sample.members.length})`, color: sample.color, key: 'marker', shape: sample.shape }));
+  entries.push({ label: options.modelLabel ?? 'best fit', color: modelColor, key: 'line' }, { label: 'model 68% band', color: bandColor, key: 'fill', opacity: 1 });
+  if (bins.length > 0) entries.push({ label: 'binned mean residual', color: modelColor, key: 'open-marker' });
+  const stripHeight = (cutLabel: string | undefined) => legendStrip(cutLabel ? [...entries, { label: cutLabel, color: modelColor, key: 'cut' }] : entries, MARGIN.left, 0, plotWidth).heightPx;
+  const provisional = stripHeight('error bar beyond the axis (000)');
+  // A journal-width figure keeps its panels' proportions and grows downwards to hold the legend.
+  const heightPx = Math.round(options.heightPx ?? (options.width ? MARGIN.top + widthPx * JOURNAL_PANEL_ASPECT + X_AXIS_SPACE_PX + provisional + BOTTOM_PAD_PX : 500));
+  const plotHeight = heightPx - MARGIN.top - PANEL_GAP_PX - X_AXIS_SPACE_PX - provisional - BOTTOM_PAD_PX;
+  const upper: PlotFrame = { leftPx: MARGIN.left, topPx: MARGIN.top, widthPx: plotWidth, heightPx: plotHeight * UPPER_PANEL_SHARE, clipId: `${prefix}-clip-upper` };
+  const lower: PlotFrame = { ...upper, topPx: upper.topPx + upper.heightPx + PANEL_GAP_PX, heightPx: plotHeight * (1 - UPPER_PANEL_SHARE), clipId: `${prefix}-clip-lower` };
+  const xScale = createAxisScale('log', zDomain, [upper.leftPx, upper.leftPx + upper.widthPx]);
   const yUpper = createAxisScale('linear', muDomain, [upper.topPx + upper.heightPx, upper.topPx]);
   const yLower = createAxisScale('linear', [residualRange[0], residualRange[1]], [lower.topPx + lower.heightPx, lower.topPx]);
 
-  const modelColor = FIGURE_STYLE.axisColor;
-  const bandColor = '#9a9a9a';
   const median = curve.median;
   const zeros = new Float64Array(curve.z.length);
   const bandLow = Float64Array.from(curve.low68, (value, index) => value - median[index]);
   const bandHigh = Float64Array.from(curve.high68, (value, index) => value - median[index]);
-  const upperLayers = [
-    svgElement('path', { class: 'model-band', fill: bandColor, 'fill-opacity': 0.45, stroke: 'none', d: bandPathData(curve.z, curve.low68, curve.high68, xUpper, yUpper) }),
-  ];
-  const lowerLayers = [
-    svgElement('path', { class: 'model-band', fill: bandColor, 'fill-opacity': 0.45, stroke: 'none', d: bandPathData(curve.z, bandLow, bandHigh, xUpper, yLower) }),
-  ];
-  const names = input.sample ? [...new Set(input.sample)] : ['supernovae'];
-  const entries: LegendEntry[] = [];
-  names.forEach((name, sampleIndex) => {
-    const members = input.sample ? Array.from({ length: count }, (_, index) => index).filter((index) => input.sample?.[index] === name) : Array.from({ length: count }, (_, index) => index);
-    const pick = (values: ArrayLike<number>) => Float64Array.from(members, (index) => values[index]);
+  const upperLayers = [svgElement('path', { class: 'model-band', fill: bandColor, stroke: 'none', d: bandPathData(curve.z, curve.low68, curve.high68, xScale, yUpper) })];
+  const lowerLayers = [svgElement('path', { class: 'model-band', fill: bandColor, stroke: 'none', d: bandPathData(curve.z, bandLow, bandHigh, xScale, yLower) })];
+  const upperMarks: string[] = [];
+  const lowerMarks: string[] = [];
+  const cutPoints = new Set<number>();
+  for (const sample of samples) {
+    const pick = (values: ArrayLike<number>) => Float64Array.from(sample.members, (index) => values[index]);
     const z = pick(input.redshift);
-    const color = seriesColor(sampleIndex);
-    const draw = (layers: string[], y: Float64Array, scale: typeof yUpper) => {
-      layers.push(svgElement('path', { class: 'error-bars', fill: 'none', stroke: color, 'stroke-opacity': ERROR_BAR_OPACITY, 'stroke-width': FIGURE_STYLE.thinStrokePx, d: errorBarsPathData(z, y, pick(input.muErrMag), xUpper, scale) }));
-      layers.push(svgElement('path', { class: 'markers', fill: color, stroke: 'none', 'data-sample': name, d: circleMarkersPathData(z, y, xUpper, scale, MARKER_RADIUS_PX) }));
+    const errors = pick(input.muErrMag);
+    const draw = (layers: string[], marks: string[], y: Float64Array, scale: typeof yUpper) => {
+      const cut = clippedErrorBars(z, y, errors, xScale, scale);
+      layers.push(svgElement('path', { class: 'error-bars', fill: 'none', stroke: sample.color, 'stroke-opacity': ERROR_BAR_OPACITY, 'stroke-width': FIGURE_STYLE.thinStrokePx, d: cut.bars }));
+      if (cut.cutBars) layers.push(svgElement('path', { class: 'cut-error-bars', fill: 'none', stroke: sample.color, 'stroke-opacity': CUT_BAR_OPACITY, 'stroke-width': FIGURE_STYLE.thinStrokePx, 'stroke-dasharray': CUT_BAR_DASH, d: cut.cutBars }));
+      layers.push(svgElement('path', { class: 'markers', fill: sample.color, stroke: 'none', 'data-sample': sample.code, d: shapedMarkersPathData(z, y, xScale, scale, markerRadius, sample.shape) }));
+      if (cut.marks) marks.push(svgElement('path', { class: 'cut-marks', fill: FIGURE_STYLE.background, stroke: sample.color, 'stroke-width': 0.8, 'data-sample': sample.code, d: cut.marks }));
+      sample.members.forEach((member, position) => {
+        if (cut.cut[position]) cutPoints.add(member);
+      });
     };
-    draw(upperLayers, pick(input.muObsMag), yUpper);
-    draw(lowerLayers, pick(residual), yLower);
-    entries.push({ label: `${name} (${members.length})`, color, key: 'marker' });
-  });
-  upperLayers.push(svgElement('path', { class: 'model-curve', fill: 'none', stroke: modelColor, 'stroke-width': FIGURE_STYLE.lineStrokePx, d: linePathData(curve.z, median, xUpper, yUpper) }));
-  lowerLayers.push(svgElement('path', { class: 'model-curve', fill: 'none', stroke: modelColor, 'stroke-width': FIGURE_STYLE.lineStrokePx, d: linePathData(curve.z, zeros, xUpper, yLower) }));
-  entries.push({ label: options.modelLabel ?? 'best fit', color: modelColor, key: 'line' }, { label: '68% band', color: bandColor, key: 'fill', opacity: 0.45 });
-  const bins = input.binnedResiduals ?? [];
+    draw(upperLayers, upperMarks, pick(input.muObsMag), yUpper);
+    draw(lowerLayers, lowerMarks, pick(residual), yLower);
+  }
+  upperLayers.push(svgElement('path', { class: 'model-curve', fill: 'none', stroke: modelColor, 'stroke-width': FIGURE_STYLE.lineStrokePx, d: linePathData(curve.z, median, xScale, yUpper) }));
+  lowerLayers.push(svgElement('path', { class: 'model-curve', fill: 'none', stroke: modelColor, 'stroke-width': FIGURE_STYLE.lineStrokePx, d: linePathData(curve.z, zeros, xScale, yLower) }));
   if (bins.length > 0) {
     const binZ = bins.map((bin) => bin.z);
     const binMean = bins.map((bin) => bin.mean);
-    lowerLayers.push(svgElement('path', { class: 'binned-error-bars', fill: 'none', stroke: '#000000', 'stroke-width': 1.2, d: errorBarsPathData(binZ, binMean, bins.map((bin) => bin.err), xUpper, yLower) }));
-    lowerLayers.push(svgElement('path', { class: 'binned-markers', fill: '#ffffff', stroke: '#000000', 'stroke-width': 1.2, d: circleMarkersPathData(binZ, binMean, xUpper, yLower, 3.2) }));
-    entries.push({ label: 'binned mean', color: '#000000', key: 'marker' });
+    const binBars = clippedErrorBars(binZ, binMean, bins.map((bin) => bin.err), xScale, yLower);
+    lowerLayers.push(svgElement('path', { class: 'binned-error-bars', fill: 'none', stroke: modelColor, 'stroke-width': BINNED_MEAN_STROKE_PX, d: binBars.bars + binBars.cutBars }));
+    lowerLayers.push(svgElement('path', { class: 'binned-markers', fill: FIGURE_STYLE.background, stroke: modelColor, 'stroke-width': BINNED_MEAN_STROKE_PX, d: circleMarkersPathData(binZ, binMean, xScale, yLower, BINNED_MEAN_RADIUS_PX) }));
   }
+  if (cutPoints.size > 0) entries.push({ label: `error bar beyond the axis (${cutPoints.size})`, color: modelColor, key: 'cut' });
   const zLabels = zTicks.major.map((value) => formatTickLabel(value));
+  const stripTop = lower.topPx + lower.heightPx + X_AXIS_SPACE_PX;
+  // Marks sit on the panel edges, drawn after (above) the clipped data so they stay whole.
   const body = [
     clippedGroup(upper, upperLayers),
     clippedGroup(lower, lowerLayers),
-    drawAxes(upper, { scale: xUpper, ticks: zTicks.major, minorTicks: zTicks.minor }, { scale: yUpper, ticks: muTicks.values, tickLabels: muTicks.values.map((value) => formatTickLabel(value, muTicks.decimals)), label: '\\mu [mag]' }),
-    drawAxes(lower, { scale: xUpper, ticks: zTicks.major, minorTicks: zTicks.minor, tickLabels: zLabels, label: 'redshift z' }, { scale: yLower, ticks: residualTicks.values, tickLabels: residualTicks.values.map((value) => formatTickLabel(value, residualTicks.decimals)), label: '\\Delta\\mu [mag]' }),
-    drawLegend(entries, upper.leftPx + 10, upper.topPx + 8, { boxed: true }).svg,
+    drawAxes(upper, { scale: xScale, ticks: zTicks.major, minorTicks: zTicks.minor }, { scale: yUpper, ticks: muTicks.values, tickLabels: muTicks.values.map((value) => formatTickLabel(value, muTicks.decimals)), label: '\\mu [mag]' }),
+    drawAxes(lower, { scale: xScale, ticks: zTicks.major, minorTicks: zTicks.minor, tickLabels: zLabels, label: 'redshift z' }, { scale: yLower, ticks: residualTicks.values, tickLabels: residualTicks.values.map((value) => formatTickLabel(value, residualTicks.decimals)), label: '\\Delta\\mu [mag]' }),
+    ...upperMarks,
+    ...lowerMarks,
+    legendStrip(entries, MARGIN.left, stripTop, plotWidth).svg,
   ];
-  return svgDocument(widthPx, heightPx, `Hubble diagram of ${count} supernovae with model residuals`, [clipPathElement(upper), clipPathElement(lower)], body);
+  return svgDocument(widthPx, heightPx, `Hubble diagram of ${count} supernovae with model residuals`, [clipPathElement(upper), clipPathElement(lower)], body, options.fontFace);
 }

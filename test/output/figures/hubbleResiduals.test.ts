@@ -26,8 +26,8 @@ describe('interpolateModelMu', () => {
 });
 
 describe('residualRangeMag', () => {
-  it('covers 98% of residuals with their errors, rounded up to 0.1 mag, never below ±0.15 mag', () => {
-    // 100 points reaching 0.25 mag and two outliers at 3 mag: the 98% point is 0.25, so ±0.3 (by hand).
+  it('covers 99% of |residual| plus the median error, rounded up to 0.1 mag, never below ±0.15 mag', () => {
+    // 100 points at 0.15 mag and two outliers at 3 mag: the 99% point is 0.15, plus 0.1, so ±0.3 (by hand).
     const residuals = new Float64Array(102).fill(0.15);
     residuals[0] = 3;
     residuals[1] = -3;
@@ -35,5 +35,16 @@ describe('residualRangeMag', () => {
     expect(residualRangeMag(residuals, errors)).toEqual([-0.3, 0.3]);
     expect(residualRangeMag(Float64Array.of(0.01, -0.02), Float64Array.of(0.01, 0.01))).toEqual([-0.15, 0.15]);
     expect(residualRangeMag(Float64Array.of(0.2, Number.NaN), Float64Array.of(0.1, Number.NaN))).toEqual([-0.3, 0.3]);
+  });
+
+  it('ignores strongly down-weighted points: errors of hundreds of mag do not widen the axis', () => {
+    // 97 points at 0.2 mag with 0.1 mag errors and 3 at 2 mag with 450 mag errors (more than 5 x the median error).
+    const residuals = new Float64Array(100).fill(0.2);
+    const errors = new Float64Array(100).fill(0.1);
+    for (const index of [3, 50, 90]) {
+      residuals[index] = 2;
+      errors[index] = 450;
+    }
+    expect(residualRangeMag(residuals, errors)).toEqual([-0.3, 0.3]);
   });
 });
