@@ -100,6 +100,13 @@ describe('savageDickeyRatio', () => {
     expect(plain / estimate.posteriorDensity).toBeCloseTo(0.5, 1);
   });
 
+  it('reflects at an upper prior edge too: uniform draws on [0, 1] have density 1 at x = 1 (uniform law)', () => {
+    const stream = createRandomStream('uniform-upper-edge');
+    const uniform = Float64Array.from({ length: draws }, () => stream.uniform());
+    const estimate = savageDickeyRatio({ samples: uniform, nestedValue: 1, priorDensity: 1, lowerEdge: 0, upperEdge: 1, bootstrapReplicates: 50 });
+    expect(Math.abs(Math.log(estimate.posteriorDensity))).toBeLessThan(4 * estimate.logBayesFactorError + 0.02);
+  });
+
   it('throws compare.savage_dickey_out_of_reach when no draw comes near the nested value', () => {
     expect(() => savageDickeyRatio({ samples, nestedValue: 80, priorDensity: 0.1 })).toThrow(
       expect.objectContaining({ issues: [expect.objectContaining({ code: 'compare.savage_dickey_out_of_reach' })] }),
