@@ -7,26 +7,31 @@ import { describe, expect, it } from 'vitest';
 // itself, errors.ts and the layers listed here; nothing else.
 const ALLOWED: Record<string, string[]> = {
   errors: [],
+  // parameters: the one registry of parameter names, units, symbols and default priors; a leaf every layer may ask.
+  parameters: [],
   math: ['errors'],
-  // config may use math only for the text distance behind its "did you mean" suggestions
-  // (math/text/editDistance.ts); math is a pure leaf, so the one-way order still holds.
-  config: ['errors', 'math'],
+  // config accepts exactly what the registries hold: it asks the parameter registry, the dark-energy
+  // law registry (cosmology) and the probe registry (probes) instead of restating their lists, and uses
+  // math for the text distance behind "did you mean". The numerical core still never sees the Config type.
+  config: ['errors', 'math', 'parameters', 'cosmology', 'probes'],
   data: ['errors', 'math'],
   standardize: ['errors', 'math', 'data'],
-  cosmology: ['errors', 'math', 'data'],
-  likelihood: ['errors', 'math', 'data', 'standardize', 'cosmology'],
-  mock: ['errors', 'math', 'data', 'standardize', 'cosmology'],
+  cosmology: ['errors', 'math', 'data', 'parameters'],
+  likelihood: ['errors', 'math', 'data', 'standardize', 'cosmology', 'parameters'],
+  // probes: likelihood terms beside the supernovae (BAO, compressed CMB), each a folder plus a registry line.
+  probes: ['errors', 'math', 'data', 'cosmology', 'likelihood', 'parameters'],
+  mock: ['errors', 'math', 'data', 'standardize', 'cosmology', 'parameters'],
   sampler: ['errors', 'math'],
   diagnostics: ['errors', 'math'],
-  compare: ['errors', 'math', 'sampler', 'diagnostics'],
-  output: ['errors', 'math', 'sampler', 'diagnostics'],
-  pipeline: ['errors', 'math', 'config', 'data', 'standardize', 'cosmology', 'likelihood', 'mock', 'sampler', 'diagnostics', 'compare', 'output'],
+  compare: ['errors', 'math', 'sampler', 'diagnostics', 'parameters'],
+  output: ['errors', 'math', 'sampler', 'diagnostics', 'parameters'],
+  pipeline: ['errors', 'math', 'parameters', 'config', 'data', 'standardize', 'cosmology', 'likelihood', 'probes', 'mock', 'sampler', 'diagnostics', 'compare', 'output'],
   cli: ['errors', 'config', 'pipeline'],
 };
 
 // Layers below the pipeline that must stay free of process, console, clock and Math.random
 // (data/ may read files, output/ may write them, the sampler's worker pool starts threads).
-const PURE_LAYERS = ['math', 'standardize', 'cosmology', 'likelihood', 'mock', 'diagnostics', 'compare'];
+const PURE_LAYERS = ['parameters', 'math', 'standardize', 'cosmology', 'likelihood', 'mock', 'diagnostics', 'compare'];
 
 function listFiles(dir: string): string[] {
   return readdirSync(dir).flatMap((name) => {

@@ -6,6 +6,8 @@
  * where a key is data the user writes (column fields, parameter names).
  * docs/configuration.md explains every setting; defaults live in defaults.ts.
  */
+import type { DarkEnergyLaw } from '../cosmology/index.js';
+import type { ProbeBlock } from '../probes/index.js';
 
 /** A path as written in the configuration and as resolved against the configuration file's folder. */
 export interface ResolvedPath {
@@ -155,7 +157,8 @@ export type ParameterSpec = { mode: 'prior'; prior: PriorSpec } | { mode: 'fixed
 export interface ModelSpec {
   /** Unique name, used as the folder name. */
   label: string;
-  darkEnergy: 'lambda' | 'constant_w' | 'cpl';
+  /** A law of the registry (src/cosmology/darkEnergyLaws.ts). */
+  darkEnergy: DarkEnergyLaw;
   curvature: 'flat' | 'free';
   /** Include photons (T_CMB 2.7255 K) and 3.046 massless neutrino species. */
   radiation: boolean;
@@ -208,6 +211,8 @@ export interface CandelaConfig {
   seed: number | string;
   supernovae: SupernovaDataSet[];
   standardization: StandardizationOptions;
+  /** Likelihood terms beside the supernovae (BAO, ...), one block per probe of the registry. */
+  probes: ProbeBlock[];
   models: ModelSpec[];
   /**
    * Global prior or fixed value per parameter: the user's entries plus the

@@ -4,12 +4,13 @@
  * needs, and the walker count against the number of free parameters.
  */
 import type { CandelaConfig, ParameterSpec } from './candelaConfig.js';
-import { closestWord } from './closestWord.js';
+import { closestWord } from '../math/index.js';
 import type { ConfigReader } from './configReader.js';
 import { derivedForModel } from './derivedForModel.js';
-import { usedParameterBases } from './modelParameterNames.js';
+import { parameterContext, usedParameterBases } from './modelParameterNames.js';
+import { probeDefinition } from '../probes/index.js';
 import { parametersForModel } from './parametersForModel.js';
-import { parseParameterName } from './parameterCatalog.js';
+import { parseParameterName } from '../parameters/index.js';
 
 /** Light-curve-only parameters: standardized magnitudes already contain these corrections. */
 const LIGHT_CURVE_PARAMETERS = ['alpha', 'beta', 'mass_step'];
@@ -32,7 +33,8 @@ export const MIN_WALKERS_PER_PARAMETER = 2;
 export function checkCrossFieldRules(reader: ConfigReader, config: CandelaConfig, userParameters: Record<string, ParameterSpec>): void {
   const hasCalibrators = config.supernovae.some((set) => set.columns.calibrator_mu !== undefined);
   const hasLightCurves = config.supernovae.some((set) => set.kind === 'light_curves');
-  const context = { kinds: config.supernovae.map((set) => set.kind), hasCalibrators, standardization: config.standardization };
+  const context = parameterContext(config);
+  const probesRequireH0 = usedByProbes(config, 'h0');
   const blocks = [{ prefix: 'parameters', entries: userParameters, modelIndices: config.models.map((_, i) => i) },
     ...config.models.map((model, i) => ({ prefix: `models[${i}].parameters`, entries: model.parameters, modelIndices: [i] }))];
 
@@ -40,12 +42,12 @@ export function checkCrossFieldRules(reader: ConfigReader, config: CandelaConfig
     for (const [name, spec] of Object.entries(entries)) {
       const path = `${prefix}.${name}`;
       const base = parseParameterName(name)?.base ?? name;
-      if (base === 'h0' && spec.mode === 'prior' && !hasCalibrators) {
+      if (base === 'h0' && spec.mode === 'prior' && !hasCalibrators && !probesRequireH0) {
         reader.reportAtPath(path, 'config.h0_degenerate',
-          'h0 cannot be sampled without calibrators: the supernovae constrain only the combination abs_mag - 5 log10(h0), ' +
+          'h0 cannot be sampled without calibrators or a probe that reads it (bao with ruler: computed): the supernovae constrain only the combination abs_mag - 5 log10(h0), ' +
           `so h0 and the magnitude offset (${config.standardization.offset === 'sample' ? 'sampled' : 'marginalized'}) are fully degenerate`, {
             expected: 'h0 fixed, or a calibrator_mu column', found: `${path} with a prior and no calibrator_mu column`,
-            fix: 'write h0: { fixed: 70 } (or remove it), or map calibrator_mu to a column of external distance moduli of calibrator hosts',
+            fix: 'write h0: { fixed: 70 } (or remove it), add probes.bao with ruler: computed, or map calibrator_mu to a column of external distance moduli of calibrator hosts',
           });
         continue;
       }
@@ -141,4 +143,9 @@ function checkContourPairs(reader: ConfigReader, config: CandelaConfig): void {
       fix: suggestion ? `did you mean "${suggestion}"?` : 'name free or derived parameters of the models',
     });
   }));
+}
+
+/** Whether some configured probe requires a parameter (its definition says). */
+function usedByProbes(config: CandelaConfig, name: string): boolean {
+  return config.probes.some((block) => probeDefinition(block.key).requires(block.settings).includes(name));
 }

@@ -6,7 +6,7 @@
 import { isAlias, isMap, isScalar, isSeq } from 'yaml';
 import type { Document, LineCounter, Node } from 'yaml';
 import type { Issue } from '../errors.js';
-import { closestWord } from './closestWord.js';
+import { closestWord } from '../math/index.js';
 import type { SourcePosition } from './candelaConfig.js';
 import { numberRuleText } from './numberRule.js';
 import type { NumberRule } from './numberRule.js';

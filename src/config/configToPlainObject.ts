@@ -44,6 +44,13 @@ export function configToPlainObject(config: CandelaConfig, options: PlainConfigO
       ...(s.alphaBetaCovariance === 'frozen' && s.frozenAt ? { frozen_at: { ...s.frozenAt } } : {}),
       offset: s.offset,
     },
+    ...(config.probes.length > 0 ? { probes: Object.fromEntries(config.probes.map((block) => [block.key, Object.fromEntries(
+      Object.entries(block.settings).flatMap(([key, value]) => {
+        if (value === undefined) return [];
+        const written = block.writtenPaths[key];
+        return [[key, written === undefined ? value : path({ written, resolved: String(value) })]];
+      }),
+    )])) } : {}),
     models: config.models.map((model) => ({
       label: model.label, dark_energy: model.darkEnergy, curvature: model.curvature, radiation: model.radiation,
       parameters: parametersToPlain(model.parameters),

@@ -3,6 +3,7 @@
  * lists the same values; test/config/defaults.test.ts holds the two together.
  * A key the user leaves out takes the value here.
  */
+import { PARAMETERS } from '../parameters/index.js';
 import type {
   CovarianceSource, CutOptions, DerivedQuantity, FigureKind, ModelSpec, OutputOptions, PriorSpec,
   SamplerOptions, StandardizationOptions, SystematicModeSource, TableOptions,
@@ -81,27 +82,12 @@ export const DEFAULT_MODEL: Omit<ModelSpec, 'label'> = {
 };
 
 /**
- * Prior of every parameter a model uses when `parameters` does not name it.
- * Wide and flat except the scatter terms (scale parameters: log-uniform).
- * abs_mag spans both standardized peak magnitudes (M near -19.3) and distance
- * moduli given with M already removed (offset near 0).
+ * Prior of every parameter a model uses when `parameters` does not name it:
+ * the registry's default prior of each parameter (src/parameters).
  */
-export const DEFAULT_PRIORS: Readonly<Record<string, PriorSpec>> = {
-  omega_m: { kind: 'uniform', min: 0, max: 1 },
-  omega_de: { kind: 'uniform', min: 0, max: 2 },
-  w0: { kind: 'uniform', min: -3, max: 1 },
-  wa: { kind: 'uniform', min: -5, max: 5 },
-  h0: { kind: 'uniform', min: 50, max: 100 },
-  alpha: { kind: 'uniform', min: 0, max: 0.5 },
-  beta: { kind: 'uniform', min: 0, max: 6 },
-  abs_mag: { kind: 'uniform', min: -25, max: 5 },
-  mass_step: { kind: 'uniform', min: -0.5, max: 0.5 },
-  sigma_int: { kind: 'log_uniform', min: 0.01, max: 0.5 },
-  x1_mean: { kind: 'uniform', min: -3, max: 3 },
-  x1_width: { kind: 'log_uniform', min: 0.05, max: 5 },
-  color_mean: { kind: 'uniform', min: -0.3, max: 0.3 },
-  color_width: { kind: 'log_uniform', min: 0.01, max: 0.5 },
-};
+export const DEFAULT_PRIORS: Readonly<Record<string, PriorSpec>> = Object.fromEntries(
+  Object.values(PARAMETERS).flatMap((definition) => (definition.defaultPrior ? [[definition.name, { ...definition.defaultPrior }]] : [])),
+);
 
 /** Values of the cosmological parameters a simpler model does not sample: a cosmological constant has w0 = -1, wa = 0. */
 export const NON_SAMPLED_DARK_ENERGY: Readonly<Record<'w0' | 'wa', number>> = { w0: -1, wa: 0 };

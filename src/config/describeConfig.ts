@@ -2,6 +2,7 @@
  * A short plain-text summary of what a configuration would run.
  */
 import type { CandelaConfig, PriorSpec, SupernovaDataSet } from './candelaConfig.js';
+import { probeDefinition } from '../probes/index.js';
 import { derivedForModel } from './derivedForModel.js';
 import { parametersForModel } from './parametersForModel.js';
 
@@ -31,6 +32,14 @@ export function describeConfig(config: CandelaConfig): string[] {
   const lines = [`title: ${config.title} (file ${config.source.file.written})`, `seed: ${config.seed}`];
   for (const set of config.supernovae) lines.push(describeDataSet(set));
   lines.push(describeStandardization(config));
+  for (const block of config.probes) {
+    const probe = probeDefinition(block.key);
+    const settings = probe.settings.flatMap((spec) => {
+      const value = block.writtenPaths[spec.key] ?? block.settings[spec.key];
+      return value === undefined ? [] : [`${spec.key} ${String(value)}`];
+    });
+    lines.push(`probe "${block.key}" (${probe.title}): ${settings.join(', ')}; reads ${probe.requires(block.settings).join(', ')}`);
+  }
   config.models.forEach((model, i) => {
     const { free, fixed, awaitsSampleLabels } = parametersForModel(config, i);
     const freeText = free.map((p) => `${p.name} ${describePrior(p.prior)}`).join(', ');

@@ -45,14 +45,9 @@ export { DEFAULT_OUTPUT } from './defaults.js';
 export { parametersForModel } from './parametersForModel.js';
 export type { ModelParameters } from './parametersForModel.js';
 export { usedParameterBases } from './modelParameterNames.js';
-export { PARAMETER_ORDER } from './modelParameterNames.js';
+export { parameterContext } from './modelParameterNames.js';
 export type { ParameterContext } from './modelParameterNames.js';
 export { derivedForModel } from './derivedForModel.js';
-export { PARAMETER_CATALOG } from './parameterCatalog.js';
-export { parseParameterName } from './parameterCatalog.js';
-export { isPhysicalValue } from './parameterCatalog.js';
-export type { ParameterInfo } from './parameterCatalog.js';
-export type { ParameterName } from './parameterCatalog.js';
 export { MIN_WALKERS_PER_PARAMETER } from './checkCrossFieldRules.js';
 export { TRUNCATION_MAX_DISTANCE_SD } from './readParameters.js';
 // Writing and describing
@@ -67,7 +62,9 @@ export { STARTER_DATA_FOLDER } from './starterConfigText.js';
 export type { StarterOptions } from './starterConfigText.js';
 // Helpers
 export { resolveConfigPath } from './resolveConfigPath.js';
-export { closestWord } from './closestWord.js';
+// The configuration's vocabulary, for the command line: did-you-mean and the dark-energy law names.
+export { closestWord } from '../math/index.js';
+export { DARK_ENERGY_LAW_NAMES } from '../cosmology/index.js';
 // Survey descriptions (candela simulate)
 export type { SurveyDescription } from './surveyDescription.js';
 export type { SurveyTruth } from './surveyDescription.js';

@@ -1,7 +1,10 @@
 /**
  * Which parameters a model uses, given the data and the standardization.
  */
-import type { ModelSpec, StandardizationOptions, SupernovaKind } from './candelaConfig.js';
+import { darkEnergyLaw } from '../cosmology/index.js';
+import { PARAMETER_ORDER } from '../parameters/index.js';
+import { probeDefinition, type ProbeBlock } from '../probes/index.js';
+import type { CandelaConfig, ModelSpec, StandardizationOptions, SupernovaKind } from './candelaConfig.js';
 
 /** What decides the parameter list besides the model itself. */
 export interface ParameterContext {
@@ -10,19 +13,30 @@ export interface ParameterContext {
   /** Whether some data set maps a calibrator_mu column. */
   hasCalibrators: boolean;
   standardization: StandardizationOptions;
+  /** The configured probes besides the supernovae. */
+  probes: readonly ProbeBlock[];
 }
 
-/** Base names in the order parameters are listed in chains and tables: cosmology first, then nuisance. */
-export const PARAMETER_ORDER: readonly string[] = [
-  'omega_m', 'omega_de', 'w0', 'wa', 'h0', 'abs_mag', 'alpha', 'beta', 'mass_step', 'sigma_int',
-  'x1_mean', 'x1_width', 'color_mean', 'color_width',
-];
+/**
+ * The context of a configuration (or of its sections read so far).
+ * @example parameterContext(config).hasCalibrators // false
+ */
+export function parameterContext(config: Pick<CandelaConfig, 'supernovae' | 'standardization' | 'probes'>): ParameterContext {
+  return {
+    kinds: config.supernovae.map((set) => set.kind),
+    hasCalibrators: config.supernovae.some((set) => set.columns.calibrator_mu !== undefined),
+    standardization: config.standardization,
+    probes: config.probes,
+  };
+}
+
 
 /**
  * The base parameter names a model uses:
- * omega_m always; omega_de when curvature is free; w0 for constant_w and cpl;
- * wa for cpl; h0 only with calibrators (otherwise it is degenerate with the
- * magnitude offset); abs_mag when the offset is sampled; alpha, beta and
+ * omega_m always; omega_de when curvature is free; the parameters its
+ * dark-energy law declares (w0, wa); h0 with calibrators (otherwise it is
+ * degenerate with the magnitude offset); what each configured probe
+ * requires (its definition says); abs_mag when the offset is sampled; alpha, beta and
  * (host step on) mass_step only for light-curve data; sigma_int unless the
  * intrinsic scatter is off; the four population parameters for the
  * hierarchical method with light-curve data. Per-sample bases (sigma_int with
@@ -30,7 +44,7 @@ export const PARAMETER_ORDER: readonly string[] = [
  * Cost: O(1).
  * @param context data kinds, calibrators, standardization.
  * @param model the model.
- * @returns base names in PARAMETER_ORDER.
+ * @returns base names in the registry's order.
  * @example usedParameterBases({ kinds: ['magnitudes'], hasCalibrators: false, standardization }, flatLambda) // ['omega_m', 'sigma_int']
  */
 export function usedParameterBases(context: ParameterContext, model: Pick<ModelSpec, 'darkEnergy' | 'curvature'>): string[] {
@@ -38,9 +52,9 @@ export function usedParameterBases(context: ParameterContext, model: Pick<ModelS
   const lightCurves = context.kinds.includes('light_curves');
   const used = new Set<string>(['omega_m']);
   if (model.curvature === 'free') used.add('omega_de');
-  if (model.darkEnergy !== 'lambda') used.add('w0');
-  if (model.darkEnergy === 'cpl') used.add('wa');
+  for (const name of darkEnergyLaw(model.darkEnergy).parameters) used.add(name);
   if (context.hasCalibrators) used.add('h0');
+  for (const block of context.probes) for (const name of probeDefinition(block.key).requires(block.settings)) used.add(name);
   if (standardization.offset === 'sample') used.add('abs_mag');
   if (lightCurves) {
     used.add('alpha');
@@ -48,6 +62,6 @@ export function usedParameterBases(context: ParameterContext, model: Pick<ModelS
     if (standardization.hostMassStep.enabled) used.add('mass_step');
     if (standardization.method === 'hierarchical') ['x1_mean', 'x1_width', 'color_mean', 'color_width'].forEach((n) => used.add(n));
   }
-  if (standardization.scatter.intrinsic !== 'off') used.add('sigma_int');
+  if (standardization.scatter.intrinsic !== 'off' && context.kinds.length > 0) used.add('sigma_int');
   return PARAMETER_ORDER.filter((name) => used.has(name));
 }

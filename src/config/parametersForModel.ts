@@ -4,8 +4,8 @@
  */
 import type { CandelaConfig, ParameterSpec, PriorSpec } from './candelaConfig.js';
 import { DEFAULT_PRIORS, NON_SAMPLED_DARK_ENERGY } from './defaults.js';
-import { usedParameterBases } from './modelParameterNames.js';
-import { parseParameterName } from './parameterCatalog.js';
+import { parameterContext, usedParameterBases } from './modelParameterNames.js';
+import { parseParameterName } from '../parameters/index.js';
 
 /** The parameter set of one model. */
 export interface ModelParameters {
@@ -38,11 +38,7 @@ export function parametersForModel(config: CandelaConfig, modelIndex: number, sa
   const model = config.models[modelIndex];
   if (!model) throw new RangeError(`model index ${modelIndex} outside 0..${config.models.length - 1}`);
   const merged: Record<string, ParameterSpec> = { ...config.parameters, ...model.parameters };
-  const context = {
-    kinds: config.supernovae.map((set) => set.kind),
-    hasCalibrators: config.supernovae.some((set) => set.columns.calibrator_mu !== undefined),
-    standardization: config.standardization,
-  };
+  const context = parameterContext(config);
   const result: ModelParameters = { free: [], fixed: {}, awaitsSampleLabels: false };
   const used = usedParameterBases(context, model);
   for (const base of used) {

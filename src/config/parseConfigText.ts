@@ -9,8 +9,9 @@ import { checkCrossFieldRules } from './checkCrossFieldRules.js';
 import { ConfigReader } from './configReader.js';
 import type { Located } from './configReader.js';
 import { DEFAULT_PRIORS, DEFAULT_REFERENCE_H0_KM_PER_S_PER_MPC, DEFAULT_SEED, DEFAULT_TITLE } from './defaults.js';
-import { usedParameterBases } from './modelParameterNames.js';
+import { parameterContext, usedParameterBases } from './modelParameterNames.js';
 import { readModels } from './readModels.js';
+import { readProbes } from './readProbes.js';
 import { readOutput } from './readOutput.js';
 import { readParameters } from './readParameters.js';
 import { readSampler } from './readSampler.js';
@@ -20,7 +21,7 @@ import { resolveConfigPath } from './resolveConfigPath.js';
 
 /** The top-level keys, in documentation order. */
 export const TOP_LEVEL_KEYS = [
-  'title', 'seed', 'supernovae', 'standardization', 'models', 'parameters', 'derived', 'reference_h0', 'sampler', 'output',
+  'title', 'seed', 'supernovae', 'standardization', 'probes', 'models', 'parameters', 'derived', 'reference_h0', 'sampler', 'output',
 ] as const;
 const DERIVED: readonly DerivedQuantity[] = ['omega_k', 'omega_de', 'q0', 'z_accel', 'age_gyr', 'offset'];
 
@@ -70,6 +71,7 @@ export function parseConfigText(text: string, fileName: string): Checked<Candela
   const seed = readSeed(reader, fields.get('seed'));
   const supernovae = readSupernovae(reader, get('supernovae'));
   const standardization = readStandardization(reader, get('standardization'));
+  const probes = readProbes(reader, fields.get('probes'), fileName);
   const models = readModels(reader, get('models'));
   const userParameters = readParameters(reader, fields.get('parameters'));
   const derivedAt = fields.get('derived');
@@ -80,8 +82,9 @@ export function parseConfigText(text: string, fileName: string): Checked<Candela
     seed,
     supernovae,
     standardization,
+    probes,
     models,
-    parameters: withDefaultPriors(userParameters, { supernovae, standardization, models }),
+    parameters: withDefaultPriors(userParameters, { supernovae, standardization, probes, models }),
     derived,
     referenceH0KmPerSPerMpc: reader.number(fields.get('reference_h0'), { min: 0, exclusiveMin: true }) ?? DEFAULT_REFERENCE_H0_KM_PER_S_PER_MPC,
     sampler: readSampler(reader, get('sampler')),
@@ -113,13 +116,9 @@ function readSeed(reader: ConfigReader, at: Located | undefined): number | strin
 
 /** The user's global entries plus the default prior of every base parameter some model uses. */
 function withDefaultPriors(
-  user: Record<string, ParameterSpec>, parts: Pick<CandelaConfig, 'supernovae' | 'standardization' | 'models'>,
+  user: Record<string, ParameterSpec>, parts: Pick<CandelaConfig, 'supernovae' | 'standardization' | 'probes' | 'models'>,
 ): Record<string, ParameterSpec> {
-  const context = {
-    kinds: parts.supernovae.map((set) => set.kind),
-    hasCalibrators: parts.supernovae.some((set) => set.columns.calibrator_mu !== undefined),
-    standardization: parts.standardization,
-  };
+  const context = parameterContext(parts);
   const block: Record<string, ParameterSpec> = {};
   for (const model of parts.models) {
     for (const base of usedParameterBases(context, model)) {

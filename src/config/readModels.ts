@@ -2,6 +2,7 @@
  * `models`: the cosmological models to fit, each into its own run folder.
  */
 import { isMap } from 'yaml';
+import { DARK_ENERGY_LAW_NAMES } from '../cosmology/index.js';
 import type { ModelSpec } from './candelaConfig.js';
 import type { ConfigReader, Located } from './configReader.js';
 import { DEFAULT_MODEL } from './defaults.js';
@@ -9,7 +10,7 @@ import { readParameters } from './readParameters.js';
 import { readLabel } from './readLabel.js';
 
 const MODEL_KEYS = ['label', 'dark_energy', 'curvature', 'radiation', 'parameters'] as const;
-const DARK_ENERGY = ['lambda', 'constant_w', 'cpl'] as const;
+const DARK_ENERGY = DARK_ENERGY_LAW_NAMES;
 const CURVATURE = ['flat', 'free'] as const;
 
 /**

@@ -5,8 +5,8 @@
 import { isScalar } from 'yaml';
 import type { ParameterSpec, PriorSpec } from './candelaConfig.js';
 import type { ConfigReader, Located } from './configReader.js';
-import { closestWord } from './closestWord.js';
-import { PARAMETER_CATALOG, isPhysicalValue, parseParameterName, physicalRangeText } from './parameterCatalog.js';
+import { closestWord } from '../math/index.js';
+import { PARAMETERS, isPhysicalValue, parseParameterName, physicalRangeText } from '../parameters/index.js';
 
 const ENTRY_KEYS = ['prior', 'min', 'max', 'mean', 'sd', 'fixed'] as const;
 const PRIOR_KINDS = ['uniform', 'gaussian', 'truncated_gaussian', 'log_uniform'] as const;
@@ -38,10 +38,10 @@ export function readParameters(reader: ConfigReader, at: Located | undefined): R
   for (const [name, value] of reader.mapping(at, null) ?? []) {
     const parsed = parseParameterName(name);
     if (!parsed) {
-      reader.unknownKey({ ...value, node: value.anchor }, name, Object.keys(PARAMETER_CATALOG), 'parameter');
+      reader.unknownKey({ ...value, node: value.anchor }, name, Object.keys(PARAMETERS).filter((key) => !PARAMETERS[key].derivedOnly), 'parameter');
       continue;
     }
-    if (PARAMETER_CATALOG[parsed.base].derivedOnly) {
+    if (PARAMETERS[parsed.base].derivedOnly) {
       reader.report({ ...value, node: value.anchor }, 'config.derived_parameter', `${name} is derived, never sampled or fixed`, {
         expected: 'a parameter that can be sampled', found: `"${name}"`,
         fix: 'to fit curvature set curvature: free in the model and give omega_de a prior; list omega_k under derived to report it',

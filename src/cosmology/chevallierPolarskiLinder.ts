@@ -1,3 +1,4 @@
+import type { DarkEnergyLawDefinition } from './darkEnergyLawDefinition.js';
 import type { DarkEnergyEvolution } from './darkEnergyEvolution.js';
 
 /**
@@ -26,3 +27,11 @@ export function chevallierPolarskiLinder(w0: number, wa: number): DarkEnergyEvol
     highRedshiftLogFactor: -3 * wa,
   };
 }
+
+/** The CPL law of the registry: two parameters, w0 and wa. */
+export const CHEVALLIER_POLARSKI_LINDER_LAW: DarkEnergyLawDefinition = {
+  name: 'cpl',
+  title: 'w0-wa (Chevallier-Polarski-Linder)',
+  parameters: ['w0', 'wa'],
+  evolution: (values) => chevallierPolarskiLinder(values.w0, values.wa),
+};

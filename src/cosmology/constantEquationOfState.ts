@@ -1,3 +1,4 @@
+import type { DarkEnergyLawDefinition } from './darkEnergyLawDefinition.js';
 import type { DarkEnergyEvolution } from './darkEnergyEvolution.js';
 
 /**
@@ -20,3 +21,11 @@ export function constantEquationOfState(w: number): DarkEnergyEvolution {
     highRedshiftLogFactor: 0,
   };
 }
+
+/** Constant w as a law of the registry: one parameter, w0. */
+export const CONSTANT_EQUATION_OF_STATE_LAW: DarkEnergyLawDefinition = {
+  name: 'constant_w',
+  title: 'constant equation of state (w = w0)',
+  parameters: ['w0'],
+  evolution: (values) => constantEquationOfState(values.w0),
+};

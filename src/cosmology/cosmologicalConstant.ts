@@ -1,3 +1,4 @@
+import type { DarkEnergyLawDefinition } from './darkEnergyLawDefinition.js';
 import type { DarkEnergyEvolution } from './darkEnergyEvolution.js';
 
 const LAMBDA: DarkEnergyEvolution = {
@@ -19,3 +20,14 @@ const LAMBDA: DarkEnergyEvolution = {
 export function cosmologicalConstant(): DarkEnergyEvolution {
   return LAMBDA;
 }
+
+/**
+ * The cosmological constant as a law of the registry: no parameter of its own
+ * (w = -1 always).
+ */
+export const COSMOLOGICAL_CONSTANT_LAW: DarkEnergyLawDefinition = {
+  name: 'lambda',
+  title: 'cosmological constant (w = -1)',
+  parameters: [],
+  evolution: () => cosmologicalConstant(),
+};

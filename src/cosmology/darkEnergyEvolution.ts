@@ -1,6 +1,4 @@
-import { cosmologicalConstant } from './cosmologicalConstant.js';
-import { constantEquationOfState } from './constantEquationOfState.js';
-import { chevallierPolarskiLinder } from './chevallierPolarskiLinder.js';
+import { darkEnergyLaw } from './darkEnergyLaws.js';
 
 /** The dark-energy laws candela knows: Lambda, constant w (wCDM), CPL w0-wa. */
 export type DarkEnergyLaw = 'lambda' | 'constant_w' | 'cpl';
@@ -28,18 +26,14 @@ export interface DarkEnergyEvolution {
 }
 
 /**
- * The evolution for a law and its parameters.
+ * The evolution for a law and its parameters (through the law registry).
  * Cost: O(1).
- * @param law 'lambda' (w = -1), 'constant_w' (w = w0), 'cpl' (w0 + wa z/(1+z)).
+ * @param law a name of the registry: 'lambda' (w = -1), 'constant_w' (w = w0), 'cpl' (w0 + wa z/(1+z)).
  * @param w0 equation of state today (dimensionless; ignored for 'lambda').
  * @param wa CPL slope dw/da (dimensionless; used only by 'cpl').
- * @throws nothing.
+ * @throws RangeError for a law outside the registry.
  * @example darkEnergyEvolution('constant_w', -0.8, 0).densityScaling(Math.log(2), 2) // => 2^0.6 = 1.515716566510398
  */
 export function darkEnergyEvolution(law: DarkEnergyLaw, w0: number, wa: number): DarkEnergyEvolution {
-  switch (law) {
-    case 'lambda': return cosmologicalConstant();
-    case 'constant_w': return constantEquationOfState(w0);
-    case 'cpl': return chevallierPolarskiLinder(w0, wa);
-  }
+  return darkEnergyLaw(law).evolution({ w0, wa });
 }

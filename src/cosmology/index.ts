@@ -6,6 +6,8 @@ export type { CreateCosmologyOptions } from './createCosmology.js';
 export type { Cosmology, CosmologyOutcome, CosmologyParameters } from './cosmology.js';
 export { resolveCosmologyParameters, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES } from './resolveCosmologyParameters.js';
 export type { ResolvedCosmology } from './resolveCosmologyParameters.js';
+export { cosmologyParametersFromValues } from './cosmologyFromValues.js';
+export type { CosmologyFamily } from './cosmologyFromValues.js';
 export { derivedCosmologyQuantities } from './derivedCosmologyQuantities.js';
 export type { DerivedCosmologyQuantities } from './derivedCosmologyQuantities.js';
 
@@ -15,6 +17,10 @@ export type { DarkEnergyEvolution, DarkEnergyLaw } from './darkEnergyEvolution.j
 export { cosmologicalConstant } from './cosmologicalConstant.js';
 export { constantEquationOfState } from './constantEquationOfState.js';
 export { chevallierPolarskiLinder } from './chevallierPolarskiLinder.js';
+export type { DarkEnergyLawDefinition } from './darkEnergyLawDefinition.js';
+export { DARK_ENERGY_LAWS } from './darkEnergyLaws.js';
+export { DARK_ENERGY_LAW_NAMES } from './darkEnergyLaws.js';
+export { darkEnergyLaw } from './darkEnergyLaws.js';
 
 // FLRW core pieces
 export { squaredExpansionRate, decelerationParameter } from './densityBudget.js';

@@ -1,3 +1,4 @@
+import { DARK_ENERGY_LAW_NAMES } from './darkEnergyLaws.js';
 import { darkEnergyEvolution } from './darkEnergyEvolution.js';
 import type { CosmologyParameters } from './cosmology.js';
 import type { DensityBudget } from './densityBudget.js';
@@ -11,7 +12,6 @@ export type ResolvedCosmology =
   | { ok: true; parameters: Required<CosmologyParameters>; budget: DensityBudget }
   | { ok: false; reason: string };
 
-const LAWS = ['lambda', 'constant_w', 'cpl'];
 
 /**
  * Checks the numbers of a parameter set and builds its density budget:
@@ -27,7 +27,7 @@ const LAWS = ['lambda', 'constant_w', 'cpl'];
  */
 export function resolveCosmologyParameters(p: CosmologyParameters): ResolvedCosmology {
   const fail = (reason: string): ResolvedCosmology => ({ ok: false, reason });
-  if (!LAWS.includes(p.darkEnergy)) return fail(`unknown dark-energy law '${String(p.darkEnergy)}'; expected one of ${LAWS.join(', ')}`);
+  if (!DARK_ENERGY_LAW_NAMES.includes(p.darkEnergy)) return fail(`unknown dark-energy law '${String(p.darkEnergy)}'; expected one of ${DARK_ENERGY_LAW_NAMES.join(', ')}`);
   if (typeof p.flat !== 'boolean') return fail(`'flat' must be true or false, got ${String(p.flat)}`);
   const w0 = p.w0 ?? -1;
   const wa = p.wa ?? 0;

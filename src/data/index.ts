@@ -20,6 +20,8 @@ export type { LightCurveParameter } from './reorderLightCurveCovariance.js';
 export { CANONICAL_BLOCK_ORDER } from './reorderLightCurveCovariance.js';
 export { subsetCovariance } from './subsetCovariance.js';
 export { checkPositiveDefinite } from './checkPositiveDefinite.js';
+export { readMeasurementCovariance } from './readMeasurementCovariance.js';
+export { readTextLines } from './readTextLines.js';
 // cuts and joining
 export { applyCuts } from './applyCuts.js';
 export type { CutOptions } from './applyCuts.js';

@@ -50,3 +50,4 @@ export type { MarginalDensity1D, DensityGrid2D, BandwidthRule, HardBounds, Margi
 
 // Text
 export { editDistance } from './text/editDistance.js';
+export { closestWord } from './text/closestWord.js';

@@ -2,7 +2,9 @@ import type { CandelaConfig } from '../config/index.js';
 import { derivedForModel, parametersForModel } from '../config/index.js';
 import { createHierarchicalSupernovaTerm, createPosterior, createSupernovaTerm, type Posterior, type SupernovaTerm } from '../likelihood/index.js';
 import type { DarkEnergyLaw } from '../cosmology/index.js';
-import type { HierarchicalTerm } from '../likelihood/index.js';
+import type { HierarchicalTerm, LikelihoodTerm } from '../likelihood/index.js';
+import { probeDefinition } from '../probes/index.js';
+import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES } from '../cosmology/index.js';
 
 /** The supernova term of a model: conventional or hierarchical standardization. */
 export type SupernovaLikelihood = SupernovaTerm | HierarchicalTerm;
@@ -10,10 +12,8 @@ import type { LogProbabilityModel } from '../sampler/index.js';
 import { createDerivedParameters } from './derivedParameters.js';
 import { termStandardization } from './termStandardization.js';
 import type { LoadedSupernovae } from './loadSupernovae.js';
+import { loadProbes, type ProbeData } from './loadProbes.js';
 
-/** Photon temperature and neutrino species when a model includes radiation (the cosmology layer's convention). */
-const CMB_TEMPERATURE_K = 2.7255;
-const EFFECTIVE_NEUTRINO_SPECIES = 3.046;
 
 /** Blob layout of every stored sample: log prior, log likelihood, then the derived quantities. */
 export const BLOB_LOG_PRIOR = 0;
@@ -25,6 +25,10 @@ export interface BuiltModel {
   label: string;
   posterior: Posterior;
   supernovae: SupernovaLikelihood;
+  /** Every likelihood term of the posterior, the supernovae first, then each configured probe. */
+  terms: LikelihoodTerm[];
+  /** The configured probes and their data, in the order of `terms` after the supernovae. */
+  probes: ProbeData[];
   /** Sampled parameter names, in theta order. */
   parameterNames: string[];
   /** Fixed parameter values. */
@@ -42,9 +46,9 @@ export interface BuiltModel {
 }
 
 /**
- * Builds the posterior of model `modelIndex`: the supernova likelihood term
- * (today the only term; external distance terms will be further entries in
- * `terms`) and the priors, and wraps it as the sampler's log-probability model
+ * Builds the posterior of model `modelIndex`: the supernova likelihood term,
+ * one term per configured probe (its definition in src/probes builds it) and
+ * the priors, and wraps it as the sampler's log-probability model
  * whose blobs are [log prior, log likelihood, derived...].
  */
 export function buildModel(config: CandelaConfig, modelIndex: number, data: LoadedSupernovae): BuiltModel {
@@ -60,7 +64,7 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
       darkEnergy: model.darkEnergy,
       flat: model.curvature === 'flat',
       cmbTemperatureK: model.radiation ? CMB_TEMPERATURE_K : 0,
-      effectiveNeutrinoSpecies: EFFECTIVE_NEUTRINO_SPECIES,
+      effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES,
     },
     standardization: termStandardization(standardization),
     offset: standardization.offset,
@@ -77,7 +81,10 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
       },
     })
     : createSupernovaTerm(termOptions);
-  const posterior = createPosterior({ free, fixed, terms: [supernovae] });
+  const probes = loadProbes(config);
+  const probeModel = { darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', referenceH0KmPerSPerMpc: config.referenceH0KmPerSPerMpc };
+  const terms: LikelihoodTerm[] = [supernovae, ...probes.map(({ block, loaded }) => probeDefinition(block.key).createTerm(loaded, block.settings, probeModel))];
+  const posterior = createPosterior({ free, fixed, terms });
   const derivedNames = derivedForModel(config, modelIndex).filter((name) => !(name === 'omega_de' && model.curvature === 'free'));
   const fillDerived = createDerivedParameters(
     { darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', radiation: model.radiation, referenceH0KmPerSPerMpc: config.referenceH0KmPerSPerMpc },
@@ -101,5 +108,5 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
     },
   };
   return {
-    label: model.label, posterior, cosmologyModel: { darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', radiation: model.radiation }, samples: data.table.samples, supernovae, parameterNames: [...posterior.names], fixed, priors: free, derivedNames, logProbability };
+    label: model.label, posterior, cosmologyModel: { darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', radiation: model.radiation }, samples: data.table.samples, supernovae, terms, probes, parameterNames: [...posterior.names], fixed, priors: free, derivedNames, logProbability };
 }

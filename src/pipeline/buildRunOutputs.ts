@@ -136,6 +136,7 @@ function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
     extra: [
       { label: 'supernovae', value: String(record.data.supernovae) },
       { label: 'chi-square at best fit', value: record.best_fit.chi_square === null ? 'n/a' : `${record.best_fit.chi_square.toFixed(2)} for ${record.best_fit.degrees_of_freedom} degrees of freedom` },
+      ...termRows(record),
       { label: 'likelihood evaluations', value: String(record.run.evaluations) },
     ],
   };
@@ -244,4 +245,14 @@ export function buildRunOutputs(runDirs: string[], outDir: string): RunAnalysis[
   if (figureNames(runs[0]).png) writeFileAtomic(join(outDir, 'overlay_triangle.png'), svgToPng(svg, PNG_WIDTH_PX));
   writeFileAtomic(join(outDir, 'overlay_summary.md'), runs.map((run, k) => `## ${run.record.model.label}\n\n${summaryMarkdown(analyses[k].summary)}`).join('\n'));
   return analyses;
+}
+
+/** One report row per likelihood term when the posterior has more than one: its chi-square and degrees of freedom. */
+function termRows(record: RunOnDisk['record']): Array<{ label: string; value: string }> {
+  const terms = record.best_fit.terms ?? [];
+  if (terms.length < 2) return [];
+  return terms.map((term) => ({
+    label: `chi-square of ${term.name}`,
+    value: term.chi_square === null ? 'n/a' : `${term.chi_square.toFixed(2)} for ${term.n_data} data points, ${term.degrees_of_freedom} degrees of freedom`,
+  }));
 }

@@ -1,4 +1,4 @@
-import { parseParameterName } from '../config/index.js';
+import { parseParameterName } from '../parameters/index.js';
 import type { CovarianceMatrix } from '../data/index.js';
 import { CandelaError } from '../errors.js';
 import { createSupernovaTerm } from '../likelihood/index.js';

@@ -1,5 +1,6 @@
 import type { CandelaConfig, PriorSpec, SurveyDescription, SurveyTruth } from '../config/index.js';
-import { PARAMETER_ORDER, parametersForModel, parseParameterName } from '../config/index.js';
+import { parametersForModel } from '../config/index.js';
+import { parameterRank, parseParameterName } from '../parameters/index.js';
 import type { DarkEnergyLaw } from '../cosmology/index.js';
 import { CandelaError } from '../errors.js';
 import { termStandardization } from './termStandardization.js';
@@ -101,8 +102,7 @@ export function forecastSetups(survey: SurveyDescription, config: CandelaConfig 
       entries.push({ name: 'abs_mag', prior: null });
       notes.push('abs_mag is marginalized in the fit; here it is a free parameter with a flat prior, which gives the same marginal errors for the others');
     }
-    const rank = (name: string): number => PARAMETER_ORDER.indexOf(parseParameterName(name)?.base ?? name);
-    entries.sort((a, b) => rank(a.name) - rank(b.name));
+    entries.sort((a, b) => parameterRank(a.name) - parameterRank(b.name));
     const h0 = fixed.h0 ?? truth.h0KmPerSPerMpc;
     const parameters = entries.map((entry) => {
       const value = truthValue(survey, entry.name, h0);

@@ -4,6 +4,7 @@ import { configToPlainObject, type CandelaConfig } from '../config/index.js';
 import type { EnsembleSampler } from '../sampler/index.js';
 import { VERSION } from './version.js';
 import type { BuiltModel } from './buildModel.js';
+import { probeInputFiles } from './loadProbes.js';
 import type { LoadedSupernovae } from './loadSupernovae.js';
 import { arrayExtent } from './arrayExtent.js';
 import type { ConvergenceCheck, StopReason } from './samplingLoop.js';
@@ -30,7 +31,11 @@ export interface RunRecord {
     warnings: string[];
   };
   likelihood: { description: string[]; path: string };
-  best_fit: { parameters: Record<string, number>; chi_square: number | null; n_data: number; n_free: number; degrees_of_freedom: number; log_likelihood: number; log_posterior: number; abs_mag: number | null };
+  best_fit: {
+    parameters: Record<string, number>; chi_square: number | null;
+    /** Per likelihood term: chi-square at the best fit, data points, free parameters it reads, and degrees of freedom (data - those parameters). */
+    terms?: TermFit[];
+    n_data: number; n_free: number; degrees_of_freedom: number; log_likelihood: number; log_posterior: number; abs_mag: number | null };
   run: {
     seed: string;
     steps: number;
@@ -46,6 +51,31 @@ export interface RunRecord {
   };
   inputs: Array<{ path: string; sha256: string }>;
   configuration: unknown;
+}
+
+/** One likelihood term at the best fit. */
+export interface TermFit {
+  name: string;
+  chi_square: number | null;
+  n_data: number;
+  /** Free parameters the term reads. */
+  n_free: number;
+  degrees_of_freedom: number;
+}
+
+/**
+ * Each term's chi-square at the best fit, its data count and degrees of
+ * freedom (its data points minus the free parameters it reads; a parameter
+ * read by several terms counts in each, so the terms' degrees of freedom do
+ * not add up to the total's).
+ */
+export function termFits(model: BuiltModel, values: Readonly<Record<string, number>>): TermFit[] {
+  const free = new Set(model.parameterNames);
+  return model.terms.map((term) => {
+    const chi = term.bestFitExtras?.(values).chi_square;
+    const reads = term.requires.filter((name) => free.has(name)).length;
+    return { name: term.name, chi_square: chi !== undefined && Number.isFinite(chi) ? chi : null, n_data: term.dataCount, n_free: reads, degrees_of_freedom: term.dataCount - reads };
+  });
 }
 
 /** SHA-256 of a file's bytes, hex. */
@@ -70,12 +100,14 @@ export function commonRunSections(input: { config: CandelaConfig; modelIndex: nu
   const spec = config.models[input.modelIndex];
   const values = model.posterior.values(best.theta);
   const extras = model.supernovae.bestFitExtras?.(values) ?? {};
+  const terms = termFits(model, values);
+  const totalChiSquare = terms.every((term) => term.chi_square !== null) ? terms.reduce((sum, term) => sum + (term.chi_square as number), 0) : null;
   const bestParameters: Record<string, number> = {};
   model.parameterNames.forEach((name, d) => { bestParameters[name] = best.theta[d]; });
   const counts = new Map<string, number>();
   for (const sample of data.table.samples) counts.set(sample, (counts.get(sample) ?? 0) + 1);
   const seen = new Set<string>();
-  const inputFiles = [config.source.file, ...data.inputFiles].filter((file) => !seen.has(file.resolved) && seen.add(file.resolved));
+  const inputFiles = [config.source.file, ...data.inputFiles, ...probeInputFiles(config)].filter((file) => !seen.has(file.resolved) && seen.add(file.resolved));
   return {
     tool: { name: 'candela', version: VERSION },
     title: config.title,
@@ -95,10 +127,11 @@ export function commonRunSections(input: { config: CandelaConfig; modelIndex: nu
       })),
       warnings: data.warnings.map((w) => w.message),
     },
-    likelihood: { description: model.supernovae.describe(), path: model.supernovae.path },
+    likelihood: { description: [...model.supernovae.describe(), ...model.probes.flatMap((probe) => probe.loaded.describe)], path: model.supernovae.path },
     best_fit: {
       parameters: bestParameters,
-      chi_square: Number.isFinite(extras.chi_square) ? extras.chi_square : null,
+      chi_square: totalChiSquare,
+      terms,
       n_data: model.posterior.dataCount,
       n_free: model.parameterNames.length,
       degrees_of_freedom: model.posterior.dataCount - model.parameterNames.length,

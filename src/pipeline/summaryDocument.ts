@@ -68,6 +68,8 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
       n_data: record.best_fit.n_data,
       n_free: record.best_fit.n_free,
       degrees_of_freedom: record.best_fit.degrees_of_freedom,
+      // Older run records (before per-term fits) hold the supernovae only.
+      terms: record.best_fit.terms ?? [{ name: 'supernovae', chi_square: record.best_fit.chi_square, n_data: record.best_fit.n_data, n_free: record.best_fit.n_free, degrees_of_freedom: record.best_fit.degrees_of_freedom }],
       log_likelihood_max: record.best_fit.log_likelihood,
       log_posterior_max: record.best_fit.log_posterior,
       abs_mag_best_fit: record.best_fit.abs_mag,

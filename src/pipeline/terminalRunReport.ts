@@ -18,7 +18,9 @@ export function terminalRunReport(runDir: string): string {
     summaryTerminal(analysis.summary, { width: TERMINAL_COLUMNS, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess }),
     terminalMarginals(analysis.marginals, { width: TERMINAL_COLUMNS - 20, height: 4 }),
   ];
-  if (run.record.best_fit.chi_square !== null) lines.push(`chi^2 at best fit = ${run.record.best_fit.chi_square.toFixed(2)} for ${run.record.best_fit.degrees_of_freedom} degrees of freedom (${run.record.best_fit.n_data} supernovae)`);
+  const terms = run.record.best_fit.terms ?? [];
+  if (run.record.best_fit.chi_square !== null) lines.push(`chi^2 at best fit = ${run.record.best_fit.chi_square.toFixed(2)} for ${run.record.best_fit.degrees_of_freedom} degrees of freedom (${run.record.best_fit.n_data} data points)`);
+  if (terms.length > 1) for (const term of terms) lines.push(`  ${term.name}: chi^2 = ${term.chi_square === null ? 'n/a' : term.chi_square.toFixed(2)} for ${term.n_data} data points`);
   for (const warning of analysis.warnings) lines.push(`warning: ${warning}`);
   lines.push(`outputs: ${runDir} (report.html, summary.json, summary.md, table.tex, chains.csv, figures/, contours/, marginals/)`);
   return lines.join('\n');

@@ -8,7 +8,7 @@ afterEach(() => { process.exitCode = undefined; });
 
 describe('candela distances', () => {
   it('--json reproduces the astropy 5.2.1 reference rows of Flatw0waCDM(Om0=0.3, w0=-0.9, wa=0.3), no radiation', async () => {
-    const { code, stdout } = await run(['distances', '--model', 'w0wa', '--omega-m', '0.3', '--w0', '-0.9', '--wa', '0.3', '--z', '0.5,1,2', '--json']);
+    const { code, stdout } = await run(['distances', '--dark-energy', 'cpl', '--omega-m', '0.3', '--w0', '-0.9', '--wa', '0.3', '--z', '0.5,1,2', '--json']);
     expect(code).toBe(0);
     const table = JSON.parse(stdout);
     // Source: ../shared/reference/distances.csv, case w0waCDM_flat_w0-0.9_wa0.3_norad (astropy 5.2.1).
@@ -46,10 +46,12 @@ describe('candela distances', () => {
   it('exits 2 and names the option and the fix for bad input', async () => {
     const cases: [string[], string][] = [
       [['distances', '--z', '0.5,abc'], '--z'],
-      [['distances', '--model', 'phantom', '--z', '1'], '--model'],
+      [['distances', '--dark-energy', 'phantom', '--z', '1'], '--dark-energy'],
       [['distances', '--curved', '--z', '1'], '--omega-de'],
       [['distances', '--omega-m', '-1', '--z', '1'], '--omega-m'],
-      [['distances', '--w0', '-0.9', '--z', '1'], '--model'],
+      [['distances', '--w0', '-0.9', '--z', '1'], '--dark-energy'],
+      // A flat model derives Omega_DE: --omega-de without --curved was silently ignored before.
+      [['distances', '--omega-de', '0.8', '--z', '1'], '--omega-de'],
       [['distances'], '--z'],
       [['distances', '--z-file', 'no/such/file.txt'], '--z-file'],
     ];
@@ -71,6 +73,6 @@ describe('candela distances', () => {
   it('--help shows an example', async () => {
     const { code, stdout } = await run(['distances', '--help']);
     expect(code).toBe(0);
-    expect(stdout).toContain('candela distances --model w0wa');
+    expect(stdout).toContain('candela distances --dark-energy cpl');
   });
 });

@@ -8,6 +8,8 @@ export { traceFigure } from './traceFigure.js';
 export { traceStackFigure } from './traceFigure.js';
 export type { TraceParameterPanel, TraceFigureOptions } from './traceFigure.js';
 export type { TraceEnsemble } from './tracePanel.js';
+export { sampleWalkerTraces } from './sampleWalkerTraces.js';
+export type { WalkerLayout, WalkerTraceOptions } from './sampleWalkerTraces.js';
 export { bandFigure } from './bandFigure.js';
 export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './bandFigure.js';
 export { svgToPng } from './svgToPng.js';

@@ -1,6 +1,11 @@
 import { CandelaError } from '../../errors.js';
 import { createAxisScale } from './axisScale.js';
-import { drawLegend } from './drawLegend.js';
+import type { LegendEntry } from './drawLegend.js';
+import { FIGURE_STYLE } from './figureStyle.js';
+import type { FontFace } from './figureStyle.js';
+import { figureWidthPx } from './figureWidth.js';
+import type { FigureWidth } from './figureWidth.js';
+import { legendStrip } from './legendStrip.js';
 import { seriesColor } from './palette.js';
 import { parameterLabel } from './parameterLabel.js';
 import type { ParameterSymbol } from './parameterLabel.js';
@@ -18,8 +23,12 @@ export interface TraceParameterPanel {
 
 /** Optional settings of {@link traceFigure} and {@link traceStackFigure}. */
 export interface TraceFigureOptions {
-  /** Figure width (px; default 640). */
+  /** Figure width (px; default 640); ignored when `width` is given. */
   widthPx?: number;
+  /** Figure width: one journal column (3.4 in), both columns (7 in) or `{ inches }`. */
+  width?: FigureWidth;
+  /** Text face: `sans` (default) or `serif`. */
+  fontFace?: FontFace;
   /** Height of each panel (px; default 150 for one panel, 96 when stacked). */
   panelHeightPx?: number;
   /** Parameter symbols replacing the output layer's parameterSymbols table. */
@@ -28,51 +37,60 @@ export interface TraceFigureOptions {
   idPrefix?: string;
 }
 
-const MARGIN = { left: 72, right: 16, bottom: 46 } as const;
-/** Space between the legend above the panels and the first panel (px). */
-const LEGEND_GAP_PX = 6;
-/** Smallest space above the plot (px), room for the top tick label when there is no legend. */
-const MIN_TOP_PX = 12;
+const MARGIN = { left: 72, right: 16, top: 10, bottom: 40 } as const;
+/** Space under the legend strip (px). */
+const BOTTOM_PAD_PX = 4;
 const STACK_GAP_PX = 8;
 
 /**
  * Trace plots of several parameters stacked on a shared step axis (labelled
- * on the bottom panel only), burn-in shaded, one colour per ensemble with a
- * legend above the panels. Use it to see at a glance whether every ensemble
- * has forgotten its start and mixes (compare the diagnostics of Vehtari et
- * al. 2021 and the autocorrelation times of Goodman & Weare 2010).
+ * on the bottom panel only), burn-in shaded, individual walkers as thin
+ * lines in their ensemble's colour (see sampleWalkerTraces), stuck walkers
+ * as dot-dash ink lines, and the legend in a caption strip below. Use it to
+ * see at a glance whether every walker has forgotten its start and mixes
+ * (compare the diagnostics of Vehtari et al. 2021 and the autocorrelation
+ * times of Goodman & Weare 2010).
  *
  * Cost: O(total series length); each line is reduced to about one point per pixel of width.
  *
  * @param panels one entry per parameter, each with its ensembles' traces (parameter units)
  * @param burnInStep last burn-in step (steps)
- * @param options width and panel height (px), symbols, clip id prefix
+ * @param options width (px or journal width), font face, panel height (px), symbols, clip id prefix
  * @returns the SVG document
  * @throws CandelaError `figure.no_parameters` when panels is empty
  * @example traceStackFigure([{ parameter: 'omega_m', ensembles }, { parameter: 'w0', ensembles: other }], 400)
  */
 export function traceStackFigure(panels: readonly TraceParameterPanel[], burnInStep: number, options: TraceFigureOptions = {}): string {
   if (panels.length === 0) throw new CandelaError({ code: 'figure.no_parameters', message: 'a trace figure needs at least one parameter' });
-  const widthPx = Math.round(options.widthPx ?? 640);
+  const widthPx = figureWidthPx(options.width, options.widthPx ?? 640);
   const panelHeightPx = options.panelHeightPx ?? (panels.length === 1 ? 150 : 96);
   const prefix = options.idPrefix ?? 'trace';
   const symbols = options.symbols;
   // Ensembles are matched across panels by position; the legend follows the panel with the most.
   const widest = panels.reduce((best, panel) => (panel.ensembles.length > best.ensembles.length ? panel : best), panels[0]);
-  const entries = widest.ensembles.map((ensemble, index) => ({ label: ensemble.label, color: ensemble.color ?? seriesColor(index), key: 'line' as const }));
-  const legend = drawLegend(entries, MARGIN.left - 5, 2, { direction: 'row', maxWidthPx: widthPx - MARGIN.left - MARGIN.right + 5 });
-  const top = Math.max(MIN_TOP_PX, legend.heightPx + LEGEND_GAP_PX);
-  const heightPx = Math.round(top + panels.length * panelHeightPx + (panels.length - 1) * STACK_GAP_PX + MARGIN.bottom);
+  const entries: LegendEntry[] = widest.ensembles.map((ensemble, index) => ({
+    label: ensemble.series.length > 1 ? `${ensemble.label} (${ensemble.series.length} walkers)` : ensemble.label,
+    color: ensemble.color ?? seriesColor(index),
+    key: 'line',
+  }));
+  if (panels.some((panel) => panel.ensembles.some((ensemble) => (ensemble.stuck ?? []).length > 0))) {
+    entries.push({ label: 'stuck walker', color: FIGURE_STYLE.axisColor, key: 'dashed' });
+  }
+  const top = MARGIN.top;
+  const plotBottom = top + panels.length * panelHeightPx + (panels.length - 1) * STACK_GAP_PX;
+  const strip = legendStrip(entries, MARGIN.left, plotBottom + MARGIN.bottom, widthPx - MARGIN.left - MARGIN.right);
+  const heightPx = Math.round(plotBottom + MARGIN.bottom + strip.heightPx + BOTTOM_PAD_PX);
   const allEnsembles = panels.flatMap((panel) => panel.ensembles);
   const stepScale = createAxisScale('linear', traceStepRange(allEnsembles), [MARGIN.left, widthPx - MARGIN.right]);
   const definitions: string[] = [];
-  const body: string[] = [legend.svg];
+  const body: string[] = [];
   panels.forEach((panel, index) => {
     const frame: PlotFrame = { leftPx: MARGIN.left, topPx: top + index * (panelHeightPx + STACK_GAP_PX), widthPx: widthPx - MARGIN.left - MARGIN.right, heightPx: panelHeightPx, clipId: `${prefix}-clip-${index}` };
     definitions.push(clipPathElement(frame));
     body.push(drawTracePanel(frame, panel.ensembles, stepScale, burnInStep, parameterLabel(panel.parameter, symbols), index === panels.length - 1));
   });
-  return svgDocument(widthPx, heightPx, `Trace plots of ${panels.map((panel) => panel.parameter).join(', ')}`, definitions, body);
+  body.push(strip.svg);
+  return svgDocument(widthPx, heightPx, `Trace plots of ${panels.map((panel) => panel.parameter).join(', ')}`, definitions, body, options.fontFace);
 }
 
 /**

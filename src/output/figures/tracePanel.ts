@@ -16,18 +16,28 @@ import { svgElement } from './svgElement.js';
 export interface TraceEnsemble {
   /** Legend label, e.g. 'ensemble 1'. */
   label: string;
-  /** A few walkers' values, or the walker mean, one array per line (parameter units). */
+  /** A few walkers' values (or a summary such as the walker mean), one array per line (parameter units). */
   series: readonly ArrayLike<number>[];
+  /** Walker index of each series, for the record (e.g. in `data-walker`); optional. */
+  walkers?: readonly number[];
+  /** Positions in `series` of walkers flagged as stuck: drawn heavier, in ink, above the others. */
+  stuck?: readonly number[];
   /** Step number of the first value (default 0). */
   firstStep?: number;
   /** Steps between stored values when the chain was thinned (default 1). */
   stepStride?: number;
-  /** `#rrggbb`; default: the Okabe-Ito colour of the ensemble's position. */
+  /** `#rrggbb`; default: the palette colour of the ensemble's position. */
   color?: string;
 }
 
 /** Points kept per series per pixel of panel width: one (a min and a max every 2 px) is all a screen or printer can show. */
 const TRACE_POINTS_PER_PX = 1;
+/** Line opacity of individual walkers, and of a lone line (e.g. a walker mean). */
+const WALKER_OPACITY = 0.6;
+const SINGLE_LINE_OPACITY = 0.85;
+/** A stuck walker: ink line width (px) and dash (px). */
+const STUCK_STROKE_PX = 1.1;
+const STUCK_DASH = FIGURE_STYLE.referenceDash;
 /** Value-axis padding on each side, as a fraction of the span. */
 const VALUE_PADDING_FRACTION = 0.05;
 
@@ -54,8 +64,9 @@ export function traceStepRange(ensembles: readonly TraceEnsemble[]): [number, nu
 }
 
 /**
- * Draws one trace panel: burn-in shaded up to burnInStep with a dashed
- * boundary line, each series as a thin line in its ensemble's colour
+ * Draws one trace panel: burn-in shaded up to burnInStep with a thin
+ * boundary line, each series as a thin line in its ensemble's colour, walkers
+ * flagged as stuck as dot-dash ink lines above the others
  * (reduced to about one point per pixel of width by decimateMinMax), a value axis with
  * the parameter label and, when asked, the step axis with its labels.
  *
@@ -92,20 +103,28 @@ export function drawTracePanel(frame: PlotFrame, ensembles: readonly TraceEnsemb
   if (burnInStep > stepScale.domain[0]) {
     const edge = Math.min(stepScale.toPx(burnInStep), frame.leftPx + frame.widthPx);
     layers.push(svgElement('rect', { class: 'burn-in', x: frame.leftPx, y: frame.topPx, width: edge - frame.leftPx, height: frame.heightPx, fill: FIGURE_STYLE.burnInFill }));
-    layers.push(svgElement('path', { class: 'burn-in-edge', fill: 'none', stroke: FIGURE_STYLE.referenceColor, 'stroke-width': FIGURE_STYLE.referenceStrokePx, 'stroke-dasharray': FIGURE_STYLE.referenceDash, d: `M${formatPixels(edge)} ${formatPixels(frame.topPx)}v${formatPixels(frame.heightPx)}` }));
-    layers.push(svgElement('text', { x: frame.leftPx + 4, y: frame.topPx + FIGURE_STYLE.tickFontPx + 2, 'font-size': FIGURE_STYLE.tickFontPx, fill: '#555555' }, 'burn-in'));
+    layers.push(svgElement('path', { class: 'burn-in-edge', fill: 'none', stroke: FIGURE_STYLE.bandFill, 'stroke-width': FIGURE_STYLE.referenceStrokePx, d: `M${formatPixels(edge)} ${formatPixels(frame.topPx)}v${formatPixels(frame.heightPx)}` }));
+    layers.push(svgElement('text', { x: frame.leftPx + 6, y: frame.topPx + FIGURE_STYLE.tickFontPx + 4, 'font-size': FIGURE_STYLE.tickFontPx, 'font-style': 'italic', fill: FIGURE_STYLE.textColor, 'fill-opacity': 0.7 }, 'burn-in'));
   }
+  const stuckLayers: string[] = [];
   ensembles.forEach((ensemble, ensembleIndex) => {
     const color = ensemble.color ?? seriesColor(ensembleIndex);
     const start = ensemble.firstStep ?? 0;
     const stride = ensemble.stepStride ?? 1;
+    const stuck = new Set(ensemble.stuck ?? []);
     const paths = ensemble.series.map((series) => {
       const kept = decimateMinMax(series, Math.max(2, Math.round(TRACE_POINTS_PER_PX * frame.widthPx)));
       const steps = kept.index.map((position) => start + position * stride);
       return linePathData(steps, kept.value, stepScale, valueScale);
     });
-    layers.push(svgElement('path', { class: 'trace', 'data-ensemble': ensemble.label, fill: 'none', stroke: color, 'stroke-opacity': 0.8, 'stroke-width': FIGURE_STYLE.thinStrokePx, 'stroke-linejoin': 'round', d: paths.join('') }));
+    const moving = paths.filter((_, position) => !stuck.has(position));
+    const opacity = ensemble.series.length > 1 ? WALKER_OPACITY : SINGLE_LINE_OPACITY;
+    if (moving.length) layers.push(svgElement('path', { class: 'trace', 'data-ensemble': ensemble.label, fill: 'none', stroke: color, 'stroke-opacity': opacity, 'stroke-width': FIGURE_STYLE.thinStrokePx, 'stroke-linejoin': 'round', d: moving.join('') }));
+    for (const position of stuck) {
+      if (paths[position]) stuckLayers.push(svgElement('path', { class: 'trace stuck-walker', 'data-ensemble': ensemble.label, 'data-walker': ensemble.walkers?.[position], fill: 'none', stroke: FIGURE_STYLE.axisColor, 'stroke-width': STUCK_STROKE_PX, 'stroke-dasharray': STUCK_DASH, d: paths[position] }));
+    }
   });
+  layers.push(...stuckLayers);
   return svgElement('g', { class: 'panel trace-panel' }, [
     clippedGroup(frame, layers),
     drawAxes(

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { closestWord } from '../../src/config/index.js';
+import { closestWord } from '../../../src/math/index.js';
 
 describe('closestWord', () => {
   const keys = ['walkers', 'ensembles', 'stretch_scale', 'max_steps'];

@@ -1,4 +1,4 @@
-import { editDistance } from '../math/index.js';
+import { editDistance } from './editDistance.js';
 
 /**
  * "Did you mean ...?" for misspelt keys, enum values and parameter names,
