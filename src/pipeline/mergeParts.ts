@@ -154,6 +154,8 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   }
   const progress = parts.map((part) => ({ dir: part.dir, steps: part.snapshot.stepCount, stepsTarget: part.record.part.steps_target ?? null, stopReason: part.record.run.stop_reason }));
   const verdict = judgeMergedRun(check, { targetEss: config.sampler.targetEss, maxRhat: config.sampler.maxRhat }, model.parameterNames, progress);
+  const total = first.record.part.ensembles_total;
+  if (parts.length < total) verdict.shortfalls.push(`only ${parts.length} of the configuration's ${total} ensembles were merged (ensembles ${indices.join(', ')})`);
   const record: MergedRunRecord = {
     ...base,
     run: { ...base.run, ensembles: parts.length, stop_reason: 'merged' },

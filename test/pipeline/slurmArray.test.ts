@@ -165,6 +165,18 @@ describe('candela fit --plan slurm, the array tasks, and merge.sh', () => {
   }, 60_000);
 });
 
+describe('candela fit, cluster options out of place', () => {
+  it('refuses plan options without --plan and --steps-per-part without --part or --plan (exit 2, nothing sampled)', async () => {
+    const config = writeConfig('misplaced');
+    expect(await runCli(['fit', config, '--cluster-queue', 'long'])).toBe(2);
+    expect(await runCli(['fit', config, '--part-memory', '4G', '--stop-warning', '60'])).toBe(2);
+    expect(await runCli(['fit', config, '--steps-per-part', '500'])).toBe(2);
+    expect(await runCli(['fit', config, '--plan', 'slurm', '--part-memory', '4 GB'])).toBe(2);
+    expect(await runCli(['fit', config, '--plan', 'slurm', '--part-minutes', 'soon'])).toBe(2);
+    expect(existsSync(join(scratch, 'misplaced'))).toBe(false);
+  });
+});
+
 describe('mergeParts', () => {
   const codeOf = (error: unknown) => (isCandelaError(error) ? error.issues.map((issue) => `${issue.code} ${issue.message}`).join('\n') : String(error));
   const copyPart = (k: number, name: string, edit: (record: Record<string, any>) => void): string => {
@@ -200,6 +212,11 @@ describe('mergeParts', () => {
     const edited = copyPart(1, 'edited', (record) => { record.inputs[1].sha256 = '0'.repeat(64); });
     expect(await refusal([partDir(0), edited])).toMatch(/merge\.inputs_differ/);
   });
+
+  it('notes a merge of fewer ensembles than the configuration has', async () => {
+    const { record } = await mergeParts({ partDirs: [partDir(1)], outDir: join(scratch, 'one-of-two') });
+    expect(record.merge.shortfalls).toContain("only 1 of the configuration's 2 ensembles were merged (ensembles 1)");
+  }, 60_000);
 
   it('refuses a folder that is not a part, and an output folder that holds the parts', async () => {
     expect(await refusal([partDir(0), fullDir])).toMatch(/merge\.not_a_part/);
