@@ -1,4 +1,17 @@
-import { densityGrid2D, marginalDensity1D, weightedMoments, type HardBounds } from '../math/index.js';
+import { densityGrid2D, marginalDensity1D, weightedMoments, type BandwidthRule, type HardBounds } from '../math/index.js';
+
+/** How the kernel width is chosen when none is given: the rule and a factor (as `output.smoothing` sets them for the plots). */
+export interface KernelWidthChoice {
+  /** Default 'scott'. */
+  bandwidthRule?: BandwidthRule;
+  /** Multiplies the rule's bandwidth; default 1. */
+  bandwidthFactor?: number;
+}
+
+/** Just the kernel-width choice of a larger input object. */
+export function widthChoice(input: KernelWidthChoice): KernelWidthChoice {
+  return { bandwidthRule: input.bandwidthRule, bandwidthFactor: input.bandwidthFactor };
+}
 
 /**
  * The kernel density of posterior draws at one point, from the same
@@ -30,28 +43,28 @@ export function resampledWeights(weights: ArrayLike<number> | undefined, count: 
   return result;
 }
 
-/** 1-D kernel density at `point` (1 / parameter units) and the bandwidth used (given, or Scott's rule). */
+/** 1-D kernel density at `point` (1 / parameter units) and the bandwidth used (given, or by the chosen rule). */
 export function kernelDensityAtPoint1D(
-  samples: ArrayLike<number>, weights: ArrayLike<number> | undefined, point: number, bounds: HardBounds, bandwidth?: number,
+  samples: ArrayLike<number>, weights: ArrayLike<number> | undefined, point: number, bounds: HardBounds, bandwidth?: number, choice: KernelWidthChoice = {},
 ): { density: number; bandwidth: number } {
   const { range, node } = rangeAt(point, bandwidth, bounds, samples, weights);
-  const marginal = marginalDensity1D('samples', samples, { weights, bounds, range, gridPoints: 2, ...(bandwidth !== undefined ? { bandwidth } : {}) });
+  const marginal = marginalDensity1D('samples', samples, { weights, bounds, range, gridPoints: 2, ...choice, ...(bandwidth !== undefined ? { bandwidth } : {}) });
   return { density: marginal.density[node], bandwidth: marginal.bandwidth };
 }
 
 /**
  * 2-D kernel density at `point` (1 / (x units x y units)) and the bandwidths
- * used (product kernel, one bandwidth per axis, given or by Scott's rule, as
- * the plotted contours).
+ * used (product kernel, one bandwidth per axis, given or by the chosen rule,
+ * as the plotted contours).
  */
 export function kernelDensityAtPoint2D(
   xs: ArrayLike<number>, ys: ArrayLike<number>, weights: ArrayLike<number> | undefined, point: readonly [number, number],
-  bounds: readonly [HardBounds, HardBounds], bandwidths?: readonly [number, number],
+  bounds: readonly [HardBounds, HardBounds], bandwidths?: readonly [number, number], choice: KernelWidthChoice = {},
 ): { density: number; bandwidths: [number, number] } {
   const x = rangeAt(point[0], bandwidths?.[0], bounds[0], xs, weights);
   const y = rangeAt(point[1], bandwidths?.[1], bounds[1], ys, weights);
   const grid = densityGrid2D('xs', xs, 'ys', ys, {
-    weights, xBounds: bounds[0], yBounds: bounds[1], xRange: x.range, yRange: y.range, gridPoints: [2, 2],
+    weights, xBounds: bounds[0], yBounds: bounds[1], xRange: x.range, yRange: y.range, gridPoints: [2, 2], ...choice,
     ...(bandwidths ? { bandwidthX: bandwidths[0], bandwidthY: bandwidths[1] } : {}),
   });
   return { density: grid.density[y.node * 2 + x.node], bandwidths: [grid.bandwidthX, grid.bandwidthY] };

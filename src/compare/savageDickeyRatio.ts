@@ -1,7 +1,7 @@
 import { CandelaError } from '../errors.js';
 import { bootstrapLogSpread } from './bootstrapLogSpread.js';
 import { kishEffectiveCount } from '../math/index.js';
-import { kernelDensityAtPoint1D, resampledWeights } from './kernelDensityAtPoint.js';
+import { kernelDensityAtPoint1D, resampledWeights, widthChoice, type KernelWidthChoice } from './kernelDensityAtPoint.js';
 
 /** Bootstrap resamples for the Savage-Dickey error: 200 give the spread to about 5% (1 / sqrt(2 x 200)) (common practice). */
 export const DEFAULT_BOOTSTRAP_REPLICATES = 200;
@@ -27,7 +27,7 @@ export interface SavageDickeyEstimate {
 }
 
 /** Input of the 1-D Savage-Dickey ratio. */
-export interface SavageDickeyInput {
+export interface SavageDickeyInput extends KernelWidthChoice {
   /** Posterior draws of the extra parameter under the extended model (approximately independent: thin MCMC chains first). */
   samples: ArrayLike<number>;
   /** Optional non-negative weights (e.g. nested-sampling posterior weights). */
@@ -40,7 +40,7 @@ export interface SavageDickeyInput {
   lowerEdge?: number;
   /** Upper prior edge for reflection (default: none). */
   upperEdge?: number;
-  /** Kernel standard deviation, parameter units (default: Scott's rule on the Kish effective count, as the plotted marginal). */
+  /** Kernel standard deviation, parameter units (default: `bandwidthRule`, Scott's unless set, on the Kish effective count, times `bandwidthFactor`, as the plotted marginal). */
   bandwidth?: number;
   /** Bootstrap replicates (default {@link DEFAULT_BOOTSTRAP_REPLICATES}). */
   bootstrapReplicates?: number;
@@ -105,7 +105,7 @@ export function savageDickeyRatio(input: SavageDickeyInput): SavageDickeyEstimat
   const { weights } = input;
   const bounds = { lower: input.lowerEdge, upper: input.upperEdge };
   checkInsideEdges(nestedValue, input.lowerEdge ?? -Infinity, input.upperEdge ?? Infinity, 'nestedValue');
-  const { density: posteriorDensity, bandwidth } = kernelDensityAtPoint1D(samples, weights, nestedValue, bounds, input.bandwidth);
+  const { density: posteriorDensity, bandwidth } = kernelDensityAtPoint1D(samples, weights, nestedValue, bounds, input.bandwidth, widthChoice(input));
   if (!(posteriorDensity > 0)) throw outOfReach(String(nestedValue));
   const { spread, used } = bootstrapLogSpread(samples.length, replicates, input.seed ?? DEFAULT_BOOTSTRAP_SEED, (indices) =>
     kernelDensityAtPoint1D(samples, resampledWeights(weights, samples.length, indices), nestedValue, bounds, bandwidth).density,

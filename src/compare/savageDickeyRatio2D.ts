@@ -1,12 +1,12 @@
 import { CandelaError } from '../errors.js';
 import { bootstrapLogSpread } from './bootstrapLogSpread.js';
 import { kishEffectiveCount } from '../math/index.js';
-import { kernelDensityAtPoint2D, resampledWeights } from './kernelDensityAtPoint.js';
+import { kernelDensityAtPoint2D, resampledWeights, widthChoice, type KernelWidthChoice } from './kernelDensityAtPoint.js';
 import { checkInsideEdges, checkSavageDickeyInput, DEFAULT_BOOTSTRAP_REPLICATES, DEFAULT_BOOTSTRAP_SEED, outOfReach } from './savageDickeyRatio.js';
 import type { SavageDickeyEstimate } from './savageDickeyRatio.js';
 
 /** Input of the 2-D Savage-Dickey ratio (e.g. w0 = -1 and wa = 0 together). */
-export interface SavageDickeyInput2D {
+export interface SavageDickeyInput2D extends KernelWidthChoice {
   /** Posterior draws of the first extra parameter (approximately independent). */
   xs: ArrayLike<number>;
   /** Posterior draws of the second extra parameter, same length. */
@@ -21,7 +21,7 @@ export interface SavageDickeyInput2D {
   lowerEdges?: readonly [number, number];
   /** Upper prior edges [bx, by] for reflection (Infinity for none). */
   upperEdges?: readonly [number, number];
-  /** Kernel standard deviations [hx, hy] of the product kernel, parameter units (default: Scott's rule per axis, as the plotted contours). */
+  /** Kernel standard deviations [hx, hy] of the product kernel, parameter units (default: `bandwidthRule`, Scott's unless set, per axis, times `bandwidthFactor`, as the plotted contours). */
   bandwidths?: readonly [number, number];
   /** Bootstrap replicates (default 200). */
   bootstrapReplicates?: number;
@@ -57,7 +57,7 @@ export function savageDickeyRatio2D(input: SavageDickeyInput2D): SavageDickeyEst
   checkInsideEdges(nestedPoint[0], lower[0], upper[0], 'nestedPoint[0]');
   checkInsideEdges(nestedPoint[1], lower[1], upper[1], 'nestedPoint[1]');
   const bounds = [{ lower: lower[0], upper: upper[0] }, { lower: lower[1], upper: upper[1] }] as const;
-  const { density: posteriorDensity, bandwidths } = kernelDensityAtPoint2D(xs, ys, weights, nestedPoint, bounds, input.bandwidths);
+  const { density: posteriorDensity, bandwidths } = kernelDensityAtPoint2D(xs, ys, weights, nestedPoint, bounds, input.bandwidths, widthChoice(input));
   if (!(posteriorDensity > 0)) throw outOfReach(`(${nestedPoint.join(', ')})`);
   const { spread, used } = bootstrapLogSpread(xs.length, replicates, input.seed ?? DEFAULT_BOOTSTRAP_SEED, (indices) =>
     kernelDensityAtPoint2D(xs, ys, resampledWeights(weights, xs.length, indices), nestedPoint, bounds, bandwidths).density,

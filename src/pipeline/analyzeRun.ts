@@ -61,7 +61,8 @@ export function priorBounds(run: RunOnDisk, name: string): HardBounds {
 
 interface SmoothingSettings { kernel?: string; bandwidth?: string | number; factor?: number }
 
-function smoothingOf(run: RunOnDisk): { bandwidthRule?: 'scott' | 'silverman'; bandwidth?: number; bandwidthFactor: number } {
+/** The kernel-width settings of a run (`output.smoothing`), as the marginals, the contours and the Savage-Dickey ratio use them. */
+export function smoothingOf(run: RunOnDisk): { bandwidthRule?: 'scott' | 'silverman'; bandwidth?: number; bandwidthFactor: number } {
   const configuration = run.record.configuration as { output?: { smoothing?: SmoothingSettings } };
   const smoothing = configuration.output?.smoothing ?? {};
   const factor = typeof smoothing.factor === 'number' ? smoothing.factor : 1;

@@ -1,6 +1,7 @@
 import { isCandelaError } from '../errors.js';
 import { savageDickeyRatio, savageDickeyRatio2D, type SavageDickeyEstimate } from '../compare/index.js';
 import { priorLogDensity, type Prior } from '../likelihood/index.js';
+import { smoothingOf } from './analyzeRun.js';
 import type { AnalyzedRun } from './compareInputs.js';
 
 /** A simpler run nested in an extended one: the extended model at fixed values of its extra parameters is the simpler model. */
@@ -80,7 +81,8 @@ function edges(prior: Prior): [number, number] {
  * thinned to one draw per walker every ceil(tau) steps (tau the largest
  * autocorrelation time of the extra parameters), so that the bootstrap error
  * sees roughly independent draws. One extra parameter uses the 1-D kernel
- * estimate, two the 2-D one; more are not supported.
+ * estimate, two the 2-D one, smoothed as the run's plotted marginals and
+ * contours (`output.smoothing`); more are not supported.
  *
  * Cost: O(draws x bootstrap replicates).
  * @param pair a detected pair.
@@ -101,16 +103,19 @@ export function savageDickeyForPair(pair: DetectedNestedPair, seed: string): Pai
   const column = (name: string) => Float64Array.from(rows, (r) => run.chains.columns[name][r]);
   let logPriorDensity = 0;
   for (const entry of pair.extra) logPriorDensity += priorLogDensity(entry.prior, entry.value);
+  // The kernel of the plotted marginals and contours: the run's output.smoothing.
+  const { bandwidth, bandwidthRule, bandwidthFactor } = smoothingOf(run);
   try {
     const estimate = pair.extra.length === 1
       ? savageDickeyRatio({
         samples: column(pair.extra[0].name), weights, nestedValue: pair.extra[0].value, priorDensity: Math.exp(logPriorDensity),
-        lowerEdge: edges(pair.extra[0].prior)[0], upperEdge: edges(pair.extra[0].prior)[1], seed,
+        lowerEdge: edges(pair.extra[0].prior)[0], upperEdge: edges(pair.extra[0].prior)[1], seed, bandwidth, bandwidthRule, bandwidthFactor,
       })
       : savageDickeyRatio2D({
         xs: column(pair.extra[0].name), ys: column(pair.extra[1].name), weights, nestedPoint: [pair.extra[0].value, pair.extra[1].value],
         priorDensity: Math.exp(logPriorDensity),
         lowerEdges: [edges(pair.extra[0].prior)[0], edges(pair.extra[1].prior)[0]], upperEdges: [edges(pair.extra[0].prior)[1], edges(pair.extra[1].prior)[1]], seed,
+        bandwidths: bandwidth !== undefined ? [bandwidth, bandwidth] : undefined, bandwidthRule, bandwidthFactor,
       });
     return { ok: true, estimate, drawsUsed: rows.length, thinning };
   } catch (error) {

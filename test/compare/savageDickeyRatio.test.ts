@@ -107,6 +107,13 @@ describe('savageDickeyRatio', () => {
     expect(Math.abs(Math.log(estimate.posteriorDensity))).toBeLessThan(4 * estimate.logBayesFactorError + 0.02);
   });
 
+  it('smooths as the plotted marginal: the same bandwidth for the same rule and factor (identity with math/density)', () => {
+    for (const choice of [{}, { bandwidthFactor: 0.5 }, { bandwidthRule: 'silverman' as const }]) {
+      const estimate = savageDickeyRatio({ samples, nestedValue: 0, priorDensity: 1, bootstrapReplicates: 2, ...choice });
+      expect(estimate.bandwidth[0]).toBe(marginalDensity1D('mu', samples, choice).bandwidth);
+    }
+  });
+
   it('throws compare.savage_dickey_out_of_reach when no draw comes near the nested value', () => {
     expect(() => savageDickeyRatio({ samples, nestedValue: 80, priorDensity: 0.1 })).toThrow(
       expect.objectContaining({ issues: [expect.objectContaining({ code: 'compare.savage_dickey_out_of_reach' })] }),
