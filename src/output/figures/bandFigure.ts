@@ -1,13 +1,12 @@
 import { CandelaError } from '../../errors.js';
 import { createAxisScale } from './axisScale.js';
 import { bandPathData } from './bandPathData.js';
-import { drawLegend } from './drawLegend.js';
 import type { LegendEntry } from './drawLegend.js';
 import { FIGURE_STYLE } from './figureStyle.js';
 import { linePathData } from './linePathData.js';
 import { mixWithWhite, seriesColor } from './palette.js';
-import type { PlotFrame } from './plotFrame.js';
-import { framedLineDocument, LINE_FIGURE_LEGEND_GAP_PX, LINE_FIGURE_MARGIN, LINE_FIGURE_MIN_TOP_PX, LINE_FIGURE_Y_PADDING_FRACTION } from './framedLineDocument.js';
+import { framedLineDocument, lineFigureFrame, LINE_FIGURE_Y_PADDING_FRACTION } from './framedLineDocument.js';
+import type { FontFace } from './figureStyle.js';
 import { svgElement } from './svgElement.js';
 
 /** A reference drawn as a dashed line: a constant (e.g. w = -1) or a curve (e.g. another model). */
@@ -42,13 +41,12 @@ export interface BandFigureOptions {
   xScale?: 'linear' | 'log';
   /** Curve colour `#rrggbb` (default Okabe-Ito blue). */
   color?: string;
+  /** Text face: `sans` (default) or `serif`. */
+  fontFace?: FontFace;
   /** Prefix of the clip-path ids (default 'band'). */
   idPrefix?: string;
 }
 
-const MARGIN = LINE_FIGURE_MARGIN;
-const LEGEND_GAP_PX = LINE_FIGURE_LEGEND_GAP_PX;
-const MIN_TOP_PX = LINE_FIGURE_MIN_TOP_PX;
 const Y_PADDING_FRACTION = LINE_FIGURE_Y_PADDING_FRACTION;
 /** White share of the 68% (darker) and 95% (lighter) band fills. */
 const BAND_68_WHITE = 0.55;
@@ -56,7 +54,7 @@ const BAND_95_WHITE = 0.82;
 
 /**
  * A curve with its 68% (darker) and optional 95% (lighter) credible bands
- * and an optional dashed reference line, legend above the plot.
+ * and an optional dashed reference line, legend in a caption strip below.
  *
  * Cost: O(n).
  *
@@ -82,9 +80,7 @@ export function bandFigure(input: BandFigureInput, options: BandFigureOptions = 
   if (input.low95 && input.high95) entries.push({ label: '95% credible band', color: lightFill, key: 'fill', opacity: 1 });
   const reference = input.referenceLine;
   if (reference) entries.push({ label: reference.label ?? 'reference', color: FIGURE_STYLE.referenceColor, key: 'dashed' });
-  const legend = drawLegend(entries, MARGIN.left - 5, 2, { direction: 'row', maxWidthPx: widthPx - MARGIN.left - MARGIN.right + 5 });
-  const top = Math.max(MIN_TOP_PX, legend.heightPx + LEGEND_GAP_PX);
-  const frame: PlotFrame = { leftPx: MARGIN.left, topPx: top, widthPx: widthPx - MARGIN.left - MARGIN.right, heightPx: heightPx - top - MARGIN.bottom, clipId: `${options.idPrefix ?? 'band'}-clip` };
+  const { frame, legendSvg } = lineFigureFrame(widthPx, heightPx, entries, `${options.idPrefix ?? 'band'}-clip`);
   const kind = options.xScale ?? 'linear';
   const extent = (lists: readonly ArrayLike<number>[], positiveOnly: boolean) => {
     let low = Infinity;
@@ -123,5 +119,5 @@ export function bandFigure(input: BandFigureInput, options: BandFigureOptions = 
     layers.push(svgElement('path', { class: 'reference', fill: 'none', stroke: FIGURE_STYLE.referenceColor, 'stroke-width': FIGURE_STYLE.referenceStrokePx, 'stroke-dasharray': FIGURE_STYLE.referenceDash, d }));
   }
   layers.push(svgElement('path', { class: 'median', fill: 'none', stroke: color, 'stroke-width': FIGURE_STYLE.lineStrokePx, 'stroke-linejoin': 'round', d: linePathData(input.x, input.median, xScale, yScale) }));
-  return framedLineDocument({ widthPx, heightPx, frame, layers, legendSvg: legend.svg, xKind: kind, xDomain: [xLow, xHigh], yDomain, xScale, yScale, xLabel: input.xLabel, yLabel: input.yLabel });
+  return framedLineDocument({ widthPx, heightPx, frame, layers, legendSvg, fontFace: options.fontFace, xKind: kind, xDomain: [xLow, xHigh], yDomain, xScale, yScale, xLabel: input.xLabel, yLabel: input.yLabel });
 }

@@ -2,14 +2,13 @@ import { CandelaError } from '../../errors.js';
 import { createAxisScale } from './axisScale.js';
 import { bandPathData } from './bandPathData.js';
 import { circleMarkersPathData } from './circleMarkersPathData.js';
-import { drawLegend } from './drawLegend.js';
 import type { LegendEntry } from './drawLegend.js';
 import { errorBarsPathData } from './errorBarsPathData.js';
 import { FIGURE_STYLE } from './figureStyle.js';
 import { linePathData } from './linePathData.js';
 import { seriesColor } from './palette.js';
-import type { PlotFrame } from './plotFrame.js';
-import { framedLineDocument, LINE_FIGURE_LEGEND_GAP_PX, LINE_FIGURE_MARGIN, LINE_FIGURE_MIN_TOP_PX, LINE_FIGURE_Y_PADDING_FRACTION } from './framedLineDocument.js';
+import { framedLineDocument, lineFigureFrame, LINE_FIGURE_Y_PADDING_FRACTION } from './framedLineDocument.js';
+import type { FontFace } from './figureStyle.js';
 import { svgElement } from './svgElement.js';
 
 /** One model's curve: posterior median and 68% band at the shared abscissae (y-axis units). */
@@ -44,13 +43,12 @@ export interface DarkEnergyBandsOptions {
   heightPx?: number;
   /** `linear` (default) or `log` x axis. */
   xScale?: 'linear' | 'log';
+  /** Text face: `sans` (default) or `serif`. */
+  fontFace?: FontFace;
   /** Prefix of the clip-path ids (default 'bands'). */
   idPrefix?: string;
 }
 
-const MARGIN = LINE_FIGURE_MARGIN;
-const LEGEND_GAP_PX = LINE_FIGURE_LEGEND_GAP_PX;
-const MIN_TOP_PX = LINE_FIGURE_MIN_TOP_PX;
 const Y_PADDING_FRACTION = LINE_FIGURE_Y_PADDING_FRACTION;
 /** Fill opacity of each 68% band: overlapping bands stay visible through each other. */
 const BAND_OPACITY = 0.28;
@@ -76,7 +74,7 @@ function extent(lists: readonly ArrayLike<number>[], positiveOnly: boolean): [nu
  * use for, e.g., the distance-modulus difference of each model to a
  * reference LambdaCDM: per model a median line and a translucent 68% band in
  * its own colour, optional binned data as dots with error bars, and an
- * optional dashed reference line; legend above the plot.
+ * optional dashed reference line; legend in a caption strip below.
  *
  * Cost: O(bands x points).
  * @param input abscissae, bands, points, reference line, axis titles (axis units)
@@ -100,9 +98,7 @@ export function darkEnergyBandsFigure(input: DarkEnergyBandsInput, options: Dark
   if (points) entries.push({ label: points.label, color: FIGURE_STYLE.textColor, key: 'marker' });
   const reference = input.referenceLine;
   if (reference) entries.push({ label: reference.label ?? 'reference', color: FIGURE_STYLE.referenceColor, key: 'dashed' });
-  const legend = drawLegend(entries, MARGIN.left - 5, 2, { direction: 'row', maxWidthPx: widthPx - MARGIN.left - MARGIN.right + 5 });
-  const top = Math.max(MIN_TOP_PX, legend.heightPx + LEGEND_GAP_PX);
-  const frame: PlotFrame = { leftPx: MARGIN.left, topPx: top, widthPx: widthPx - MARGIN.left - MARGIN.right, heightPx: heightPx - top - MARGIN.bottom, clipId: `${options.idPrefix ?? 'bands'}-clip` };
+  const { frame, legendSvg } = lineFigureFrame(widthPx, heightPx, entries, `${options.idPrefix ?? 'bands'}-clip`);
   const kind = options.xScale ?? 'linear';
   const xLists: ArrayLike<number>[] = [input.x];
   if (points) xLists.push(points.x);
@@ -132,5 +128,5 @@ export function darkEnergyBandsFigure(input: DarkEnergyBandsInput, options: Dark
     layers.push(svgElement('path', { class: 'error-bars', fill: 'none', stroke: FIGURE_STYLE.textColor, 'stroke-width': FIGURE_STYLE.thinStrokePx, d: errorBarsPathData(points.x, points.y, points.error, xScale, yScale) }));
     layers.push(svgElement('path', { class: 'points', fill: FIGURE_STYLE.textColor, stroke: 'none', d: circleMarkersPathData(points.x, points.y, xScale, yScale, POINT_RADIUS_PX) }));
   }
-  return framedLineDocument({ widthPx, heightPx, frame, layers, legendSvg: legend.svg, xKind: kind, xDomain: [xLow, xHigh], yDomain, xScale, yScale, xLabel: input.xLabel, yLabel: input.yLabel });
+  return framedLineDocument({ widthPx, heightPx, frame, layers, legendSvg, fontFace: options.fontFace, xKind: kind, xDomain: [xLow, xHigh], yDomain, xScale, yScale, xLabel: input.xLabel, yLabel: input.yLabel });
 }
