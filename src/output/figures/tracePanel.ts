@@ -104,7 +104,7 @@ export function drawTracePanel(frame: PlotFrame, ensembles: readonly TraceEnsemb
     const edge = Math.min(stepScale.toPx(burnInStep), frame.leftPx + frame.widthPx);
     layers.push(svgElement('rect', { class: 'burn-in', x: frame.leftPx, y: frame.topPx, width: edge - frame.leftPx, height: frame.heightPx, fill: FIGURE_STYLE.burnInFill }));
     layers.push(svgElement('path', { class: 'burn-in-edge', fill: 'none', stroke: FIGURE_STYLE.bandFill, 'stroke-width': FIGURE_STYLE.referenceStrokePx, d: `M${formatPixels(edge)} ${formatPixels(frame.topPx)}v${formatPixels(frame.heightPx)}` }));
-    layers.push(svgElement('text', { x: frame.leftPx + 6, y: frame.topPx + FIGURE_STYLE.tickFontPx + 4, 'font-size': FIGURE_STYLE.tickFontPx, 'font-style': 'italic', fill: FIGURE_STYLE.textColor, 'fill-opacity': 0.7 }, 'burn-in'));
+    layers.push(svgElement('text', { x: frame.leftPx + 6, y: frame.topPx + FIGURE_STYLE.tickFontPx + 4, 'font-size': FIGURE_STYLE.tickFontPx, fill: FIGURE_STYLE.textColor, 'fill-opacity': 0.7 }, 'burn-in'));
   }
   const stuckLayers: string[] = [];
   ensembles.forEach((ensemble, ensembleIndex) => {
