@@ -32,7 +32,7 @@ export const BAO_DISTANCE_KINDS: readonly BaoDistanceKind[] = ['transverse_comov
  *   // => [16.5472..., 22.4750...] (D_H = 2432.44 Mpc, D_M = 3303.83 Mpc)
  */
 export function baoDistanceRatios(cosmology: Cosmology, redshifts: Float64Array, kinds: readonly BaoDistanceKind[],
-  soundHorizonDragMpc: number, out = new Float64Array(redshifts.length)): Float64Array {
+  soundHorizonDragMpc: number, out: Float64Array = new Float64Array(redshifts.length)): Float64Array {
   const count = redshifts.length;
   if (kinds.length !== count) throw new RangeError(`${kinds.length} distance kinds for ${count} redshifts`);
   if (out.length < count) throw new RangeError(`output holds ${out.length} values, ${count} needed`);

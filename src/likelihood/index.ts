@@ -22,6 +22,8 @@ export type { OffsetMarginal } from './marginalizeOffset.js';
 export { marginalizeOffset } from './marginalizeOffset.js';
 export { createOffsetMarginal } from './marginalizeOffset.js';
 export type { GaussianLogLikelihood } from './gaussianLogLikelihood.js';
+export { createMeasurementTerm } from './createMeasurementTerm.js';
+export type { MeasurementTermOptions } from './createMeasurementTerm.js';
 export { gaussianLogLikelihood } from './gaussianLogLikelihood.js';
 // supernova term
 export type { SupernovaTermOptions } from './supernovaTermOptions.js';
