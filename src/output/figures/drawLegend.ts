@@ -38,6 +38,8 @@ export interface DrawnLegend {
 /** Legend key size and spacing (px). */
 const KEY_WIDTH_PX = 16;
 const KEY_HEIGHT_PX = 9;
+/** Credible-region keys are taller, so their hatching shows. */
+const REGION_KEY_HEIGHT_PX = 11;
 const KEY_TEXT_GAP_PX = 5;
 const ROW_HEIGHT_PX = 15;
 const ENTRY_GAP_PX = 14;
@@ -50,12 +52,12 @@ function drawKey(entry: LegendEntry, xPx: number, middlePx: number): string {
   const centreX = xPx + KEY_WIDTH_PX / 2;
   switch (entry.key) {
     case 'region': {
-      const top = middlePx - KEY_HEIGHT_PX / 2;
-      const hatch = Array.from({ length: 5 }, (_, k) => `M${formatPixels(xPx + 2 + k * 3.5)} ${formatPixels(top + KEY_HEIGHT_PX - 1.5)}l${3} ${-(KEY_HEIGHT_PX - 3)}`).join('');
+      const top = middlePx - REGION_KEY_HEIGHT_PX / 2;
+      const hatch = Array.from({ length: 4 }, (_, k) => `M${formatPixels(xPx + 3 + k * 3)} ${formatPixels(top + REGION_KEY_HEIGHT_PX - 2.5)}l${2.5} ${-(REGION_KEY_HEIGHT_PX - 5)}`).join('');
       return svgElement('g', {}, [
-        svgElement('rect', { x: xPx - 1.5, y: top - 1.5, width: KEY_WIDTH_PX + 3, height: KEY_HEIGHT_PX + 3, ...common, 'stroke-width': 0.7 }),
+        svgElement('rect', { x: xPx, y: top, width: KEY_WIDTH_PX, height: REGION_KEY_HEIGHT_PX, ...common, 'stroke-width': 0.7 }),
         svgElement('path', { ...common, 'stroke-width': 0.5, 'stroke-opacity': 0.7, d: hatch }),
-        svgElement('rect', { x: xPx + 1, y: top + 1, width: KEY_WIDTH_PX - 2, height: KEY_HEIGHT_PX - 2, ...common, 'stroke-width': 1.6 }),
+        svgElement('rect', { x: xPx + 2, y: top + 2, width: KEY_WIDTH_PX - 4, height: REGION_KEY_HEIGHT_PX - 4, ...common, 'stroke-width': 1.4 }),
       ]);
     }
     case 'open-marker':
