@@ -33,7 +33,7 @@ export const MIN_WALKERS_PER_PARAMETER = 2;
 export function checkCrossFieldRules(reader: ConfigReader, config: CandelaConfig, userParameters: Record<string, ParameterSpec>): void {
   const hasCalibrators = config.supernovae.some((set) => set.columns.calibrator_mu !== undefined);
   const hasLightCurves = config.supernovae.some((set) => set.kind === 'light_curves');
-  const context = parameterContext(config);
+  const context = parameterContext(config, Object.keys(userParameters));
   const probesRequireH0 = usedByProbes(config, 'h0');
   const blocks = [{ prefix: 'parameters', entries: userParameters, modelIndices: config.models.map((_, i) => i) },
     ...config.models.map((model, i) => ({ prefix: `models[${i}].parameters`, entries: model.parameters, modelIndices: [i] }))];

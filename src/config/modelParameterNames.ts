@@ -15,21 +15,29 @@ export interface ParameterContext {
   standardization: StandardizationOptions;
   /** The configured probes besides the supernovae. */
   probes: readonly ProbeBlock[];
+  /** Parameter names written in the global `parameters` block (opt-in parameters are used only when named). */
+  named: readonly string[];
 }
 
 /**
  * The context of a configuration (or of its sections read so far).
  * @example parameterContext(config).hasCalibrators // false
  */
-export function parameterContext(config: Pick<CandelaConfig, 'supernovae' | 'standardization' | 'probes'>): ParameterContext {
+export function parameterContext(
+  config: Pick<CandelaConfig, 'supernovae' | 'standardization' | 'probes'>, named: readonly string[] = [],
+): ParameterContext {
   return {
     kinds: config.supernovae.map((set) => set.kind),
     hasCalibrators: config.supernovae.some((set) => set.columns.calibrator_mu !== undefined),
     standardization: config.standardization,
     probes: config.probes,
+    named,
   };
 }
 
+
+/** Population parameters of the hierarchical method that a model uses only when the configuration names them. */
+const OPT_IN_POPULATION = ['x1_mean_slope', 'color_mean_slope'];
 
 /**
  * The base parameter names a model uses:
@@ -47,7 +55,7 @@ export function parameterContext(config: Pick<CandelaConfig, 'supernovae' | 'sta
  * @returns base names in the registry's order.
  * @example usedParameterBases({ kinds: ['magnitudes'], hasCalibrators: false, standardization }, flatLambda) // ['omega_m', 'sigma_int']
  */
-export function usedParameterBases(context: ParameterContext, model: Pick<ModelSpec, 'darkEnergy' | 'curvature'>): string[] {
+export function usedParameterBases(context: ParameterContext, model: Pick<ModelSpec, 'darkEnergy' | 'curvature'> & { parameters?: Readonly<Record<string, unknown>> }): string[] {
   const { standardization } = context;
   const lightCurves = context.kinds.includes('light_curves');
   const used = new Set<string>(['omega_m']);
@@ -60,7 +68,12 @@ export function usedParameterBases(context: ParameterContext, model: Pick<ModelS
     used.add('alpha');
     used.add('beta');
     if (standardization.hostMassStep.enabled) used.add('mass_step');
-    if (standardization.method === 'hierarchical') ['x1_mean', 'x1_width', 'color_mean', 'color_width'].forEach((n) => used.add(n));
+    if (standardization.method === 'hierarchical') {
+      ['x1_mean', 'x1_width', 'color_mean', 'color_width'].forEach((n) => used.add(n));
+      // The redshift slopes of the population means are used only when the configuration names them.
+      const named = new Set([...context.named, ...Object.keys(model.parameters ?? {})]);
+      OPT_IN_POPULATION.filter((name) => named.has(name)).forEach((name) => used.add(name));
+    }
   }
   if (standardization.scatter.intrinsic !== 'off' && context.kinds.length > 0) used.add('sigma_int');
   return PARAMETER_ORDER.filter((name) => used.has(name));

@@ -38,7 +38,7 @@ export function parametersForModel(config: CandelaConfig, modelIndex: number, sa
   const model = config.models[modelIndex];
   if (!model) throw new RangeError(`model index ${modelIndex} outside 0..${config.models.length - 1}`);
   const merged: Record<string, ParameterSpec> = { ...config.parameters, ...model.parameters };
-  const context = parameterContext(config);
+  const context = parameterContext(config, Object.keys(config.parameters));
   const result: ModelParameters = { free: [], fixed: {}, awaitsSampleLabels: false };
   const used = usedParameterBases(context, model);
   for (const base of used) {

@@ -118,7 +118,7 @@ function readSeed(reader: ConfigReader, at: Located | undefined): number | strin
 function withDefaultPriors(
   user: Record<string, ParameterSpec>, parts: Pick<CandelaConfig, 'supernovae' | 'standardization' | 'probes' | 'models'>,
 ): Record<string, ParameterSpec> {
-  const context = parameterContext(parts);
+  const context = parameterContext(parts, Object.keys(user));
   const block: Record<string, ParameterSpec> = {};
   for (const model of parts.models) {
     for (const base of usedParameterBases(context, model)) {

@@ -49,6 +49,20 @@ describe('parametersForModel', () => {
     expect(names(text)).toEqual(['omega_m', 'alpha', 'beta', 'mass_step', 'sigma_int', 'x1_mean', 'x1_width', 'color_mean', 'color_width']);
   });
 
+  it('reads x1_mean_slope as the stretch-mean slope, not as x1_mean of a sample "slope" (regression)', () => {
+    const text = `${VALID_LIGHT_CURVES}standardization: { method: hierarchical }\nparameters:\n  x1_mean_slope: { prior: uniform, min: -1, max: 1 }\n`;
+    const free = names(text);
+    expect(free).toContain('x1_mean_slope');
+    expect(free).toContain('x1_mean');
+    expect(parametersForModel(configOf(text).config, 0).awaitsSampleLabels).toBe(false);
+  });
+
+  it('adds what each configured probe declares: h_ruler for BAO with a free ruler, h0 and omega_b_h2 with a computed one', () => {
+    const bao = (ruler: string) => VALID_MAGNITUDES.replace('models:', `probes:\n  bao: { table: ../shared/data-real/desi-dr2-bao/measurements.csv, ruler: ${ruler} }\nmodels:`);
+    expect(names(bao('free'))).toEqual(['omega_m', 'h_ruler']);
+    expect(names(bao('computed'))).toEqual(['omega_m', 'h0', 'omega_b_h2']);
+  });
+
   it('samples h0 only when calibrators are mapped', () => {
     const text = VALID_MAGNITUDES.replace('      magnitude_err: dmb', '      magnitude_err: dmb\n      calibrator_mu: CEPH');
     const result = parametersForModel(configOf(text).config, 0);
