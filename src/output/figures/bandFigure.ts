@@ -7,6 +7,8 @@ import { linePathData } from './linePathData.js';
 import { mixWithWhite, seriesColor } from './palette.js';
 import { framedLineDocument, lineFigureFrame, LINE_FIGURE_Y_PADDING_FRACTION } from './framedLineDocument.js';
 import type { FontFace } from './figureStyle.js';
+import { figureWidthPx } from './figureWidth.js';
+import type { FigureWidth } from './figureWidth.js';
 import { svgElement } from './svgElement.js';
 
 /** A reference drawn as a dashed line: a constant (e.g. w = -1) or a curve (e.g. another model). */
@@ -35,6 +37,8 @@ export interface BandFigureInput {
 export interface BandFigureOptions {
   /** Figure width (px; default 560). */
   widthPx?: number;
+  /** Figure width: one journal column (3.4 in), both columns (7 in) or `{ inches }`; replaces widthPx. */
+  width?: FigureWidth;
   /** Figure height (px; default 380), legend included. */
   heightPx?: number;
   /** `linear` (default) or `log` x axis. */
@@ -70,7 +74,7 @@ export function bandFigure(input: BandFigureInput, options: BandFigureOptions = 
   if (arrays.some((values) => values.length !== count)) {
     throw new CandelaError({ code: 'figure.length_mismatch', message: 'x, median and band arrays must have the same length', expected: `${count} entries each`, found: arrays.map((values) => values.length).join(', ') });
   }
-  const widthPx = Math.round(options.widthPx ?? 560);
+  const widthPx = figureWidthPx(options.width, Math.round(options.widthPx ?? 560));
   const heightPx = Math.round(options.heightPx ?? 380);
   const color = options.color ?? seriesColor(0);
   const entries: LegendEntry[] = [{ label: input.medianLabel ?? 'median', color, key: 'line' }];

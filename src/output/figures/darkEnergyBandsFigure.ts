@@ -9,6 +9,8 @@ import { linePathData } from './linePathData.js';
 import { seriesColor } from './palette.js';
 import { framedLineDocument, lineFigureFrame, LINE_FIGURE_Y_PADDING_FRACTION } from './framedLineDocument.js';
 import type { FontFace } from './figureStyle.js';
+import { figureWidthPx } from './figureWidth.js';
+import type { FigureWidth } from './figureWidth.js';
 import { svgElement } from './svgElement.js';
 
 /** One model's curve: posterior median and 68% band at the shared abscissae (y-axis units). */
@@ -39,6 +41,8 @@ export interface DarkEnergyBandsInput {
 export interface DarkEnergyBandsOptions {
   /** Figure width (px; default 600). */
   widthPx?: number;
+  /** Figure width: one journal column (3.4 in), both columns (7 in) or `{ inches }`; replaces widthPx. */
+  width?: FigureWidth;
   /** Figure height (px; default 400), legend included. */
   heightPx?: number;
   /** `linear` (default) or `log` x axis. */
@@ -90,7 +94,7 @@ export function darkEnergyBandsFigure(input: DarkEnergyBandsInput, options: Dark
       throw new CandelaError({ code: 'figure.length_mismatch', message: `band ${band.label}: x, median and band arrays must have the same length`, expected: `${count} entries each`, found: [band.median.length, band.low68.length, band.high68.length].join(', ') });
     }
   }
-  const widthPx = Math.round(options.widthPx ?? 600);
+  const widthPx = figureWidthPx(options.width, Math.round(options.widthPx ?? 600));
   const heightPx = Math.round(options.heightPx ?? 400);
   const colors = input.bands.map((band, index) => band.color ?? seriesColor(index));
   const entries: LegendEntry[] = input.bands.map((band, index) => ({ label: `${band.label} (median, 68%)`, color: colors[index], key: 'fill', opacity: 0.5 }));
