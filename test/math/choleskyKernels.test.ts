@@ -5,7 +5,10 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { choleskyInPlace, referenceCholeskyInPlace, blockedCholeskyInPlace, wasmCholeskyInPlace, wasmCholeskyAvailable, logDeterminantFromCholesky, createRandomStream } from '../../src/math/index.js';
+import {
+  choleskyInPlace, referenceCholeskyInPlace, blockedCholeskyInPlace, wasmCholeskyInPlace, wasmCholeskyAvailable, logDeterminantFromCholesky,
+  choleskySolveInPlace, createRandomStream,
+} from '../../src/math/index.js';
 import { CHOLESKY_WASM_SOURCE_SHA256 } from '../../src/math/wasmCholeskyBinary.js';
 import { maxRowRelativeDifference } from '../../bench/factorization.js';
 import type { CholeskyFailure, CholeskySuccess } from '../../src/math/index.js';
@@ -64,6 +67,28 @@ describe.each(KERNELS)('%s', (_name, kernel) => {
       }
     }
     expect(worst).toBeLessThan(1e-12); // entries are <= 1: double-precision rounding over 333 terms (common practice)
+  });
+
+  it('solves with the Kac-Murdock-Szego factor to give its tridiagonal inverse, and its ln det (n = 301)', () => {
+    // KMS inverse (from memory; checked by multiplying out): tridiagonal, diagonal (1, 1 + rho^2, ..., 1 + rho^2, 1) / (1 - rho^2),
+    // off-diagonal -rho / (1 - rho^2); det = (1 - rho^2)^(n - 1), from the closed-form factor's diagonal.
+    const n = 301;
+    const rho = 0.6;
+    const a = fill(n, (i, j) => rho ** Math.abs(i - j));
+    expect(kernel(a, n).ok).toBe(true);
+    expect(logDeterminantFromCholesky(a, n)).toBeCloseTo((n - 1) * Math.log(1 - rho * rho), 10);
+    const scale = 1 / (1 - rho * rho);
+    let worst = 0;
+    for (const column of [0, 1, 150, 299, 300]) {
+      const x = new Float64Array(n);
+      x[column] = 1;
+      choleskySolveInPlace(a, n, x);
+      for (let i = 0; i < n; i++) {
+        const expected = i === column ? (i === 0 || i === n - 1 ? 1 : 1 + rho * rho) * scale : Math.abs(i - column) === 1 ? -rho * scale : 0;
+        worst = Math.max(worst, Math.abs(x[i] - expected));
+      }
+    }
+    expect(worst).toBeLessThan(1e-12); // entries of size 1/(1 - rho^2) = 1.6: rounding only (common practice)
   });
 
   it('factorizes min(i, j) + 1 into the lower triangle of ones exactly (n = 331)', () => {
