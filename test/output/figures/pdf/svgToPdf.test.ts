@@ -1,10 +1,12 @@
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { inflateSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
-import { svgDocument, svgElement, svgToPdf, triangleFigure } from '../../../../src/output/figures/index.js';
+import { svgDocument, svgElement, svgToPdf, svgToPng, triangleFigure } from '../../../../src/output/figures/index.js';
+import { decodePng } from '../pngImage.js';
+import type { DecodedPng } from '../pngImage.js';
 import { gaussianContours, gaussianMarginals } from '../gaussianPosterior.js';
 
 const spec = { parameters: ['omega_m', 'w0'], means: [0.3, -1], sigmas: [0.03, 0.1] };
@@ -98,6 +100,62 @@ describe('svgToPdf', () => {
       // Poppler maps the Symbol glyph Omega to U+03A9 or to the ohm sign U+2126, depending on its version.
       expect(text).toMatch(/[\u03a9\u2126]m/);
       expect(text).toContain('\u22121.0');
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+  });
+
+  it('looks like the SVG: the PDF drawn by poppler and the SVG drawn by resvg agree block by block (skipped without poppler-utils)', (context) => {
+    if (!hasTool('pdftoppm')) {
+      context.skip('poppler-utils (pdftoppm) is not installed');
+      return;
+    }
+    // Two independent renderers of the same figure: darkness averaged over 16 x 16 px blocks (0 white,
+    // 1 black) must agree within 0.01 on average and 0.08 in the worst block (poppler widens hairlines to
+    // a whole device pixel, which darkens blocks holding a 0.75 px frame line by about 0.03). Text is left
+    // out (the fonts differ: Helvetica in the PDF, the system's sans in the PNG); pdftotext checks it above.
+    const spec3 = { parameters: ['omega_m', 'w0', 'wa'], means: [0.3, -1, 0], sigmas: [0.03, 0.1, 0.5], correlations: { '1,2': -0.7 } };
+    const svg = triangleFigure([{ label: 'mock run', marginals: gaussianMarginals(spec3), contours: gaussianContours(spec3) }], spec3.parameters, { reference: { omega_m: 0.3, w0: -1 } })
+      .replace(/<text\b[^>]*>[\s\S]*?<\/text>/g, '');
+    const width = Number(/width="([\d.]+)"/.exec(svg)?.[1]);
+    const folder = mkdtempSync(join(tmpdir(), 'candela-pdf-'));
+    try {
+      writeFileSync(join(folder, 'figure.pdf'), svgToPdf(svg));
+      // 96 dpi: one PDF point is 4/3 px, so the page comes out at the SVG's size in px.
+      execFileSync('pdftoppm', ['-r', '96', '-png', '-singlefile', join(folder, 'figure.pdf'), join(folder, 'poppler')]);
+      const fromPdf = decodePng(readFileSync(join(folder, 'poppler.png')));
+      const fromSvg = decodePng(svgToPng(svg, Math.round(width)));
+      expect(Math.abs(fromPdf.width - fromSvg.width)).toBeLessThanOrEqual(1);
+      expect(Math.abs(fromPdf.height - fromSvg.height)).toBeLessThanOrEqual(1);
+      const block = 16;
+      const darkness = (image: DecodedPng, bx: number, by: number) => {
+        let sum = 0;
+        let count = 0;
+        for (let y = by * block; y < Math.min((by + 1) * block, image.height); y++) {
+          for (let x = bx * block; x < Math.min((bx + 1) * block, image.width); x++) {
+            const at = (y * image.width + x) * image.channels;
+            sum += 1 - (image.pixels[at] + image.pixels[at + 1] + image.pixels[at + 2]) / (3 * 255);
+            count++;
+          }
+        }
+        return sum / count;
+      };
+      let worst = 0;
+      let total = 0;
+      let inked = 0;
+      const columns = Math.floor(Math.min(fromPdf.width, fromSvg.width) / block);
+      const rows = Math.floor(Math.min(fromPdf.height, fromSvg.height) / block);
+      for (let by = 0; by < rows; by++) {
+        for (let bx = 0; bx < columns; bx++) {
+          const [a, b] = [darkness(fromPdf, bx, by), darkness(fromSvg, bx, by)];
+          worst = Math.max(worst, Math.abs(a - b));
+          total += Math.abs(a - b);
+          if (b > 0.02) inked++;
+        }
+      }
+      expect(inked).toBeGreaterThan(50);
+      expect(total / (rows * columns)).toBeLessThan(0.01);
+      expect(worst).toBeLessThan(0.08);
     } finally {
       rmSync(folder, { recursive: true, force: true });
     }
