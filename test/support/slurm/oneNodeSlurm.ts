@@ -120,7 +120,11 @@ export async function startOneNodeSlurm(dir: string): Promise<OneNodeSlurm> {
     if (result.status !== 0) throw new Error(`${command} ${args.join(' ')} failed (${result.status}): ${result.stderr}`);
     return result.stdout;
   };
+  // Should the test process end without calling stop() (a crash, a killed runner), the daemons go with it.
+  const killOnExit = () => { for (const daemon of daemons) if (daemon.exitCode === null && daemon.signalCode === null) daemon.kill('SIGKILL'); };
+  process.once('exit', killOnExit);
   const stop = async () => {
+    process.off('exit', killOnExit);
     for (const daemon of daemons) if (daemon.exitCode === null && daemon.signalCode === null) daemon.kill('SIGTERM');
     for (const daemon of daemons) if (!(await waitForExit(daemon, 10))) daemon.kill('SIGKILL');
   };
