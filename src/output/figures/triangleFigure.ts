@@ -76,8 +76,9 @@ const MARGINAL_AREA_OPACITY = 0.13;
 const NARROW_PANEL_PX = 115;
 /** Share of each panel side, at both ends, kept free of ticks so that labels of adjacent panels never touch. */
 const TICK_EDGE_FRACTION = 0.07;
-/** Least free space between two tick labels (px). */
+/** Least free space between two tick labels (px), and the share of the panel width the labels and spaces may fill. */
 const TICK_LABEL_SPACE_PX = 6;
+const TICK_LABEL_ROOM_SHARE = 0.85;
 /** Outline widths of the outermost and innermost credible region (px); levels between are graded. */
 const OUTER_OUTLINE_PX = 0.8;
 const INNER_OUTLINE_PX = 1.8;
@@ -156,7 +157,7 @@ export function triangleFigure(runs: readonly TriangleRun[], parameters: readonl
     let set = niceTicks(low + margin, high - margin, panelPx < NARROW_PANEL_PX ? 3 : 4);
     for (let target = set.values.length - 1; target >= 2; target--) {
       const labelsPx = set.values.reduce((total, value) => total + estimateTextWidthPx(formatTickLabel(value, set.decimals), FIGURE_STYLE.tickFontPx) + TICK_LABEL_SPACE_PX, 0);
-      if (labelsPx <= panelPx) break;
+      if (labelsPx <= TICK_LABEL_ROOM_SHARE * panelPx) break;
       set = niceTicks(low + margin, high - margin, target);
     }
     return set;
