@@ -31,7 +31,7 @@ export function describePrior(prior: PriorSpec): string {
 export function describeConfig(config: CandelaConfig): string[] {
   const lines = [`title: ${config.title} (file ${config.source.file.written})`, `seed: ${config.seed}`];
   for (const set of config.supernovae) lines.push(describeDataSet(set));
-  lines.push(describeStandardization(config));
+  if (config.supernovae.length > 0) lines.push(describeStandardization(config));
   for (const block of config.probes) {
     const probe = probeDefinition(block.key);
     const settings = probe.settings.flatMap((spec) => {

@@ -64,14 +64,20 @@ export function parseConfigText(text: string, fileName: string): Checked<Candela
 
   const reader = new ConfigReader(document, lineCounter, fileName);
   const root = reader.root();
-  const fields = reader.mapping(root.node === null ? { ...root, anchor: null } : root, TOP_LEVEL_KEYS, ['supernovae']) ?? new Map<string, Located>();
+  const fields = reader.mapping(root.node === null ? { ...root, anchor: null } : root, TOP_LEVEL_KEYS) ?? new Map<string, Located>();
   const absent = (key: string): Located => ({ node: null, path: key, anchor: root.node });
   const get = (key: string): Located => fields.get(key) ?? absent(key);
 
   const seed = readSeed(reader, fields.get('seed'));
-  const supernovae = readSupernovae(reader, get('supernovae'));
+  const supernovae = fields.has('supernovae') ? readSupernovae(reader, get('supernovae')) : [];
   const standardization = readStandardization(reader, get('standardization'));
   const probes = readProbes(reader, fields.get('probes'), fileName);
+  if (!fields.has('supernovae') && !fields.has('probes') && !reader.failedAt('')) {
+    // A run needs data: supernovae, or at least one probe (BAO alone, BAO + CMB, ...).
+    reader.report(absent('supernovae'), 'config.missing_key', 'required key "supernovae" is missing: a run needs supernovae or at least one probe', {
+      expected: 'supernovae, probes, or both', found: 'neither', fix: 'add "supernovae: ..." or "probes: { bao: { table: ... } }" (see docs/configuration.md)',
+    });
+  }
   const models = readModels(reader, get('models'));
   const userParameters = readParameters(reader, fields.get('parameters'));
   const derivedAt = fields.get('derived');

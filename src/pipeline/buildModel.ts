@@ -24,7 +24,8 @@ export const BLOB_FIRST_DERIVED = 2;
 export interface BuiltModel {
   label: string;
   posterior: Posterior;
-  supernovae: SupernovaLikelihood;
+  /** The supernova term, or null for a run of probes alone. */
+  supernovae: SupernovaLikelihood | null;
   /** Every likelihood term of the posterior, the supernovae first, then each configured probe. */
   terms: LikelihoodTerm[];
   /** The configured probes and their data, in the order of `terms` after the supernovae. */
@@ -72,7 +73,9 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
   };
   // Conventional Tripp likelihood, or the latent-variable one of March et al. (2011) when asked for.
   const names = [...free.map((entry) => entry.name), ...Object.keys(fixed)];
-  const supernovae: SupernovaLikelihood = standardization.method === 'hierarchical' && data.table.kind === 'light_curves'
+  // A run of probes alone (no supernovae configured) has no supernova term.
+  const supernovae: SupernovaLikelihood | null = data.table.count === 0 ? null
+    : standardization.method === 'hierarchical' && data.table.kind === 'light_curves'
     ? createHierarchicalSupernovaTerm({
       ...termOptions,
       population: {
@@ -83,7 +86,7 @@ export function buildModel(config: CandelaConfig, modelIndex: number, data: Load
     : createSupernovaTerm(termOptions);
   const probes = loadProbes(config);
   const probeModel = { darkEnergy: model.darkEnergy, flat: model.curvature === 'flat', referenceH0KmPerSPerMpc: config.referenceH0KmPerSPerMpc };
-  const terms: LikelihoodTerm[] = [supernovae, ...probes.map(({ block, loaded }) => probeDefinition(block.key).createTerm(loaded, block.settings, probeModel))];
+  const terms: LikelihoodTerm[] = [...(supernovae ? [supernovae] : []), ...probes.map(({ block, loaded }) => probeDefinition(block.key).createTerm(loaded, block.settings, probeModel))];
   const posterior = createPosterior({ free, fixed, terms });
   const derivedNames = derivedForModel(config, modelIndex).filter((name) => !(name === 'omega_de' && model.curvature === 'free'));
   const fillDerived = createDerivedParameters(

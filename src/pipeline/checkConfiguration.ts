@@ -48,7 +48,7 @@ export function checkConfiguration(path: string, options: { configOnly?: boolean
     }
     config.models.forEach((model, index) => {
       const built = buildModel(config, index, data);
-      summaryLines.push(`likelihood of model "${model.label}":`, ...built.supernovae.describe().map((line) => `  ${line}`),
+      summaryLines.push(`likelihood of model "${model.label}":`, ...(built.supernovae?.describe() ?? []).map((line) => `  ${line}`),
         ...built.probes.flatMap((probe) => probe.loaded.describe).map((line) => `  ${line}`));
     });
   }

@@ -28,9 +28,11 @@ function magnitudeCurve(model: BuiltModel): MagnitudeCurve {
   let nominalH0: number | null = null;
   return (values, grid, flatLambda = false) => {
     let absoluteMagnitude: number;
+    if (!model.supernovae) return null; // probes alone: no magnitudes to draw
+    const supernovae = model.supernovae;
     try {
-      absoluteMagnitude = model.parameterNames.includes('abs_mag') ? values.abs_mag : model.supernovae.bestFitOffset(values);
-      if (!model.parameterNames.includes('h0')) nominalH0 ??= model.supernovae.hubbleDiagram(values).h0KmPerSPerMpc;
+      absoluteMagnitude = model.parameterNames.includes('abs_mag') ? values.abs_mag : supernovae.bestFitOffset(values);
+      if (!model.parameterNames.includes('h0')) nominalH0 ??= supernovae.hubbleDiagram(values).h0KmPerSPerMpc;
     } catch (error) {
       if (isCandelaError(error)) return null;
       throw error;

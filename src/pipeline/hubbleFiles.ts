@@ -46,6 +46,7 @@ export function hubbleDiagramCsv(diagram: HubbleDiagram, samples: readonly strin
  */
 export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: EnsembleDraws[], burnInSteps: number, seed: string): void {
   const { posterior, supernovae } = model;
+  if (!supernovae) return; // a run of probes alone has no Hubble diagram
   const dimension = posterior.dimension;
   const rows: Array<{ ensemble: number; row: number }> = [];
   let best = { ensemble: 0, row: burnInSteps * ensembles[0].walkers, logProb: -Infinity };

@@ -69,6 +69,7 @@ export function loadSupernovae(config: CandelaConfig): LoadedSupernovae {
     for (const source of set.systematicModes) inputFiles.push({ written: source.file.written, resolved: source.file.resolved });
   }
   if (issues.length > 0) throw new CandelaError(issues);
+  if (parts.length === 0) return { table: emptyTable(), covariances: [], covarianceIncludesStatistical: false, systematicModeFiles: [], cutReports, warnings, inputFiles };
   const joined = parts.length === 1 ? { table: parts[0].table, warnings: [] } : concatenateTables(parts.map((p) => p.table));
   warnings.push(...joined.warnings);
   const covariances = embedCovariances(parts, joined.table.count);
@@ -234,4 +235,14 @@ function placeModeColumns(blocks: Array<{ block: SystematicModes; firstRow: numb
     column += k;
   }
   return { count: rows, modeCount: width, values, sourceFile: [...new Set(blocks.map(({ block }) => block.sourceFile))].join(' + ') };
+}
+
+/** The table of a run without supernovae (probes only): no rows. */
+function emptyTable(): SupernovaTable {
+  const none = new Float64Array(0);
+  return {
+    kind: 'magnitudes', count: 0, ids: [], samples: [], sampleNames: [], sampleIndex: new Int32Array(0),
+    redshift: none, redshiftHelio: none, redshiftErr: none, magnitude: none, magnitudeErr: none,
+    sourceLine: new Int32Array(0), sourceFile: '',
+  };
 }

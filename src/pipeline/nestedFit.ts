@@ -100,7 +100,7 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   const seed = String(config.seed);
   const say = request.onLine ?? (() => undefined);
   say(`model ${model.label}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; nested sampling with ${settings.livePoints} live points, dlogz ${settings.dlogz}`);
-  for (const line of model.supernovae.describe()) say(`  ${line}`);
+  for (const line of [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)]) say(`  ${line}`);
   const posterior = model.posterior;
   const result = runNestedSampling(
     { dimension: posterior.dimension, priorTransform: posterior.priorTransform, logLikelihood: posterior.logLikelihood },
@@ -118,7 +118,7 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   writeHubbleFiles(runDir, model, [equallyWeighted(draws, weights, best.row, hubbleDraws, seed)], 0, seed);
   buildRunOutputs([runDir], runDir);
   say(`model ${model.label}: ln Z = ${result.logZ.toFixed(3)} +- ${result.logZError.toFixed(3)} after ${result.iterations} iterations (${result.likelihoodCalls} likelihood calls, ${result.stopReason === 'dlogz' ? 'dlogz reached' : 'iteration cap reached'}) in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
-  const warnings: Issue[] = [...data.warnings, ...model.supernovae.warnings.map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
+  const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
   if (result.stopReason === 'iterations') {
     warnings.push({
       code: 'run.nested_iteration_cap', severity: 'warning', message: `nested sampling stopped at the iteration cap with ${result.remainingLogZ.toFixed(3)} nats of evidence still unaccounted for`,

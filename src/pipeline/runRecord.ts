@@ -99,7 +99,7 @@ export function commonRunSections(input: { config: CandelaConfig; modelIndex: nu
   const { config, model, data, best } = input;
   const spec = config.models[input.modelIndex];
   const values = model.posterior.values(best.theta);
-  const extras = model.supernovae.bestFitExtras?.(values) ?? {};
+  const extras = model.supernovae?.bestFitExtras?.(values) ?? {};
   const terms = termFits(model, values);
   const totalChiSquare = terms.every((term) => term.chi_square !== null) ? terms.reduce((sum, term) => sum + (term.chi_square as number), 0) : null;
   const bestParameters: Record<string, number> = {};
@@ -127,7 +127,7 @@ export function commonRunSections(input: { config: CandelaConfig; modelIndex: nu
       })),
       warnings: data.warnings.map((w) => w.message),
     },
-    likelihood: { description: [...model.supernovae.describe(), ...model.probes.flatMap((probe) => probe.loaded.describe)], path: model.supernovae.path },
+    likelihood: { description: [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)], path: model.supernovae?.path ?? 'probes' },
     best_fit: {
       parameters: bestParameters,
       chi_square: totalChiSquare,

@@ -78,12 +78,14 @@ export async function standardizeTable(configPath: string, given: Record<string,
   const reason = model.posterior.rejectionReason(theta);
   if (reason) throw new CandelaError({ code: 'standardize.unphysical', message: `the parameter values have zero posterior density: ${reason}`, fix: 'give values inside the priors and with a physical cosmology' });
   const values = { ...model.posterior.values(theta) };
-  const diagram = model.supernovae.hubbleDiagram(values);
-  const extras = model.supernovae.bestFitExtras?.(values) ?? {};
+  const supernovae = model.supernovae;
+  if (!supernovae) throw new CandelaError({ code: 'standardize.no_supernovae', path: 'supernovae', message: 'the configuration has no supernovae to standardize (probes only)', fix: 'add a supernovae block, or use fit for a probes-only run' });
+  const diagram = supernovae.hubbleDiagram(values);
+  const extras = supernovae.bestFitExtras?.(values) ?? {};
   let csv = hubbleDiagramCsv(diagram, model.samples);
-  if ('latentEstimates' in model.supernovae) {
+  if ('latentEstimates' in supernovae) {
     // Hierarchical standardization: append the posterior mean and sd of each supernova's true x1 and c.
-    const latent = model.supernovae.latentEstimates(values);
+    const latent = supernovae.latentEstimates(values);
     const lines = csv.trimEnd().split('\n');
     lines[0] += ',x1_latent,x1_latent_sd,color_latent,color_latent_sd';
     for (let i = 1; i < lines.length; i++) {
