@@ -110,6 +110,29 @@ function escapePdfBytes(bytes: string): string {
   return bytes.replace(/[\\()]/g, (match) => `\\${match}`).replace(/\r/g, '\\r');
 }
 
+/** Unicode superscript characters and the plain characters the PDF draws raised and smaller in their place (the standard fonts lack most of them). */
+const SUPERSCRIPT_CHARACTERS: Readonly<Record<string, string>> = {
+  '\u2070': '0', '\u00b9': '1', '\u00b2': '2', '\u00b3': '3', '\u2074': '4', '\u2075': '5', '\u2076': '6', '\u2077': '7', '\u2078': '8', '\u2079': '9', '\u207b': '\u2212', '\u207a': '+',
+};
+/** Size and rise of a superscript, as fractions of the surrounding font size (the same as richTextToSvg's). */
+const SUPERSCRIPT_SIZE_FRACTION = 0.72;
+const SUPERSCRIPT_RISE_FRACTION = 0.36;
+
+/** Splits text at Unicode superscript characters, which become raised, smaller plain characters. */
+function withSuperscripts(piece: { text: string; sizePx: number; risePx: number }): { text: string; sizePx: number; risePx: number }[] {
+  const pieces: { text: string; sizePx: number; risePx: number }[] = [];
+  for (const character of piece.text) {
+    const plain = SUPERSCRIPT_CHARACTERS[character];
+    const next = plain === undefined
+      ? { text: character, sizePx: piece.sizePx, risePx: piece.risePx }
+      : { text: plain, sizePx: piece.sizePx * SUPERSCRIPT_SIZE_FRACTION, risePx: piece.risePx + piece.sizePx * SUPERSCRIPT_RISE_FRACTION };
+    const last = pieces[pieces.length - 1];
+    if (last && last.sizePx === next.sizePx && last.risePx === next.risePx) last.text += next.text;
+    else pieces.push(next);
+  }
+  return pieces;
+}
+
 /** The text pieces of a `<text>` element: base text and `<tspan>` sub- and superscripts, with size (px) and rise (px, up). */
 function textPieces(node: SvgNode, sizePx: number, risePx: number): { text: string; sizePx: number; risePx: number }[] {
   const pieces: { text: string; sizePx: number; risePx: number }[] = [];
@@ -187,7 +210,7 @@ class PdfPainter {
   private paintText(node: SvgNode, style: InheritedStyle): void {
     const color = style.fill === 'none' ? undefined : rgb(style.fill);
     if (!color) return;
-    const pieces = textPieces(node, style.fontSizePx, 0).map((piece) => ({ ...piece, runs: pdfTextRuns(piece.text, this.face) }));
+    const pieces = textPieces(node, style.fontSizePx, 0).flatMap(withSuperscripts).map((piece) => ({ ...piece, runs: pdfTextRuns(piece.text, this.face) }));
     const widthPx = pieces.reduce((total, piece) => total + piece.runs.reduce((sum, run) => sum + (run.widthPerMille / 1000) * piece.sizePx, 0), 0);
     const shift = style.anchor === 'middle' ? widthPx / 2 : style.anchor === 'end' ? widthPx : 0;
     const x = numberAttribute(node, 'x') - shift;

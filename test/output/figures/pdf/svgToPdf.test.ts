@@ -74,6 +74,12 @@ describe('svgToPdf', () => {
     expect(stream).toContain('1 0 0 -1 44.44 20 Tm');
   });
 
+  it('draws Unicode superscripts (km s⁻¹) as raised, smaller characters, since the standard fonts lack them', () => {
+    const stream = contentStream(svgToPdf(svgDocument(100, 50, 'unit', [], [svgElement('text', { x: 5, y: 20, 'font-size': 10 }, 's⁻¹')])));
+    // 0.72 of 10 px, raised by 0.36 x 10 px; the minus is byte 0x2D of the Symbol font (Adobe Symbol encoding, from memory).
+    expect(stream).toContain('/FL 10 Tf 0 Ts (s) Tj\n/FS 7.2 Tf 3.6 Ts (-) Tj\n/FL 7.2 Tf 3.6 Ts (1) Tj');
+  });
+
   it('is byte-for-byte reproducible (no date in the file)', () => {
     const svg = triangleFigure([{ label: 'run', marginals: gaussianMarginals(spec), contours: gaussianContours(spec) }], spec.parameters);
     expect(svgToPdf(svg).equals(svgToPdf(svg))).toBe(true);
