@@ -1,5 +1,5 @@
 import { accessSync, closeSync, constants, existsSync, mkdirSync, openSync, readdirSync, rmSync, statSync, unlinkSync } from 'node:fs';
-import { dirname, join, resolve } from 'node:path';
+import { basename, dirname, join, resolve } from 'node:path';
 import { CandelaError } from '../errors.js';
 
 /** File names inside a run folder. */
@@ -37,7 +37,8 @@ function folderError(dir: string, action: string, error: unknown): CandelaError 
  * Makes sure a run may write into `dir`: a missing or empty folder is created;
  * an existing non-empty one needs `force` (its contents are removed) or
  * `resume` (it must hold a checkpoint; a missing or empty folder, left by a
- * run interrupted before its first step, starts afresh). Then checks that
+ * run interrupted before its first step, starts afresh; temporary files of
+ * writes cut short by a hard stop are removed). Then checks that
  * the folder takes new files by creating and removing an empty probe file,
  * so that a read-only or full disk is reported before any sampling. Never
  * touches the folder's files when it throws, so earlier outputs stay as they
@@ -63,6 +64,7 @@ export function prepareRunFolder(dir: string, options: { force: boolean; resume:
       throw new CandelaError({ code: 'run.no_checkpoint', file: join(dir, RUN_FILES.checkpoint), message: 'there is no checkpoint to resume from', fix: 'run without --resume to start a new run' });
     }
     checkWritable(dir);
+    removeTemporaryFiles(dir);
     return;
   }
   if (entries.length > 0 && !options.resume) {
@@ -101,6 +103,24 @@ function causeInAncestor(dir: string): unknown {
     return null;
   } catch (error) {
     return error;
+  }
+}
+
+/** Names of the temporary files of writeFileAtomic (`.<name>.<pid>.<n>.tmp`). */
+const TEMPORARY_FILE = /^\..+\.\d+\.\d+\.tmp$/;
+
+/**
+ * Removes the temporary files a run left when it was ended at once (a
+ * second Ctrl-C, `kill -9`, a crash) while writing: they never replaced a
+ * file (the rename had not happened) and only take space.
+ */
+function removeTemporaryFiles(dir: string): void {
+  try {
+    for (const name of readdirSync(dir, { recursive: true }).map(String)) {
+      if (TEMPORARY_FILE.test(basename(name))) rmSync(join(dir, name), { force: true });
+    }
+  } catch (error) {
+    throw folderError(dir, 'tidy', error);
   }
 }
 

@@ -102,13 +102,12 @@ export function registerFitCommand(program: Command): void {
       if (planOnly.length > 0) throw new CandelaError({ code: 'fit.option_needs_plan', path: optionName(planOnly[0]), message: `${planOnly.map(optionName).join(', ')} describe${planOnly.length === 1 ? 's' : ''} the jobs of a cluster plan`, fix: 'add --plan slurm, or drop the option' });
       if (options.stepsPerPart !== undefined && options.part === undefined) throw new CandelaError({ code: 'fit.option_needs_part', path: '--steps-per-part', message: '--steps-per-part sets the length of a part; a whole fit stops on sampler.max_steps and its targets', fix: 'add --part I, or set sampler.max_steps' });
       const controller = new AbortController();
-      // First signal: stop sampling, write the checkpoint and the outputs so far. Second: leave at once. Every file
-      // is written to a temporary name and renamed, so leaving at once corrupts nothing; the last checkpoint stays.
+      // First signal: stop sampling, write the checkpoint and the outputs so far. Then the handlers are removed, so a
+      // second signal ends the process at once by the system's default action, even in the middle of writing the
+      // outputs (no JavaScript runs until they are written). Every file is written to a temporary name and renamed,
+      // so that corrupts nothing: the last checkpoint stays, and --resume clears the temporary files left behind.
       const stop = (signal: NodeJS.Signals) => {
-        if (controller.signal.aborted) {
-          process.stderr.write(`\n${signal} again: leaving at once; continue later with --resume from the last checkpoint\n`);
-          process.exit(EXIT_INTERRUPTED);
-        }
+        for (const name of STOP_SIGNALS) process.off(name, stop);
         controller.abort();
         if (!options.quiet) process.stderr.write(`\n${signal}: stopping; writing a checkpoint and the outputs so far (send it again to leave at once)\n`);
       };
