@@ -222,7 +222,7 @@ async function fitOneModel(
   const rule = { targetEss: part ? settings.targetEss / part.ensembles : settings.targetEss, maxRhat: settings.maxRhat };
   const maxSteps = part && request.partSteps !== undefined ? request.partSteps : settings.maxSteps;
   say(`model ${model.label}${partNote}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
-  for (const line of model.supernovae.describe()) say(`  ${line}`);
+  for (const line of [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)]) say(`  ${line}`);
   const evaluator = createInterruptibleEvaluator(await (earlyEvaluator ?? createEvaluator(config, index, model, workers)), request.signal);
   try {
     let sampler: EnsembleSampler;
@@ -309,7 +309,7 @@ async function fitOneModel(
     } : fullRecord;
     writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
     writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
-    const warnings: Issue[] = [...data.warnings, ...model.supernovae.warnings.map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
+    const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
     if (!summarized) {
       say(`model ${model.label}${partNote}: interrupted after ${sampler.stepCount} steps, fewer than the ${MINIMUM_STEPS_FOR_OUTPUTS} the summaries need; wrote the checkpoint, chains.csv and run.json in ${runDir}`);
       return { model: model.label, runDir, record, warnings, summarized: false };
