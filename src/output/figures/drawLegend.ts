@@ -2,6 +2,7 @@ import { escapeXml } from './escapeXml.js';
 import { FIGURE_STYLE } from './figureStyle.js';
 import { estimatePlainTextWidthPx } from './richTextSvg.js';
 import { formatPixels } from './formatPixels.js';
+import { hatchLinesInRectangle } from './hatchPattern.js';
 import { markerPathData, truthMarkerPathData } from './markerPathData.js';
 import { svgElement } from './svgElement.js';
 
@@ -21,6 +22,8 @@ export interface LegendEntry {
   key: 'fill' | 'region' | 'line' | 'dashed' | 'dotted' | 'marker' | 'open-marker' | 'truth' | 'cut';
   /** Fill opacity of a `fill` key (default 0.75). */
   opacity?: number;
+  /** Hatching direction of a `region` key (degrees from the x axis; default 45), the same as its run's regions. */
+  hatchAngleDeg?: number;
   /** Marker shape of a `marker` key (default circle). */
   shape?: 'circle' | 'square' | 'diamond';
 }
@@ -53,7 +56,7 @@ function drawKey(entry: LegendEntry, xPx: number, middlePx: number): string {
   switch (entry.key) {
     case 'region': {
       const top = middlePx - REGION_KEY_HEIGHT_PX / 2;
-      const hatch = Array.from({ length: 4 }, (_, k) => `M${formatPixels(xPx + 3 + k * 3)} ${formatPixels(top + REGION_KEY_HEIGHT_PX - 2.5)}l${2.5} ${-(REGION_KEY_HEIGHT_PX - 5)}`).join('');
+      const hatch = hatchLinesInRectangle(xPx + 2, top + 2, KEY_WIDTH_PX - 4, REGION_KEY_HEIGHT_PX - 4, entry.hatchAngleDeg ?? 45, 2.6);
       return svgElement('g', {}, [
         svgElement('rect', { x: xPx, y: top, width: KEY_WIDTH_PX, height: REGION_KEY_HEIGHT_PX, ...common, 'stroke-width': 0.7 }),
         svgElement('path', { ...common, 'stroke-width': 0.5, 'stroke-opacity': 0.7, d: hatch }),

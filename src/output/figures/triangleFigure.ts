@@ -13,7 +13,7 @@ import { figureWidthPx } from './figureWidth.js';
 import type { FigureWidth } from './figureWidth.js';
 import { formatPixels } from './formatPixels.js';
 import { formatTickLabel } from './formatTickLabel.js';
-import { hatchPattern } from './hatchPattern.js';
+import { hatchAngleDeg, hatchPattern } from './hatchPattern.js';
 import { legendStrip } from './legendStrip.js';
 import { linePathData } from './linePathData.js';
 import { truthMarkerPathData } from './markerPathData.js';
@@ -261,7 +261,7 @@ export function triangleFigure(runs: readonly TriangleRun[], parameters: readonl
       ]));
     }
   }
-  const entries: LegendEntry[] = runs.map((run, index) => ({ label: count >= 2 ? `${run.label} (68% hatched, 95% outline)` : run.label, color: colors[index], key: count >= 2 ? 'region' : 'line' }));
+  const entries: LegendEntry[] = runs.map((run, index) => ({ label: count >= 2 ? `${run.label} (68% hatched, 95% outline)` : run.label, color: colors[index], key: count >= 2 ? 'region' : 'line', hatchAngleDeg: hatchAngleDeg(index) }));
   if (truthDrawn) entries.push({ label: options.referenceLabel ?? 'truth', color: FIGURE_STYLE.referenceColor, key: count >= 2 && parameters.filter((name) => Number.isFinite(reference[name])).length >= 2 ? 'truth' : 'dashed' });
   if (flatDrawn) entries.push({ label: 'flat universe (\u03a9k = 0)', color: FIGURE_STYLE.referenceColor, key: 'dotted' });
   const stripTop = plotBottom + MARGIN.bottom;
