@@ -28,7 +28,7 @@ export function hatchAngleDeg(runIndex: number): number {
  * @param angleDeg direction from the x axis, counterclockwise (degrees)
  * @param spacingPx distance between lines (px)
  * @returns path data
- * @example hatchLinesInRectangle(0, 0, 10, 10, 0, 5) // 'M0 2.5L10 2.5M0 7.5L10 7.5' (up to rounding)
+ * @example hatchLinesInRectangle(0, 0, 10, 10, 0, 5) // 'M0 0.43L10 0.43M0 5.43L10 5.43'
  */
 export function hatchLinesInRectangle(leftPx: number, topPx: number, widthPx: number, heightPx: number, angleDeg: number, spacingPx: number): string {
   const angle = (angleDeg * Math.PI) / 180;

@@ -18,6 +18,7 @@ import {
   svgDocument,
   svgElement,
 } from '../../../src/output/figures/index.js';
+import { hatchLinesInRectangle } from '../../../src/output/figures/hatchPattern.js';
 import { findAll, hasClass, parseXml, textContent } from './xmlTree.js';
 
 describe('parseXml (test helper)', () => {
@@ -200,5 +201,20 @@ describe('svgDocument', () => {
     expect(tree.attributes.viewBox).toBe('0 0 120 80');
     expect(findAll(tree, 'title')[0].text).toBe('a < b');
     expect(findAll(tree, 'rect')[0].attributes.fill).toBe('#ffffff');
+  });
+});
+
+describe('hatchLinesInRectangle', () => {
+  it('cuts every line at the rectangle edges and keeps the angle (slab clipping, Liang & Barsky 1984)', () => {
+    const data = hatchLinesInRectangle(10, 20, 40, 30, 45, 4);
+    const segments = [...data.matchAll(/M(-?[\d.]+) (-?[\d.]+)L(-?[\d.]+) (-?[\d.]+)/g)].map((match) => match.slice(1).map(Number));
+    expect(segments.length).toBeGreaterThan(10);
+    const onEdge = (x: number, y: number) => Math.min(Math.abs(x - 10), Math.abs(x - 50), Math.abs(y - 20), Math.abs(y - 50)) < 0.02;
+    for (const [x0, y0, x1, y1] of segments) {
+      expect(onEdge(x0, y0) && onEdge(x1, y1)).toBe(true);
+      // 45 degrees counterclockwise on screen: y falls as x rises, slope -1 (pixel coordinates, two decimals).
+      expect((y1 - y0) / (x1 - x0)).toBeCloseTo(-1, 1);
+    }
+    expect(hatchLinesInRectangle(0, 0, 10, 10, 0, 5)).toBe('M0 0.43L10 0.43M0 5.43L10 5.43');
   });
 });
