@@ -28,7 +28,8 @@ const turnOfEventLoop = (): Promise<void> => new Promise((resolve) => setImmedia
  * every `sliceMs` of evaluation and stops at once when `signal` is aborted.
  * A batch whose points would take longer than half a slice is evaluated in
  * consecutive parts sized from the time per point measured so far (the first
- * batch starts with one point); between parts, and before each batch, the
+ * batch starts with `minimumPartPoints` points, and no part is smaller, so
+ * that every thread of a worker pool has a point); between parts, and before each batch, the
  * event loop turns when a slice has passed, and an aborted signal makes
  * `evaluate` reject with {@link RunInterrupted} without touching the outputs
  * any further. The points of a batch are independent, so evaluating a batch
@@ -36,15 +37,18 @@ const turnOfEventLoop = (): Promise<void> => new Promise((resolve) => setImmedia
  * number, so the random streams are untouched.
  *
  * Cost: two clock reads per part; one event-loop turn (a few microseconds)
- * per `sliceMs`.
+ * per `sliceMs`. A model slower than half a slice per point is evaluated
+ * `minimumPartPoints` points at a time, so give the number of threads that
+ * evaluate (the caller included) to keep them all busy.
  * @param inner the evaluator doing the work (in-process or worker pool).
  * @param signal aborted on an interrupt; without one the wrapper only yields.
  * @param sliceMs longest evaluation between turns of the event loop, ms.
+ * @param minimumPartPoints fewest points evaluated together (the evaluating threads), >= 1.
  * @returns an evaluator with the dimension and blob count of `inner`; `close` closes `inner`.
  * @throws (rejects) RunInterrupted after `signal` is aborted; whatever `inner` rejects with.
  * @example const evaluator = createInterruptibleEvaluator(createInProcessEvaluator(model), controller.signal)
  */
-export function createInterruptibleEvaluator(inner: BatchEvaluator, signal?: AbortSignal, sliceMs = EVENT_LOOP_SLICE_MS): BatchEvaluator {
+export function createInterruptibleEvaluator(inner: BatchEvaluator, signal?: AbortSignal, sliceMs = EVENT_LOOP_SLICE_MS, minimumPartPoints = 1): BatchEvaluator {
   const { dimension, blobCount } = inner;
   let lastTurn = performance.now();
   let msPerPoint = Number.NaN;
@@ -62,7 +66,8 @@ export function createInterruptibleEvaluator(inner: BatchEvaluator, signal?: Abo
       await pauseIfDue();
       let first = 0;
       while (first < count) {
-        const partSize = Number.isFinite(msPerPoint) ? Math.max(1, Math.floor(sliceMs / 2 / Math.max(msPerPoint, 1e-9))) : 1;
+        const fewest = Math.max(1, Math.floor(minimumPartPoints));
+        const partSize = Number.isFinite(msPerPoint) ? Math.max(fewest, Math.floor(sliceMs / 2 / Math.max(msPerPoint, 1e-9))) : fewest;
         const size = Math.min(count - first, partSize);
         const started = performance.now();
         if (first === 0 && size === count) {

@@ -20,7 +20,7 @@ import { writeHubbleFiles } from './hubbleFiles.js';
 import { buildRunOutputs } from './buildRunOutputs.js';
 import { workerModelUrl } from './workerModel.js';
 import { fitNestedModel } from './nestedFit.js';
-import { createInterruptibleEvaluator, isRunInterrupted } from './interruptibleEvaluator.js';
+import { createInterruptibleEvaluator, EVENT_LOOP_SLICE_MS, isRunInterrupted } from './interruptibleEvaluator.js';
 import { locatePart, type FitPart, type PartFacts } from './slurmPart.js';
 
 /** Steps advanced between looks at the clock, the progress display and the checkpoint schedule (the stop signal is seen within a step, see createInterruptibleEvaluator). */
@@ -223,7 +223,7 @@ async function fitOneModel(
   const maxSteps = part && request.partSteps !== undefined ? request.partSteps : settings.maxSteps;
   say(`model ${model.label}${partNote}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
   for (const line of [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)]) say(`  ${line}`);
-  const evaluator = createInterruptibleEvaluator(await (earlyEvaluator ?? createEvaluator(config, index, model, workers)), request.signal);
+  const evaluator = createInterruptibleEvaluator(await (earlyEvaluator ?? createEvaluator(config, index, model, workers)), request.signal, EVENT_LOOP_SLICE_MS, workers);
   try {
     let sampler: EnsembleSampler;
     let previousSeconds = 0;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { createInProcessEvaluator } from '../../src/sampler/index.js';
-import type { LogProbabilityModel } from '../../src/sampler/index.js';
+import type { BatchEvaluator, LogProbabilityModel } from '../../src/sampler/index.js';
 import { createInterruptibleEvaluator, isRunInterrupted } from '../../src/pipeline/interruptibleEvaluator.js';
 
 // Signal handlers run only on a turn of the event loop (Node.js process events), so a long batch must let the loop
@@ -42,6 +42,17 @@ describe('createInterruptibleEvaluator', () => {
     expect(longestGap).toBeLessThan(400); // one part is at most half a slice; the rest is this machine's scheduling
     expect(Array.from(logProb)).toEqual(Array.from(plain.logProb));
     expect(Array.from(blobs)).toEqual(Array.from(plain.blobs));
+  });
+
+  it('never splits a batch into parts smaller than the evaluating threads, however slow the model', async () => {
+    const inner = createInProcessEvaluator(slowModel(30));
+    const sizes: number[] = [];
+    const recorder: BatchEvaluator = { ...inner, evaluate: (p, count, l, b) => { sizes.push(count); return inner.evaluate(p, count, l, b); } };
+    const wrapped = createInterruptibleEvaluator(recorder, undefined, 50, 3);
+    await wrapped.evaluate(points, 10, new Float64Array(10), new Float64Array(10));
+    expect(sizes.reduce((sum, size) => sum + size, 0)).toBe(10);
+    expect(sizes.slice(0, -1).every((size) => size === 3)).toBe(true); // 30 ms a point: half a slice holds none, so the floor rules
+    expect(sizes[sizes.length - 1]).toBe(1);
   });
 
   it('rejects with RunInterrupted soon after the signal is aborted in the middle of a batch', async () => {
