@@ -1,3 +1,4 @@
+import { rankNormalizedSplitRhat } from './rankNormalizedSplitRhat.js';
 import { CandelaError, isCandelaError } from '../errors.js';
 import type { Issue } from '../errors.js';
 import { assertNotConstant, assertUsableChains, isConstant, MINIMUM_DRAWS_PER_CHAIN } from './checkChains.js';
@@ -31,8 +32,19 @@ export interface ParameterDiagnostics {
   tau: number | null;
   /** The full autocorrelation-time estimate (window, reliability, constant walkers). */
   autocorrelation: AutocorrelationTimeEstimate | null;
-  /** Rank-normalized split-R-hat (max of bulk and folded). */
+  /**
+   * Rank-normalized split-R-hat (max of bulk and folded) across the
+   * independent ensembles: each ensemble's walkers, pooled step by step, are
+   * one chain (split in halves, so one ensemble still shows a drift). This is
+   * the statistic the stopping rule uses.
+   */
   rhat: number | null;
+  /**
+   * The same statistic with every walker a chain: a diagnostic of stuck or
+   * strayed walkers, reported beside `rhat`. Walkers of one ensemble are not
+   * independent, and with many walkers it falls towards 1 only slowly.
+   */
+  rhatWalkers: number | null;
   /** Bulk ESS, in draws. */
   essBulk: number | null;
   /** Tail ESS, in draws. */
@@ -49,7 +61,9 @@ export interface ParameterDiagnostics {
  * - tau: {@link integratedAutocorrelationTime} (Sokal 1997 window on the
  *   walker-averaged autocorrelation, Goodman & Weare 2010) over all walkers of
  *   all ensembles, which share one target and one step length.
- * - R-hat, bulk and tail ESS, MCSE (Vehtari et al. 2021): every walker of every
+ * - R-hat (Vehtari et al. 2021) across the independent ensembles, each
+ *   ensemble's pooled walkers one chain; the per-walker R-hat beside it.
+ * - bulk and tail ESS, MCSE (Vehtari et al. 2021): every walker of every
  *   ensemble is taken as one chain. Walkers of one ensemble are not independent
  *   (the stretch move uses the others' positions), so these ESS values are
  *   optimistic; R-hat across walkers still detects walkers or ensembles that sit
@@ -70,23 +84,39 @@ export function diagnoseEnsembleChains(ensembles: readonly EnsembleTrace[], burn
   const issues: Issue[] = [];
   if (isConstant(chains)) {
     attempt(issues, 'all', () => assertNotConstant(chains, 'every convergence diagnostic'));
-    return { keptSteps: chains[0].length, chainCount: chains.length, tau: null, autocorrelation: null, rhat: null, essBulk: null, essTail: null, mcseMean: null, issues };
+    return { keptSteps: chains[0].length, chainCount: chains.length, tau: null, autocorrelation: null, rhat: null, rhatWalkers: null, essBulk: null, essTail: null, mcseMean: null, issues };
   }
   const autocorrelation = attempt(issues, 'tau', () => integratedAutocorrelationTime(chains));
   const normalizedHalves = rankNormalize(splitChains(chains));
   const bulkRhat = attempt(issues, 'rhat', () => potentialScaleReductionOfChains(normalizedHalves, 'the bulk R-hat'));
   const tailRhat = attempt(issues, 'rhat', () => potentialScaleReductionOfChains(rankNormalize(splitChains(foldAboutMedian(chains))), 'the tail (folded) R-hat'));
+  const pooled = ensembleChainsAfterBurnIn(ensembles, burnInSteps);
+  const ensembleRhat = attempt(issues, 'rhat', () => rankNormalizedSplitRhat(pooled));
   return {
     keptSteps: chains[0].length,
     chainCount: chains.length,
     tau: autocorrelation?.tauSteps ?? null,
     autocorrelation,
-    rhat: bulkRhat !== null && tailRhat !== null ? Math.max(bulkRhat, tailRhat) : null,
+    rhat: ensembleRhat,
+    rhatWalkers: bulkRhat !== null && tailRhat !== null ? Math.max(bulkRhat, tailRhat) : null,
     essBulk: attempt(issues, 'essBulk', () => effectiveSampleSizeOfChains(normalizedHalves, 'the bulk ESS')),
     essTail: attempt(issues, 'essTail', () => essTail(chains)),
     mcseMean: attempt(issues, 'mcseMean', () => mcseMean(chains)),
     issues,
   };
+}
+
+/**
+ * One chain per ensemble after the burn-in: its walkers' draws in step-major
+ * order (step 1 of every walker, then step 2, ...), a view of the trace.
+ * Pooling the walkers of one ensemble gives a chain whose within variance is
+ * the posterior's and whose mean varies between independent ensembles only by
+ * Monte Carlo error, so split-R-hat on these chains compares the ensembles.
+ */
+function ensembleChainsAfterBurnIn(ensembles: readonly EnsembleTrace[], burnInSteps: number): Float64Array[] {
+  // Ensembles of unequal size (never in a candela run) are cut to the shortest pooled chain.
+  const length = Math.min(...ensembles.map((trace) => (trace.steps - burnInSteps) * trace.walkers));
+  return ensembles.map((trace) => trace.values.subarray(burnInSteps * trace.walkers, burnInSteps * trace.walkers + length));
 }
 
 /** Runs one computation; a CandelaError becomes warnings at `path` (the result field) and a null result; anything else is rethrown. */

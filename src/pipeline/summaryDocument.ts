@@ -30,7 +30,7 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
     map: p.stats.map ?? null, derived: Boolean(p.derived), samples: p.stats.count,
   }]));
   const diagnostics = Object.fromEntries(Object.entries(analysis.diagnostics).map(([name, d]) => [name, {
-    rhat: d.rhat, ess_bulk: d.essBulk, ess_tail: d.essTail, tau: d.tau, mcse_mean: d.mcseMean,
+    rhat: d.rhat, rhat_walkers: d.rhatWalkers ?? null, ess_bulk: d.essBulk, ess_tail: d.essTail, tau: d.tau, mcse_mean: d.mcseMean,
     chain_length_over_tau: d.tau ? analysis.steps / d.tau : null,
   }]));
   const names = analysis.summary.correlationNames ?? [];

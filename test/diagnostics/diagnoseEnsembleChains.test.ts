@@ -43,7 +43,15 @@ describe('diagnoseEnsembleChains', () => {
     expect(result.chainCount).toBe(20);
     expect(result.tau).toBe(integratedAutocorrelationTime(kept).tauSteps);
     expect(result.autocorrelation?.walkersUsed).toBe(20);
-    expect(result.rhat).toBe(rankNormalizedSplitRhat(kept));
+    expect(result.rhatWalkers).toBe(rankNormalizedSplitRhat(kept));
+    // Across ensembles: each ensemble's walkers pooled step by step into one chain (cut to the shorter ensemble's length).
+    const pooled = [first, second].map((walkers) => {
+      const out = new Float64Array(kept[0].length * walkers.length);
+      for (let step = 0; step < kept[0].length; step++) walkers.forEach((series, w) => (out[step * walkers.length + w] = series[BURN_IN + step]));
+      return out;
+    });
+    const length = Math.min(pooled[0].length, pooled[1].length);
+    expect(result.rhat).toBe(rankNormalizedSplitRhat(pooled.map((chain) => chain.subarray(0, length))));
     expect(result.essBulk).toBe(essBulk(kept));
     expect(result.essTail).toBe(essTail(kept));
     expect(result.mcseMean).toBe(mcseMean(kept));
@@ -62,6 +70,7 @@ describe('diagnoseEnsembleChains', () => {
     const shifted = ar1Walkers(12, 600, 0.8, 'ensemble/shifted').map((series) => series.map((value) => value + 1.5));
     const mixed = diagnoseEnsembleChains([traceOf(ar1Walkers(12, 600, 0.8, 'ensemble/base')), traceOf(shifted)], 0);
     expect(mixed.rhat!).toBeGreaterThan(1.1);
+    expect(mixed.rhatWalkers!).toBeGreaterThan(1.1);
   });
 
   it('returns nulls and one warning when the parameter never moves', () => {

@@ -25,12 +25,12 @@ describe('judgeMergedRun', () => {
     expect(verdict).toEqual({ targetsMet: true, shortfalls: [], suggestedSteps: null });
   });
 
-  it('fails a merged run with a low ESS and extrapolates the steps linearly in the kept steps, plus 20%', () => {
+  it('fails a merged run with a low ESS and extrapolates the steps linearly in the kept steps, plus 50%', () => {
     const verdict = judgeMergedRun(check(1000, 200, [{ essBulk: 1000, rhat: 1.002 }, { essBulk: 1600, rhat: 1.003 }]), rule, names, fullParts);
     expect(verdict.targetsMet).toBe(false);
     expect(verdict.shortfalls).toEqual(['the bulk ESS of omega_m is 1000, below target_ess 2000', 'the bulk ESS of w0 is 1600, below target_ess 2000']);
-    // 200 + 800 x (2000 / 1000) x 1.2 = 2120, rounded up to 2200
-    expect(verdict.suggestedSteps).toBe(2200);
+    // 200 + 800 x (2000 / 1000) x 1.5 = 2600, already a multiple of 100
+    expect(verdict.suggestedSteps).toBe(2600);
   });
 
   it('fails a merged run whose R-hat is above max_rhat even when each ESS is met, and asks for at least twice the steps', () => {
