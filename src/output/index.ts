@@ -57,6 +57,7 @@ export type { TerminalMarginalOptions } from './tables/terminalMarginals.js';
 // Files.
 export { writeFileAtomic } from './writeFileAtomic.js';
 export { writeFileAtomicBy } from './writeFileAtomic.js';
+export { writeFailure } from './writeFileAtomic.js';
 
 // Figures: SVG documents built from strings, PNG rendering (see ./figures/index.ts for the SVG toolkit).
 export { triangleFigure } from './figures/index.js';

@@ -59,12 +59,27 @@ export function writeFileAtomicBy(path: string, produce: (write: (piece: string 
     }
     try { unlinkSync(temporary); } catch { /* the temporary file may not exist */ }
     if (isCandelaError(error)) throw error;
-    throw new CandelaError({
-      code: 'output.write_failed', file: path, message: `could not write ${path}: ${systemReason(error)}`,
-      fix: 'check that the output folder exists, is writable and has free space',
-    });
+    throw writeFailure(path, error);
   }
   flushFolder(folder);
+}
+
+/**
+ * A file-system error met while writing `path`, as the error the user sees
+ * (exit 2): the file, the cause in words with its system code (full disk,
+ * read-only file system, permission), and what to do.
+ * Cost: O(1).
+ * @param path the file being written.
+ * @param error what the file system threw.
+ * @returns a CandelaError `output.write_failed`.
+ * @throws nothing.
+ * @example writeFailure('out/run/chains.csv', Object.assign(new Error('no space'), { code: 'ENOSPC' })).issues[0].message // 'could not write out/run/chains.csv: the disk is full (ENOSPC)'
+ */
+export function writeFailure(path: string, error: unknown): CandelaError {
+  return new CandelaError({
+    code: 'output.write_failed', file: path, message: `could not write ${path}: ${systemReason(error)}`,
+    fix: 'check that the output folder exists, is writable and has free space',
+  });
 }
 
 /** The system error of a failed write in words, with its code. */

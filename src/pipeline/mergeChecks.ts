@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { CandelaError, type Issue } from '../errors.js';
 import type { SamplerSnapshot } from '../sampler/index.js';
-import { decodeBinaryState } from './binaryState.js';
+import { readCheckpoint } from './checkpointFile.js';
 import { RUN_FILES } from './runFolder.js';
 import type { RunRecord } from './runRecord.js';
 import type { PartFacts } from './slurmPart.js';
@@ -35,7 +35,7 @@ function readPart(dir: string, issues: Issue[]): PartOnDisk | null {
   }
   const checkpointPath = join(dir, RUN_FILES.checkpoint);
   try {
-    const saved = decodeBinaryState<{ snapshot: SamplerSnapshot; wallSeconds: number; evaluations: number }>(readFileSync(checkpointPath));
+    const saved = readCheckpoint(dir);
     return { dir, record, snapshot: saved.snapshot, wallSeconds: saved.wallSeconds, evaluations: saved.evaluations };
   } catch {
     issues.push({ code: 'merge.no_checkpoint', file: checkpointPath, message: `${dir} has no readable checkpoint.bin, which holds the part's exact chain`, fix: 'rerun the part with `candela fit CONFIG --part I --resume` (or without --resume, with --force)' });

@@ -1,4 +1,4 @@
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { loadConfigFile, resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
@@ -6,10 +6,10 @@ import { CandelaError, type Issue } from '../errors.js';
 import { samplePrior } from '../likelihood/index.js';
 import {
   createInProcessEvaluator, createWorkerPoolEvaluator, EnsembleSampler, initializeWalkers,
-  type BatchEvaluator, type LogProbabilityModel, type SamplerSnapshot, type WorkerModelSpec,
+  type BatchEvaluator, type LogProbabilityModel, type WorkerModelSpec,
 } from '../sampler/index.js';
 import { writeFileAtomic } from '../output/index.js';
-import { decodeBinaryState, encodeBinaryState } from './binaryState.js';
+import { readCheckpoint, writeCheckpoint } from './checkpointFile.js';
 import { buildModel, type BuiltModel } from './buildModel.js';
 import { writeChainsFile } from './chainsFile.js';
 import { loadSupernovae, type LoadedSupernovae } from './loadSupernovae.js';
@@ -229,7 +229,7 @@ async function fitOneModel(
     let previousSeconds = 0;
     let evaluations = 0;
     if (request.resume && existsSync(checkpointPath)) {
-      const saved = decodeBinaryState<{ snapshot: SamplerSnapshot; wallSeconds: number; evaluations: number }>(readFileSync(checkpointPath));
+      const saved = readCheckpoint(runDir);
       sampler = await EnsembleSampler.restore(saved.snapshot, evaluator);
       previousSeconds = saved.wallSeconds;
       evaluations = saved.evaluations;
@@ -254,7 +254,7 @@ async function fitOneModel(
     const stepsPerEvaluation = settings.walkers * sampler.options.ensembles;
     const saveCheckpoint = () => {
       const seconds = previousSeconds + (Date.now() - started) / 1000;
-      writeFileAtomic(checkpointPath, encodeBinaryState({ snapshot: sampler.snapshot(), wallSeconds: seconds, evaluations }));
+      writeCheckpoint(runDir, sampler.snapshot(), { wallSeconds: seconds, evaluations });
     };
     let stopReason: StopReason | null = null;
     let check: ConvergenceCheck | null = null;

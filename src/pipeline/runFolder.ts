@@ -7,6 +7,7 @@ export const RUN_FILES = {
   chains: 'chains.csv',
   run: 'run.json',
   checkpoint: 'checkpoint.bin',
+  chainRecord: 'chain-record.bin',
   resolvedConfig: 'config.resolved.yaml',
   hubbleData: 'hubble_diagram.csv',
   hubbleModel: 'hubble_model.csv',

@@ -6,8 +6,8 @@ import { pantheonBinnedConfig } from '../support/pantheonBinnedConfig.js';
 
 // `kill -9` then `--resume` for a run that stops at convergence: the resumed run must check convergence on the
 // same every-check_every schedule as an uninterrupted one, so it stops at the same step with the same chains.
-// Emulated by copying the step-100 checkpoint of an uninterrupted run (what a killed process leaves) into a new
-// folder and resuming there. Data: the Pantheon 2018 binned Hubble diagram (../shared/data-real/pantheon2018,
+// Emulated by copying the step-100 checkpoint (checkpoint.bin and chain-record.bin) of an uninterrupted run (what a
+// killed process leaves) into a new folder and resuming there. Data: the Pantheon 2018 binned Hubble diagram (../shared/data-real/pantheon2018,
 // Scolnic et al. 2018); the loose targets make a check at step 100 already pass, so a resume that checked at once
 // would stop early.
 const scratch = resolve('.candela-tmp/resume-schedule');
@@ -36,16 +36,20 @@ describe('runFit resumed from a checkpoint between two convergence checks', () =
     const [early] = await runFit({ configPath: writeConfig('every-100', 100) });
     expect([early.record.run.stop_reason, early.record.run.steps]).toEqual(['converged', 100]);
     // Checked every 200 steps it converges at 200; keep its step-100 checkpoint as a killed run would have left it.
-    const saved = join(scratch, 'checkpoint-100.bin');
+    const saved = join(scratch, 'checkpoint-100');
+    mkdirSync(saved);
     const straightConfig = writeConfig('every-200', 200);
     const [straight] = await runFit({
       configPath: straightConfig,
-      onProgress: (progress) => { if (progress.step === 100) copyFileSync(join(scratch, 'every-200', 'checkpoint.bin'), saved); },
+      onProgress: (progress) => {
+        if (progress.step !== 100) return;
+        for (const file of ['checkpoint.bin', 'chain-record.bin']) copyFileSync(join(scratch, 'every-200', file), join(saved, file));
+      },
     });
     expect([straight.record.run.stop_reason, straight.record.run.steps]).toEqual(['converged', 200]);
     const resumedConfig = writeConfig('killed', 200);
     mkdirSync(join(scratch, 'killed'));
-    copyFileSync(saved, join(scratch, 'killed', 'checkpoint.bin'));
+    for (const file of ['checkpoint.bin', 'chain-record.bin']) copyFileSync(join(saved, file), join(scratch, 'killed', file));
     const [resumed] = await runFit({ configPath: resumedConfig, resume: true });
     expect([resumed.record.run.stop_reason, resumed.record.run.steps]).toEqual(['converged', 200]);
     expect(readFileSync(join(scratch, 'killed', 'chains.csv')).equals(readFileSync(join(scratch, 'every-200', 'chains.csv')))).toBe(true);
