@@ -36,7 +36,10 @@ export function readSampler(reader: ConfigReader, at: Located): SamplerOptions {
   options.differentialEvolutionWeight = reader.number(get('differential_evolution_weight'), { min: 0, max: 1 })
     ?? options.differentialEvolutionWeight;
   options.maxSteps = reader.number(get('max_steps'), { integer: true, min: 1 }) ?? options.maxSteps;
-  options.checkEvery = reader.number(get('check_every'), { integer: true, min: 1 }) ?? options.checkEvery;
+  // An unset check_every takes the default but never more than max_steps, so that a short run is still
+  // checked at its end and its resolved configuration (which writes check_every out) reads back valid.
+  options.checkEvery = reader.number(get('check_every'), { integer: true, min: 1 })
+    ?? Math.min(options.checkEvery, options.maxSteps);
   options.targetEss = reader.number(get('target_ess'), { min: 0, exclusiveMin: true }) ?? options.targetEss;
   options.maxRhat = reader.number(get('max_rhat'), {
     min: 1, exclusiveMin: true, fix: 'set sampler.max_rhat slightly above 1, e.g. 1.01 (Vehtari et al. 2021)',
