@@ -17,17 +17,17 @@ describe('candela distances', () => {
     for (const row of table.rows) {
       const expected = reference.find((r) => r.z === row.z)!;
       // Relative 1e-9 (reference good to ~1e-12 for distances, ~1e-10 for ages, README); distmod absolute 1e-8 mag.
-      expect(row.expansionRate).toBeCloseTo(expected.E_z, 8);
-      expect(Math.abs(row.comovingDistanceMpc / expected.comoving_distance_Mpc - 1)).toBeLessThan(1e-9);
-      expect(Math.abs(row.transverseComovingDistanceMpc / expected.transverse_comoving_distance_Mpc - 1)).toBeLessThan(1e-9);
-      expect(Math.abs(row.luminosityDistanceMpc / expected.luminosity_distance_Mpc - 1)).toBeLessThan(1e-9);
-      expect(Math.abs(row.angularDiameterDistanceMpc / expected.angular_diameter_distance_Mpc - 1)).toBeLessThan(1e-9);
-      expect(Math.abs(row.distanceModulusMag - expected.distmod_mag)).toBeLessThan(1e-8);
-      expect(Math.abs(row.lookbackTimeGyr / expected.lookback_time_Gyr - 1)).toBeLessThan(1e-9);
-      expect(Math.abs(row.ageGyr / expected.age_Gyr - 1)).toBeLessThan(1e-9);
+      expect(row.expansion_rate).toBeCloseTo(expected.E_z, 8);
+      expect(Math.abs(row.comoving_distance_mpc / expected.comoving_distance_Mpc - 1)).toBeLessThan(1e-9);
+      expect(Math.abs(row.transverse_comoving_distance_mpc / expected.transverse_comoving_distance_Mpc - 1)).toBeLessThan(1e-9);
+      expect(Math.abs(row.luminosity_distance_mpc / expected.luminosity_distance_Mpc - 1)).toBeLessThan(1e-9);
+      expect(Math.abs(row.angular_diameter_distance_mpc / expected.angular_diameter_distance_Mpc - 1)).toBeLessThan(1e-9);
+      expect(Math.abs(row.distance_modulus_mag - expected.distmod_mag)).toBeLessThan(1e-8);
+      expect(Math.abs(row.lookback_time_gyr / expected.lookback_time_Gyr - 1)).toBeLessThan(1e-9);
+      expect(Math.abs(row.age_gyr / expected.age_Gyr - 1)).toBeLessThan(1e-9);
     }
-    expect(Math.abs(table.today.ageGyr / reference[0].age_today_Gyr - 1)).toBeLessThan(1e-9);
-    expect(table.model).toMatchObject({ darkEnergy: 'cpl', flat: true, omegaMatter: 0.3, w0: -0.9, wa: 0.3, omegaCurvature: 0, omegaRadiation: 0 });
+    expect(Math.abs(table.today.age_gyr / reference[0].age_today_Gyr - 1)).toBeLessThan(1e-9);
+    expect(table.model).toMatchObject({ dark_energy: 'cpl', flat: true, omega_m: 0.3, w0: -0.9, wa: 0.3, omega_k: 0, omega_r: 0 });
   });
 
   it('prints a text table by default and CSV with --csv, one line per redshift', async () => {

@@ -41,7 +41,8 @@ describe('computeDistanceTable', () => {
   it('writes an infinite age (de Sitter) as null in JSON and as an empty CSV cell, never NaN', () => {
     const table = computeDistanceTable({ ...BASE, omegaMatter: 0, omegaDarkEnergy: 1, radiation: false, redshifts: [1] });
     expect(table.today.ageGyr).toBeNull();
-    expect(JSON.parse(formatDistanceTableJson(table)).rows[0].ageGyr).toBeNull();
+    expect(JSON.parse(formatDistanceTableJson(table)).rows[0].age_gyr).toBeNull();
+    expect(JSON.parse(formatDistanceTableJson(table)).today.age_gyr).toBeNull();
     expect(formatDistanceTableCsv(table).split('\n')[1].split(',')[8]).toBe('');
     expect(formatDistanceTableText(table)).not.toContain('NaN');
   });
@@ -56,7 +57,21 @@ describe('formatDistanceTableText / Csv / Json', () => {
     const csv = formatDistanceTableCsv(table).trimEnd().split('\n');
     expect(csv).toHaveLength(3);
     expect(Number(csv[2].split(',')[4])).toBe(table.rows[1].luminosityDistanceMpc);
-    expect(JSON.parse(formatDistanceTableJson(table)).rows[1].luminosityDistanceMpc).toBe(table.rows[1].luminosityDistanceMpc);
+    expect(JSON.parse(formatDistanceTableJson(table)).rows[1].luminosity_distance_mpc).toBe(table.rows[1].luminosityDistanceMpc);
+  });
+
+  it('writes every JSON key in snake_case, as every other JSON file of a run', () => {
+    const keys: string[] = [];
+    const collect = (value: unknown): void => {
+      if (Array.isArray(value)) value.forEach(collect);
+      else if (value !== null && typeof value === 'object') for (const [key, inner] of Object.entries(value)) { keys.push(key); collect(inner); }
+    };
+    const document = JSON.parse(formatDistanceTableJson(table));
+    collect(document);
+    expect(keys.filter((key) => !/^[a-z0-9]+(_[a-z0-9]+)*$/.test(key))).toEqual([]);
+    expect(Object.keys(document.rows[0])).toEqual(['z', 'expansion_rate', 'comoving_distance_mpc', 'transverse_comoving_distance_mpc',
+      'luminosity_distance_mpc', 'angular_diameter_distance_mpc', 'distance_modulus_mag', 'lookback_time_gyr', 'age_gyr', 'deceleration_parameter']);
+    expect(document.model).toMatchObject({ dark_energy: 'lambda', omega_k: table.model.omegaCurvature, h0: table.model.h0KmPerSPerMpc });
   });
 });
 

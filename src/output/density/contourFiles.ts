@@ -57,9 +57,11 @@ export function contourPathsCsv(set: ContourSet2D): string {
 }
 
 /**
- * The levels of a contour set as JSON text: parameters, bandwidths, grid
- * size and range, and for each region its mass, density threshold and area
- * (parameter units).
+ * The levels of a contour set as JSON text with snake_case keys, like every
+ * JSON file candela writes: parameters (`x_parameter`, `y_parameter`),
+ * bandwidths (`bandwidth_x`, `bandwidth_y`), grid size and range
+ * (`grid_points`, `x_range`, `y_range`), and under `levels` each region's
+ * mass, density threshold and area (parameter units).
  *
  * Cost: O(number of vertices) for the areas.
  * @param set from credibleContours.
@@ -69,13 +71,13 @@ export function contourPathsCsv(set: ContourSet2D): string {
 export function contourThresholdsJson(set: ContourSet2D): string {
   const { grid } = set;
   const document = {
-    xParameter: grid.xParameter,
-    yParameter: grid.yParameter,
-    bandwidthX: grid.bandwidthX,
-    bandwidthY: grid.bandwidthY,
-    gridPoints: [grid.x.length, grid.y.length],
-    xRange: [grid.x[0], grid.x[grid.x.length - 1]],
-    yRange: [grid.y[0], grid.y[grid.y.length - 1]],
+    x_parameter: grid.xParameter,
+    y_parameter: grid.yParameter,
+    bandwidth_x: grid.bandwidthX,
+    bandwidth_y: grid.bandwidthY,
+    grid_points: [grid.x.length, grid.y.length],
+    x_range: [grid.x[0], grid.x[grid.x.length - 1]],
+    y_range: [grid.y[0], grid.y[grid.y.length - 1]],
     levels: set.regions.map((region) => ({ mass: region.mass, threshold: region.threshold, area: credibleRegionArea(region) })),
   };
   return JSON.stringify(document, null, 2) + '\n';

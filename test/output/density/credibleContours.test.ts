@@ -170,7 +170,9 @@ describe('density and contour files', () => {
     expect(lines[2]).toBe(`${set.grid.x[1]},${set.grid.y[0]},${set.grid.density[1]}`);
     expect(lines[31]).toBe(`${set.grid.x[0]},${set.grid.y[1]},${set.grid.density[30]}`);
     const levels = JSON.parse(contourThresholdsJson(set));
-    expect(levels.gridPoints).toEqual([30, 20]);
+    expect(Object.keys(levels)).toEqual(['x_parameter', 'y_parameter', 'bandwidth_x', 'bandwidth_y', 'grid_points', 'x_range', 'y_range', 'levels']);
+    expect(levels.grid_points).toEqual([30, 20]);
+    expect([levels.x_parameter, levels.y_parameter]).toEqual(['omega_m', 'w0']);
     expect(levels.levels[1]).toEqual({ mass: TWO_SIGMA_MASS, threshold: set.regions[1].threshold, area: credibleRegionArea(set.regions[1]) });
   });
 
