@@ -45,7 +45,7 @@ export function evidenceLogBayesFactor01(pair: DetectedNestedPair): { value: num
 /**
  * comparison.json (schema {@link COMPARISON_SCHEMA}), snake_case like
  * summary.json: per model the run folder, sampler, N, k, chi-square and
- * ln L at the best fit, AIC, BIC, DIC with p_D, ln Z with its error, ln B
+ * ln L at the best fit, AIC, BIC, DIC with p_D (or `dic_missing`: why there is none), ln Z with its error, ln B
  * against the base with its source and Kass & Raftery (1995) reading; per
  * nested pair the extra parameters and their fixed values, delta chi-square
  * with its p-value and Gaussian equivalent, the Savage-Dickey ln B01 (with
@@ -78,6 +78,7 @@ export function comparisonDocument(parts: ComparisonParts) {
       aic: row.aic,
       bic: row.bic,
       dic: finiteOrNull(row.dic),
+      dic_missing: compared.dicMissing,
       dic_effective_parameters: finiteOrNull(row.effectiveParameters),
       deviance_at_posterior_mean: finiteOrNull(compared.record.devianceAtPosteriorMean),
       posterior_mean: compared.posteriorMean,

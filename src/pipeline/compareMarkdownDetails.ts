@@ -7,11 +7,27 @@ function fixed(value: number | null, digits = 2): string {
 }
 
 /**
+ * A notice that comparison.md puts first when any model has no DIC: one
+ * line per such model with the reason, so a missing DIC is never silent.
+ * Cost: O(models).
+ * @param document comparison.json's content.
+ * @returns Markdown text ending in a blank line, or '' when every model has its DIC.
+ * @throws nothing.
+ * @example dicMissingNotice(document) // '> **Warning: DIC missing** for flat_wcdm: ...\n\n'
+ */
+export function dicMissingNotice(document: ComparisonJson): string {
+  const missing = document.models.filter((model) => model.dic_missing !== null);
+  if (missing.length === 0) return '';
+  const lines = missing.map((model) => `> **Warning: DIC missing** for ${model.label}: ${model.dic_missing}.`);
+  return `${lines.join('\n>\n')}\n\n`;
+}
+
+/**
  * The parts of comparison.md that follow the compare layer's tables: the
- * absolute criteria per model (N, k, chi-square, AIC, BIC, DIC, p_D), the
- * Bayes factor of each nested pair two ways (Savage-Dickey and evidences,
- * with their difference in units of the combined error), and the changed
- * input files and warnings.
+ * absolute criteria per model (N, k, chi-square, AIC, BIC, DIC, p_D; a
+ * missing DIC reads MISSING), the Bayes factor of each nested pair two ways
+ * (Savage-Dickey and evidences, with their difference in units of the
+ * combined error), and the changed input files and warnings.
  *
  * Cost: O(models + pairs).
  * @param document comparison.json's content.
@@ -22,7 +38,7 @@ function fixed(value: number | null, digits = 2): string {
 export function comparisonMarkdownDetails(document: ComparisonJson): string {
   const lines = ['', '## Criteria', '', '| Model | N | k | chi2 (best fit) | AIC | BIC | DIC | p_D | sampler |', '| :-- | --: | --: | --: | --: | --: | --: | --: | :-- |'];
   for (const model of document.models) {
-    lines.push(`| ${model.label} | ${model.n_data} | ${model.k_free} | ${fixed(model.chi_square_best_fit)} | ${fixed(model.aic)} | ${fixed(model.bic)} | ${fixed(model.dic)} | ${fixed(model.dic_effective_parameters)} | ${model.sampler} |`);
+    lines.push(`| ${model.label} | ${model.n_data} | ${model.k_free} | ${fixed(model.chi_square_best_fit)} | ${fixed(model.aic)} | ${fixed(model.bic)} | ${model.dic_missing === null ? fixed(model.dic) : 'MISSING'} | ${fixed(model.dic_effective_parameters)} | ${model.sampler} |`);
   }
   if (document.nested_pairs.length > 0) {
     lines.push('', '## Nested pairs: ln B01 two ways', '', '| Pair | fixed in base | Savage-Dickey ln B01 | evidences ln B01 | difference / error |', '| :-- | :-- | --: | --: | --: |');

@@ -19,6 +19,8 @@ export interface ComparedModel {
   devianceDraws: number;
   /** Problems that make a number less trustworthy or absent, in words. */
   warnings: string[];
+  /** Why the DIC is left out (in words), or null when it was computed. */
+  dicMissing: string | null;
 }
 
 /**
@@ -28,7 +30,7 @@ export interface ComparedModel {
  * runs), the deviance at the posterior mean (evaluated with the rebuilt
  * likelihood; Spiegelhalter et al. 2002), and ln Z with its error for nested
  * runs. Without a rebuilt model, or when the mean is unphysical, the DIC is
- * left out and a warning says why. When run.json has no chi-square, -2 ln L
+ * left out, `dicMissing` says why and a warning starting `DIC missing` repeats it. When run.json has no chi-square, -2 ln L
  * at the best fit stands in for it (same data, so differences are unchanged).
  *
  * Cost: O(kept draws x parameters) plus one likelihood evaluation (two with a rebuilt model).
@@ -68,8 +70,9 @@ export function comparedModel(analyzed: AnalyzedRun, rebuilt: RebuiltRunModel | 
     fit.logZError = record.evidence.log_z_error;
   }
   if (!rebuilt) {
-    warnings.push(`${label}: the model could not be rebuilt from its run folder, so its DIC (which needs the likelihood at the posterior mean) is left out`);
-    return { record: fit, posteriorMean, devianceDraws: rows.length, warnings };
+    const reason = 'the model could not be rebuilt from its run folder, and the DIC needs the likelihood at the posterior mean';
+    warnings.push(`${label}: DIC missing: ${reason}`);
+    return { record: fit, posteriorMean, devianceDraws: rows.length, warnings, dicMissing: reason };
   }
   const { posterior } = rebuilt.model;
   const theta = (values: Record<string, number>) => Float64Array.from(posterior.names, (name) => values[name]);
@@ -80,12 +83,13 @@ export function comparedModel(analyzed: AnalyzedRun, rebuilt: RebuiltRunModel | 
   }
   const meanLogLikelihood = posterior.logLikelihood(theta(posteriorMean));
   if (!Number.isFinite(meanLogLikelihood)) {
-    warnings.push(`${label}: the posterior mean is unphysical (${posterior.rejectionReason(theta(posteriorMean)) ?? 'ln L is -Infinity'}), so the DIC is left out`);
-    return { record: fit, posteriorMean, devianceDraws: rows.length, warnings };
+    const reason = `the posterior mean is unphysical (${posterior.rejectionReason(theta(posteriorMean)) ?? 'ln L is -Infinity'})`;
+    warnings.push(`${label}: DIC missing: ${reason}`);
+    return { record: fit, posteriorMean, devianceDraws: rows.length, warnings, dicMissing: reason };
   }
   fit.devianceSamples = deviance;
   if (weights) fit.devianceWeights = weights;
   fit.devianceAtPosteriorMean = -2 * meanLogLikelihood;
   const draws = weights ? totalWeight ** 2 / compensatedSum(Float64Array.from(weights, (w) => w * w)) : rows.length;
-  return { record: fit, posteriorMean, devianceDraws: draws, warnings };
+  return { record: fit, posteriorMean, devianceDraws: draws, warnings, dicMissing: null };
 }

@@ -1,4 +1,4 @@
-import { isAbsolute, join, resolve } from 'node:path';
+import { join, resolve } from 'node:path';
 import { stringify } from 'yaml';
 import { parseConfigText } from '../config/index.js';
 import { CandelaError, type Issue } from '../errors.js';
@@ -16,22 +16,16 @@ export interface RebuiltRunModel {
   changedInputs: Array<{ path: string; recorded: string | null; current: string }>;
 }
 
-type PlainDataSet = { table?: { file?: unknown }; covariances?: Array<{ file?: unknown }> };
-
 /**
- * Paths in run.json are as the fit resolved them: absolute, or relative to
- * the folder `candela fit` ran in. Relative ones are resolved against the
- * current folder, so `candela compare` finds them when run from the same place.
+ * Name under which the stored configuration is parsed. run.json holds the
+ * paths as the fit resolved them: absolute, or relative to the folder
+ * `candela fit` ran in. Parsing the configuration as if it were a file in the
+ * current folder lets the config layer resolve every path it declares (tables,
+ * covariances, systematic modes, probe files, the output folder) the same way,
+ * so `candela compare` run from the fit's folder finds them all; no list of
+ * path keys is kept here.
  */
-function absolutePaths(configuration: unknown): Record<string, unknown> {
-  const copy = structuredClone(configuration) as Record<string, unknown> & { supernovae?: PlainDataSet[] };
-  const fix = (path: unknown) => (typeof path === 'string' && !isAbsolute(path) ? resolve(path) : path);
-  for (const set of copy.supernovae ?? []) {
-    if (set.table) set.table.file = fix(set.table.file);
-    for (const covariance of set.covariances ?? []) covariance.file = fix(covariance.file);
-  }
-  return copy;
-}
+const STORED_CONFIGURATION_NAME = 'run.json#configuration';
 
 /**
  * Rebuilds the posterior a run sampled, from run.json's resolved
@@ -51,7 +45,7 @@ function absolutePaths(configuration: unknown): Record<string, unknown> {
  */
 export function rebuildRunModel(run: RunOnDisk): RebuiltRunModel {
   const source = join(run.dir, RUN_FILES.run);
-  const parsed = parseConfigText(stringify(absolutePaths(run.record.configuration)), join(run.dir, RUN_FILES.resolvedConfig));
+  const parsed = parseConfigText(stringify(run.record.configuration), resolve(STORED_CONFIGURATION_NAME));
   if (!parsed.ok) {
     const issues: Issue[] = parsed.issues.filter((issue) => issue.severity !== 'warning').map((issue) => ({
       ...issue, code: 'compare.bad_configuration', file: source, message: `the configuration stored in run.json no longer validates: ${issue.message}`,

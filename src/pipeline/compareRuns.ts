@@ -5,7 +5,7 @@ import { CandelaError, isCandelaError } from '../errors.js';
 import { writeFileAtomic } from '../output/index.js';
 import { comparisonDocument } from './compareDocument.js';
 import { readComparedRuns } from './compareInputs.js';
-import { comparisonMarkdownDetails } from './compareMarkdownDetails.js';
+import { comparisonMarkdownDetails, dicMissingNotice } from './compareMarkdownDetails.js';
 import { comparedModel } from './compareModelRecord.js';
 import { detectNestedPairs, savageDickeyForPair } from './compareNestedPairs.js';
 import { rebuildRunModel, type RebuiltRunModel } from './compareRebuildModel.js';
@@ -46,7 +46,9 @@ export interface CompareOutcome {
  * (detectNestedPairs); for each, the Savage-Dickey ratio (Dickey 1971) from
  * the extended run's draws and the delta chi-square significance (Wilks
  * 1938) with its caution. Bayes factors against the base are read on the
- * Kass & Raftery (1995) scale (compareModels). Writes comparison.json,
+ * Kass & Raftery (1995) scale (compareModels). A model whose DIC cannot be
+ * computed says why in comparison.json (`dic_missing`), at the top of
+ * comparison.md and in the warnings. Writes comparison.json,
  * comparison.md and comparison.tex, and the dark-energy figures
  * (writeDarkEnergyFigures) as SVG and, when the base run's configuration
  * asks for PNG, PNG. Deterministic: seeds derive from the base run's seed.
@@ -70,7 +72,8 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
   const seed = `${runs[baseIndex].run.record.run.seed}/compare`;
   const warnings: string[] = [];
   const changedInputs: Array<{ model: string; path: string; recorded: string | null; current: string }> = [];
-  const rebuilt: Array<RebuiltRunModel | null> = runs.map(({ run }) => {
+  const rebuildFailures: Array<string | null> = runs.map(() => null);
+  const rebuilt: Array<RebuiltRunModel | null> = runs.map(({ run }, k) => {
     try {
       const result = rebuildRunModel(run);
       for (const change of result.changedInputs) {
@@ -80,11 +83,15 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
       return result;
     } catch (error) {
       if (!isCandelaError(error)) throw error;
-      warnings.push(`${run.record.model.label}: the model could not be rebuilt from ${run.dir}: ${error.issues.map((issue) => `${issue.message}${issue.file ? ` (${issue.file})` : ''}`).join('; ')}`);
+      rebuildFailures[k] = error.issues.map((issue) => `${issue.message}${issue.file ? ` (${issue.file})` : ''}`).join('; ');
+      warnings.push(`${run.record.model.label}: the model could not be rebuilt from ${run.dir}: ${rebuildFailures[k]}`);
       return null;
     }
   });
-  const models = runs.map((analyzed, k) => comparedModel(analyzed, rebuilt[k]));
+  const models = runs.map((analyzed, k) => {
+    const model = comparedModel(analyzed, rebuilt[k]);
+    return rebuildFailures[k] === null ? model : { ...model, dicMissing: `${model.dicMissing}: ${rebuildFailures[k]}` };
+  });
   for (const model of models) warnings.push(...model.warnings);
   const pairs = detectNestedPairs(runs).map((pair) => ({ pair, savageDickey: savageDickeyForPair(pair, `${seed}/savage-dickey/${pair.extended.run.record.model.label}`) }));
   const nestedPairs: NestedModelPair[] = pairs.map(({ pair, savageDickey }) => ({
@@ -102,7 +109,7 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
     figures: figures.written.flatMap((stem) => (png ? [`${stem}.svg`, `${stem}.png`] : [`${stem}.svg`])),
   });
   writeFileAtomic(join(request.outDir, COMPARISON_FILES.json), `${JSON.stringify(document, null, 2)}\n`);
-  writeFileAtomic(join(request.outDir, COMPARISON_FILES.markdown), report.markdown + comparisonMarkdownDetails(document));
+  writeFileAtomic(join(request.outDir, COMPARISON_FILES.markdown), dicMissingNotice(document) + report.markdown + comparisonMarkdownDetails(document));
   writeFileAtomic(join(request.outDir, COMPARISON_FILES.latex), report.latex);
   return { outDir: request.outDir, document, files: [COMPARISON_FILES.json, COMPARISON_FILES.markdown, COMPARISON_FILES.latex, ...document.figures], warnings };
 }
