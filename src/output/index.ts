@@ -67,6 +67,8 @@ export { traceStackFigure } from './figures/index.js';
 export { bandFigure } from './figures/index.js';
 export { svgToPng } from './figures/index.js';
 export { svgToPdf } from './figures/index.js';
+export { measurementRatioFigure } from './figures/index.js';
+export type { MeasurementGroup, MeasurementRatioFigureInput } from './figures/index.js';
 export { sampleWalkerTraces } from './figures/index.js';
 export { pruneContourIslands } from './density/pruneContourIslands.js';
 export type { FigureWidth, FontFace, WalkerLayout, WalkerTraceOptions } from './figures/index.js';

@@ -2,13 +2,14 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import {
   contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, densityGridCsv, hubbleFigure,
-  marginalDensityCsv, reportHtml, summaryCells, summaryLatex, summaryMarkdown, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
+  marginalDensityCsv, measurementRatioFigure, reportHtml, summaryCells, summaryLatex, summaryMarkdown, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
   type BinnedResidual, type ContourSet2D, type ReportFigure, type ReportRunFacts, type TraceParameterPanel,
 } from '../output/index.js';
 import { RELIABLE_STEPS_PER_TAU } from '../diagnostics/index.js';
 import { densityGrid2D } from '../math/index.js';
 import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
 import { readRunFolder, type RunOnDisk } from './runFiles.js';
+import { readProbeDiagrams } from './probeDiagramFiles.js';
 import { RUN_FILES } from './runFolder.js';
 import { summaryDocument } from './summaryDocument.js';
 import { nestedReportFacts } from './nestedReportFacts.js';
@@ -184,6 +185,10 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
   if (wanted.includes('hubble')) {
     const svg = hubbleSvg(run);
     if (svg) figures.push({ title: 'Hubble diagram and residuals at the best fit', svg, fileName: 'hubble' });
+  }
+  // Each probe term with a diagram (ProbeDefinition.diagram) draws its data against the fit, one figure per term.
+  for (const { key, diagram } of readProbeDiagrams(run.dir)) {
+    figures.push({ title: diagram.title, svg: measurementRatioFigure(diagram), fileName: `probe-${key}` });
   }
   // Traces show Markov chains; nested samples are not a chain, so nested runs have no trace figure.
   if (wanted.includes('trace') && analysis.method === 'ensemble') figures.push({ title: 'Traces (walker mean per ensemble); shaded: burn-in', svg: traceSvg(run, analysis), fileName: 'trace' });

@@ -1,3 +1,4 @@
+import { writeProbeDiagrams } from './probeDiagramFiles.js';
 import { join } from 'node:path';
 import { createCosmology } from '../cosmology/index.js';
 import { createRandomStream, deriveSeed, quantileOfSortedDraws } from '../math/index.js';
@@ -46,7 +47,6 @@ export function hubbleDiagramCsv(diagram: HubbleDiagram, samples: readonly strin
  */
 export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: EnsembleDraws[], burnInSteps: number, seed: string): void {
   const { posterior, supernovae } = model;
-  if (!supernovae) return; // a run of probes alone has no Hubble diagram
   const dimension = posterior.dimension;
   const rows: Array<{ ensemble: number; row: number }> = [];
   let best = { ensemble: 0, row: burnInSteps * ensembles[0].walkers, logProb: -Infinity };
@@ -58,6 +58,15 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: E
   });
   const pointOf = (ensemble: number, row: number) => ensembles[ensemble].positions.slice(row * dimension, (row + 1) * dimension);
   const bestValues = posterior.values(pointOf(best.ensemble, best.row));
+  if (model.probes.length > 0) {
+    const probeRandom = createRandomStream(deriveSeed(seed, 'probe-band'));
+    const probeDraws = Array.from({ length: Math.min(BAND_DRAWS, rows.length) }, () => {
+      const pick = rows[probeRandom.integer(rows.length)];
+      return posterior.values(pointOf(pick.ensemble, pick.row));
+    });
+    writeProbeDiagrams(runDir, model, bestValues, probeDraws);
+  }
+  if (!supernovae) return; // a run of probes alone has no Hubble diagram
   const diagram = supernovae.hubbleDiagram(bestValues);
   writeFileAtomic(join(runDir, RUN_FILES.hubbleData), hubbleDiagramCsv(diagram, model.samples));
 

@@ -5,5 +5,6 @@ export type { ProbeSettings } from './probeDefinition.js';
 export type { ProbeModel } from './probeDefinition.js';
 export type { LoadedProbe } from './probeDefinition.js';
 export type { SettingSpec } from './probeDefinition.js';
+export type { ProbeDiagram } from './probeDefinition.js';
 export { PROBES } from './registry.js';
 export { probeDefinition } from './registry.js';

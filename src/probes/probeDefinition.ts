@@ -7,7 +7,7 @@
  * Adding a probe is one folder with a definition plus one line in registry.ts.
  */
 import type { CosmologyFamily } from '../cosmology/index.js';
-import type { LikelihoodTerm } from '../likelihood/index.js';
+import type { LikelihoodTerm, ParameterValues } from '../likelihood/index.js';
 
 /** The kind of value a setting takes. `path`: a file, resolved against the configuration's folder. */
 export type SettingKind = 'path' | 'text' | 'number' | 'choice' | 'boolean';
@@ -56,6 +56,23 @@ export interface LoadedProbe {
   readonly describe: readonly string[];
 }
 
+/**
+ * A probe's data against its fit, as plain numbers for its figure: each
+ * quantity divided by a reference model, the data with 1-sigma errors, and the
+ * fitted curve (best fit and 68% band of the posterior draws).
+ */
+export interface ProbeDiagram {
+  title: string;
+  xLabel: string;
+  yLabel: string;
+  referenceLabel: string;
+  groups: Array<{
+    label: string;
+    points: { x: number[]; y: number[]; error: number[] };
+    curve: { x: number[]; best: number[]; low68: number[]; high68: number[] };
+  }>;
+}
+
 /** The declaration of one probe. */
 export interface ProbeDefinition {
   /** Key of its block under `probes:` in the configuration, and its term's name. */
@@ -73,4 +90,9 @@ export interface ProbeDefinition {
   load(block: ProbeBlock): LoadedProbe;
   /** The likelihood term for one model (allocates its buffers once). */
   createTerm(loaded: LoadedProbe, settings: ProbeSettings, model: ProbeModel): LikelihoodTerm;
+  /**
+   * The data-versus-model figure of the term, from the best fit and a set of
+   * posterior draws (optional: a probe without one draws no figure).
+   */
+  diagram?(loaded: LoadedProbe, settings: ProbeSettings, model: ProbeModel, best: ParameterValues, draws: readonly ParameterValues[]): ProbeDiagram | null;
 }

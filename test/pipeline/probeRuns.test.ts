@@ -39,6 +39,12 @@ describe('fits with probes', () => {
       expect(Math.abs(found.mean - mean), name).toBeLessThan(0.1 * sd + 4 * summary.diagnostics[name].mcse_mean);
       expect(Math.abs(found.sd / sd - 1), name).toBeLessThan(0.1);
     }
+    // The BAO term draws its own data-versus-model figure, and `report` draws it again byte for byte.
+    const figure = readFileSync(join(scratch, 'bao-only', 'figures', 'probe-bao.svg'), 'utf8');
+    expect(figure).toContain('D_H / r_d');
+    const again = await runCommandLine(['report', join(scratch, 'bao-only'), '--out', join(scratch, 'bao-only-report')]);
+    expect(again.code, again.stderr).toBe(0);
+    expect(readFileSync(join(scratch, 'bao-only-report', 'figures', 'probe-bao.svg'), 'utf8')).toBe(figure);
   });
 
   it('reports the chi-square of every term for supernovae + BAO, summing to the total', async () => {

@@ -12,6 +12,8 @@ export { sampleWalkerTraces } from './sampleWalkerTraces.js';
 export type { WalkerLayout, WalkerTraceOptions } from './sampleWalkerTraces.js';
 export { bandFigure } from './bandFigure.js';
 export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './bandFigure.js';
+export { measurementRatioFigure } from './measurementRatioFigure.js';
+export type { MeasurementGroup, MeasurementRatioFigureInput } from './measurementRatioFigure.js';
 export { svgToPng } from './svgToPng.js';
 export { svgToPdf } from './pdf/svgToPdf.js';
 export { withPngResolution } from './pngResolution.js';

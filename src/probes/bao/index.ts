@@ -1,5 +1,6 @@
 import type { ProbeDefinition } from '../probeDefinition.js';
 import { createBaoTerm, type BaoRuler } from './createBaoTerm.js';
+import { baoDiagram } from './baoDiagram.js';
 import { readBaoTable, type BaoTable } from './readBaoTable.js';
 
 /**
@@ -32,4 +33,5 @@ export const BAO_PROBE: ProbeDefinition = {
     };
   },
   createTerm: (loaded, settings, model) => createBaoTerm(loaded.data as BaoTable, settings.ruler as BaoRuler, model, 'bao'),
+  diagram: (loaded, settings, model, best, draws) => baoDiagram(loaded.data as BaoTable, settings.ruler as BaoRuler, model, best, draws),
 };
