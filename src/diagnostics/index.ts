@@ -19,6 +19,8 @@ export { MINIMUM_DRAWS_PER_CHAIN, CONSTANT_SPREAD_TOLERANCE } from './checkChain
 // Ensemble samplers
 export { integratedAutocorrelationTime, SOKAL_WINDOW_FACTOR, RELIABLE_STEPS_PER_TAU, RELIABLE_MAXIMUM_WINDOW_SHARE, MINIMUM_STEPS_FOR_TAU } from './integratedAutocorrelationTime.js';
 export type { AutocorrelationTimeEstimate } from './integratedAutocorrelationTime.js';
+export { ensembleAutocorrelation } from './ensembleAutocorrelation.js';
+export type { EnsembleAutocorrelation } from './ensembleAutocorrelation.js';
 export { acceptanceSummary, STUCK_SHARE_OF_MEDIAN } from './acceptanceSummary.js';
 export type { AcceptanceSummary } from './acceptanceSummary.js';
 export { chooseBurnIn, BURN_IN_TAU_MULTIPLE, MAXIMUM_BURN_IN_SHARE } from './chooseBurnIn.js';

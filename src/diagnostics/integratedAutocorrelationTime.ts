@@ -1,6 +1,6 @@
-import { CandelaError } from '../errors.js';
-import { assertUsableChains, CONSTANT_SPREAD_TOLERANCE } from './checkChains.js';
-import { createAutocovarianceWorkspace } from './autocovariance.js';
+import { ensembleAutocorrelation, MINIMUM_STEPS_FOR_TAU } from './ensembleAutocorrelation.js';
+
+export { MINIMUM_STEPS_FOR_TAU };
 
 /**
  * Window factor c of Sokal's automatic window: the smallest M with
@@ -26,9 +26,6 @@ export const RELIABLE_STEPS_PER_TAU = 50;
  */
 export const RELIABLE_MAXIMUM_WINDOW_SHARE = 0.1;
 
-/** Fewest steps per walker accepted (one lag needs two steps). */
-export const MINIMUM_STEPS_FOR_TAU = 2;
-
 /** Integrated autocorrelation time of one parameter, estimated from an ensemble. */
 export interface AutocorrelationTimeEstimate {
   /** tau, in steps: how many steps of one walker are worth one independent draw (floored, see below). */
@@ -49,11 +46,10 @@ export interface AutocorrelationTimeEstimate {
 
 /**
  * Integrated autocorrelation time of an ensemble chain, one series per walker:
- * - per walker, the normalized autocorrelation rho_w(t) = gamma_w(t) / gamma_w(0)
- *   from the FFT of the zero-padded series (biased autocovariance);
- * - rho(t) = mean over walkers of rho_w(t) (Goodman & Weare 2010, "Ensemble
- *   samplers with affine invariance", Comm. App. Math. Comp. Sci. 5(1), 65,
- *   sec. 4, measure tau this way for ensemble samplers);
+ * - rho(t), the normalized autocorrelation averaged over the walkers
+ *   (ensembleAutocorrelation; Goodman & Weare 2010, "Ensemble samplers with
+ *   affine invariance", Comm. App. Math. Comp. Sci. 5(1), 65, sec. 4, measure
+ *   tau this way for ensemble samplers);
  * - tau(M) = 1 + 2 sum_{t=1}^{M} rho(t), with M the smallest lag such that
  *   M >= c tau(M), c = 5: the automatic window of Sokal (1997, "Monte Carlo
  *   methods in statistical mechanics: foundations and new algorithms", in
@@ -70,46 +66,15 @@ export interface AutocorrelationTimeEstimate {
  * @example integratedAutocorrelationTime(walkersOfAnAr1Process).tauSteps // about (1 + phi)/(1 - phi)
  */
 export function integratedAutocorrelationTime(walkerSeries: readonly Float64Array[]): AutocorrelationTimeEstimate {
-  assertUsableChains(walkerSeries, MINIMUM_STEPS_FOR_TAU, 'walkers');
-  const steps = walkerSeries[0].length;
-  const workspace = createAutocovarianceWorkspace(steps);
-  const autocovariance = new Float64Array(steps);
-  const autocovarianceSecond = new Float64Array(steps);
-  const correlationSum = new Float64Array(steps);
-  const constantWalkers: number[] = [];
-  const accumulate = (series: Float64Array, walker: number, values: Float64Array): void => {
-    const variance = values[0];
-    if (!(variance > 0) || spreadOf(series) < CONSTANT_SPREAD_TOLERANCE) {
-      constantWalkers.push(walker);
-      return;
-    }
-    for (let lag = 0; lag < steps; lag++) correlationSum[lag] += values[lag] / variance;
-  };
-  // Two walkers per FFT (autocovariancePairInto): half the transforms.
-  let walker = 0;
-  for (; walker + 1 < walkerSeries.length; walker += 2) {
-    workspace.autocovariancePairInto(walkerSeries[walker], walkerSeries[walker + 1], autocovariance, autocovarianceSecond);
-    accumulate(walkerSeries[walker], walker, autocovariance);
-    accumulate(walkerSeries[walker + 1], walker + 1, autocovarianceSecond);
-  }
-  if (walker < walkerSeries.length) accumulate(walkerSeries[walker], walker, workspace.autocovarianceInto(walkerSeries[walker], autocovariance));
-  const walkersUsed = walkerSeries.length - constantWalkers.length;
-  if (walkersUsed === 0) {
-    throw new CandelaError({
-      code: 'diagnostics.constant_draws',
-      message: 'the autocorrelation time is undefined because no walker moved',
-      expected: 'walkers whose positions change',
-      found: `${walkerSeries.length} constant walkers`,
-      fix: 'check that the parameter is free and that the walkers were started apart',
-    });
-  }
+  const steps = walkerSeries[0]?.length ?? 0;
+  const { correlation, walkersUsed, constantWalkers } = ensembleAutocorrelation(walkerSeries);
 
   // A window always exists up to rounding (tau(steps - 1) = 0, see
   // RELIABLE_MAXIMUM_WINDOW_SHARE); the last lag is the fallback.
   let tauAtWindow = 1;
   let windowSteps = steps - 1;
   for (let lag = 1; lag < steps; lag++) {
-    tauAtWindow += (2 * correlationSum[lag]) / walkersUsed;
+    tauAtWindow += 2 * correlation[lag];
     if (lag >= SOKAL_WINDOW_FACTOR * tauAtWindow) {
       windowSteps = lag;
       break;
@@ -126,15 +91,4 @@ export function integratedAutocorrelationTime(walkerSeries: readonly Float64Arra
     effectiveSampleSize: (steps * walkersUsed) / tauSteps,
     reliable: steps >= RELIABLE_STEPS_PER_TAU * tauSteps && windowSteps <= RELIABLE_MAXIMUM_WINDOW_SHARE * steps,
   };
-}
-
-/** max - min of a series. */
-function spreadOf(series: Float64Array): number {
-  let smallest = Infinity;
-  let largest = -Infinity;
-  for (let index = 0; index < series.length; index++) {
-    if (series[index] < smallest) smallest = series[index];
-    if (series[index] > largest) largest = series[index];
-  }
-  return largest - smallest;
 }
