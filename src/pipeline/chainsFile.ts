@@ -87,12 +87,13 @@ export function chainHeader(columns: ChainColumns, weighted = false): string[] {
  * @param burnInSteps steps flagged as burn-in (0 for nested sampling).
  * @param weights optional posterior weight per row, in file order (all ensembles' rows
  *   concatenated); when given, a `weight` column is written before `burn_in`.
+ * @param selection the steps written (see chainsSelection; default every step); rows keep their true step numbers.
  * @throws CandelaError `output.write_failed` when the file system refuses (full disk, read-only), after removing the
  *   temporary file; `run.bad_weights` when the weight count differs from the row count.
  * @example writeChainsFile('out/chains.csv', { parameters: ['omega_m'], derived: [] }, [draws], 0, weights)
  */
-export function writeChainsFile(path: string, columns: ChainColumns, ensembles: EnsembleDraws[], burnInSteps: number, weights?: Float64Array): void {
-  const rowCount = ensembles.reduce((sum, draws) => sum + draws.steps * draws.walkers, 0);
+export function writeChainsFile(path: string, columns: ChainColumns, ensembles: EnsembleDraws[], burnInSteps: number, weights?: Float64Array, selection?: { first_step: number; every_steps: number; steps: number }): void {
+  const rowCount = ensembles.reduce((sum, draws) => sum + (selection ? selection.steps : draws.steps) * draws.walkers, 0);
   if (weights && weights.length !== rowCount) {
     throw new CandelaError({ code: 'run.bad_weights', file: path, message: 'one posterior weight per stored sample is needed', expected: `${rowCount} weights`, found: String(weights.length) });
   }
@@ -102,8 +103,9 @@ export function writeChainsFile(path: string, columns: ChainColumns, ensembles: 
     const derivedCount = columns.derived.length;
     let buffer: string[] = [];
     ensembles.forEach((draws, ensembleIndex) => {
-      const { steps, walkers, dimension, blobCount } = draws;
-      for (let step = 0; step < steps; step++) {
+      const { walkers, dimension, blobCount } = draws;
+      const { first_step: first, every_steps: every, steps: count } = selection ?? { first_step: 0, every_steps: 1, steps: draws.steps };
+      for (let step = first; step < first + count * every; step += every) {
         for (let walker = 0; walker < walkers; walker++) {
           const row = step * walkers + walker;
           const parts: string[] = [String(ensembleIndex), String(walker), String(step)];

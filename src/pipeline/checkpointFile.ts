@@ -154,25 +154,56 @@ export function readCheckpoint(runDir: string): { snapshot: SamplerSnapshot } & 
   }
   const { wallSeconds, evaluations } = saved;
   if (saved.chainRecordSteps === undefined) return { snapshot: saved.snapshot as SamplerSnapshot, wallSeconds, evaluations };
-  const recordPath = join(runDir, RUN_FILES.chainRecord);
   const steps = saved.snapshot.stepCount;
-  const shape: RecordShape = { ensembles: saved.snapshot.ensembles.length, walkers: saved.snapshot.options.walkers, dimension: saved.snapshot.options.dimension, blobCount: saved.snapshot.blobCount };
-  const { walkers, dimension, blobCount } = shape;
+  const { walkers, dimension } = saved.snapshot.options;
+  const blobCount = saved.snapshot.blobCount;
   const chains = saved.snapshot.ensembles.map(() => ({
     chainPositions: new Float64Array(steps * walkers * dimension), chainLogProb: new Float64Array(steps * walkers), chainBlobs: new Float64Array(steps * walkers * blobCount),
   }));
+  const shape: RecordShape = { ensembles: saved.snapshot.ensembles.length, walkers, dimension, blobCount };
+  visitChainRecord(runDir, shape, steps, (step, ensemble, positions, logProb, blobs) => {
+    chains[ensemble].chainPositions.set(positions, step * walkers * dimension);
+    chains[ensemble].chainLogProb.set(logProb, step * walkers);
+    chains[ensemble].chainBlobs.set(blobs, step * walkers * blobCount);
+  });
+  const ensembles = saved.snapshot.ensembles.map((live, k) => ({ ...live, ...chains[k] }) as EnsembleSnapshot);
+  return { snapshot: { ...saved.snapshot, ensembles } as SamplerSnapshot, wallSeconds, evaluations };
+}
+
+/** The layout of a chain record: ensembles, walkers, parameters and blobs per walker. */
+export type ChainRecordShape = RecordShape;
+
+/**
+ * Streams the first `steps` steps of the chain record of `runDir`, calling
+ * `visit` once per step and ensemble with views (valid during the call only)
+ * of that ensemble's walkers: positions (walkers x dimension), log
+ * posteriors (walkers) and blobs (walkers x blob count).
+ * Cost: O(steps x walkers x ensembles x (dimension + blobs)); memory one block of STEPS_PER_BLOCK steps.
+ * @param runDir the run folder.
+ * @param shape the layout the record must have.
+ * @param steps steps to read (the record may hold more).
+ * @param visit receives (step, ensemble, positions, logProb, blobs).
+ * @throws CandelaError `run.bad_checkpoint` when the record is missing, of another shape, or shorter than `steps`.
+ * @example visitChainRecord('out/run', shape, 1200, (step, k, positions) => { ... })
+ */
+export function visitChainRecord(
+  runDir: string, shape: ChainRecordShape, steps: number,
+  visit: (step: number, ensemble: number, positions: Float64Array, logProb: Float64Array, blobs: Float64Array) => void,
+): void {
+  const recordPath = join(runDir, RUN_FILES.chainRecord);
+  const { walkers, dimension, blobCount } = shape;
   const stepBytes = stepBytesOf(shape);
   let descriptor: number;
   try {
     descriptor = openSync(recordPath, 'r');
   } catch {
-    throw damagedRecord(recordPath, 'the chain record of the checkpoint is missing');
+    throw damagedRecord(recordPath, 'the chain record of the run is missing');
   }
   try {
     const header = Buffer.alloc(RECORD_HEADER_BYTES);
     readSync(descriptor, header, 0, RECORD_HEADER_BYTES, 0);
-    if (!header.equals(recordHeader(shape))) throw damagedRecord(recordPath, 'the chain record does not match the checkpoint (ensembles, walkers, parameters or blobs)');
-    if (fstatSync(descriptor).size < RECORD_HEADER_BYTES + steps * stepBytes) throw damagedRecord(recordPath, `the chain record holds fewer than the checkpoint's ${steps} steps`);
+    if (!header.equals(recordHeader(shape))) throw damagedRecord(recordPath, 'the chain record does not match the run (ensembles, walkers, parameters or blobs)');
+    if (fstatSync(descriptor).size < RECORD_HEADER_BYTES + steps * stepBytes) throw damagedRecord(recordPath, `the chain record holds fewer than the run's ${steps} steps`);
     const block = new Float64Array(STEPS_PER_BLOCK * (stepBytes / 8));
     const bytes = Buffer.from(block.buffer);
     for (let from = 0; from < steps; from += STEPS_PER_BLOCK) {
@@ -180,19 +211,18 @@ export function readCheckpoint(runDir: string): { snapshot: SamplerSnapshot } & 
       readSync(descriptor, bytes, 0, count * stepBytes, RECORD_HEADER_BYTES + from * stepBytes);
       let offset = 0;
       for (let step = from; step < from + count; step++) {
-        for (const chain of chains) {
-          chain.chainPositions.set(block.subarray(offset, offset + walkers * dimension), step * walkers * dimension);
+        for (let ensemble = 0; ensemble < shape.ensembles; ensemble++) {
+          const positions = block.subarray(offset, offset + walkers * dimension);
           offset += walkers * dimension;
-          chain.chainLogProb.set(block.subarray(offset, offset + walkers), step * walkers);
+          const logProb = block.subarray(offset, offset + walkers);
           offset += walkers;
-          chain.chainBlobs.set(block.subarray(offset, offset + walkers * blobCount), step * walkers * blobCount);
+          const blobs = block.subarray(offset, offset + walkers * blobCount);
           offset += walkers * blobCount;
+          visit(step, ensemble, positions, logProb, blobs);
         }
       }
     }
   } finally {
     closeSync(descriptor);
   }
-  const ensembles = saved.snapshot.ensembles.map((live, k) => ({ ...live, ...chains[k] }) as EnsembleSnapshot);
-  return { snapshot: { ...saved.snapshot, ensembles } as SamplerSnapshot, wallSeconds, evaluations };
 }

@@ -14,6 +14,8 @@ export { standardizeTable } from './standardizeTable.js';
 export type { StandardizedTable } from './standardizeTable.js';
 export { runFit, runFolderFor } from './runFit.js';
 export { FitInterrupted, isFitInterrupted } from './runFit.js';
+export { DEFAULT_CHAINS_CSV } from './chainsSelection.js';
+export type { ChainsCsvOption } from './chainsSelection.js';
 export type { FitRequest, FitProgress, FitOutcome } from './runFit.js';
 export { buildRunOutputs } from './buildRunOutputs.js';
 export { terminalRunReport } from './terminalRunReport.js';

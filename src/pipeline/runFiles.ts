@@ -1,7 +1,9 @@
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { CandelaError } from '../errors.js';
 import { readChainsFile, type ChainTable } from './chainsFile.js';
+import { chainRecordTable } from './chainRecordTable.js';
+import type { ChainsSelection } from './chainsSelection.js';
 import { RUN_FILES } from './runFolder.js';
 import type { NestedRunFacts } from './nestedRunRecord.js';
 import type { RunRecord } from './runRecord.js';
@@ -11,7 +13,10 @@ import type { RunRecord } from './runRecord.js';
  * record, which adds `sampler` (method and settings) and `evidence`. Records
  * without `sampler` come from the ensemble sampler.
  */
-export type StoredRunRecord = RunRecord & Partial<NestedRunFacts>;
+export type StoredRunRecord = RunRecord & Partial<NestedRunFacts> & {
+  /** The steps chains.csv holds (absent: every step, as runs before this field wrote). */
+  chains_csv?: ChainsSelection;
+};
 
 /**
  * The sampler that wrote a run: `nested` when run.json says so, else `ensemble`.
@@ -66,12 +71,33 @@ export function readRunFolder(dir: string): RunOnDisk {
   } catch {
     throw new CandelaError({ code: 'run.no_record', file: join(dir, RUN_FILES.run), message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
   }
-  const chains = readChainsFile(join(dir, RUN_FILES.chains));
-  if (samplerMethodOf(record) === 'ensemble') checkChainLayout(join(dir, RUN_FILES.chains), chains, record);
+  const chains = readRunChains(dir, record);
   const hubble = readCsvColumns(join(dir, RUN_FILES.hubbleData));
   const model = readCsvColumns(join(dir, RUN_FILES.hubbleModel));
   const hubbleModel = model ? Object.fromEntries(Object.entries(model).map(([name, values]) => [name, Float64Array.from(values, Number)])) : null;
   return { dir, record, chains, hubble: hubble ? { columns: hubble } : null, hubbleModel };
+}
+
+/**
+ * The chains the summaries use: chains.csv when it holds every step (checked
+ * against run.json for ensemble runs), else every step from the chain record.
+ */
+function readRunChains(dir: string, record: StoredRunRecord): ChainTable {
+  const path = join(dir, RUN_FILES.chains);
+  if (samplerMethodOf(record) !== 'ensemble') return readChainsFile(path);
+  if (record.chains_csv && record.chains_csv.keep !== 'all') {
+    if (!existsSync(join(dir, RUN_FILES.chainRecord))) {
+      throw new CandelaError({
+        code: 'run.no_chain_record', file: join(dir, RUN_FILES.chainRecord),
+        message: `chains.csv of this run holds only every ${record.chains_csv.every_steps}th step after the burn-in; the summaries and diagnostics need every step, from chain-record.bin, which is missing`,
+        fix: 'restore chain-record.bin from the run folder as `candela fit` wrote it',
+      });
+    }
+    return chainRecordTable(dir, record);
+  }
+  const chains = readChainsFile(path);
+  checkChainLayout(path, chains, record);
+  return chains;
 }
 
 /**

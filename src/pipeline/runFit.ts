@@ -10,6 +10,7 @@ import {
 } from '../sampler/index.js';
 import { writeFileAtomic } from '../output/index.js';
 import { readCheckpoint, writeCheckpoint } from './checkpointFile.js';
+import { chainsSelection, DEFAULT_CHAINS_CSV, type ChainsCsvOption, type ChainsSelection } from './chainsSelection.js';
 import { buildModel, type BuiltModel } from './buildModel.js';
 import { writeChainsFile } from './chainsFile.js';
 import { loadSupernovae, type LoadedSupernovae } from './loadSupernovae.js';
@@ -79,6 +80,8 @@ export interface FitRequest {
   onProgress?: (progress: FitProgress) => void;
   /** Informational lines (what is being run, where outputs go). */
   onLine?: (line: string) => void;
+  /** Which steps chains.csv holds (default DEFAULT_CHAINS_CSV: every step); the chain record always holds every step. */
+  chainsCsv?: ChainsCsvOption;
 }
 
 /** Progress of one model's sampling. */
@@ -300,13 +303,15 @@ async function fitOneModel(
     check = checkConvergence(sampler, rule);
     const wallSeconds = previousSeconds + (Date.now() - started) / 1000;
     const ensembles = Array.from({ length: sampler.options.ensembles }, (_, k) => ({ ...sampler.chain(k) }));
-    writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps);
+    const selection = chainsSelection(request.chainsCsv ?? DEFAULT_CHAINS_CSV, sampler.stepCount, check.burnInSteps, check.maxTau);
+    writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps, undefined, selection);
     const fullRecord = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, sampler });
-    const record: RunRecord & { part?: PartFacts } = part ? {
-      ...fullRecord,
+    const stored: RunRecord & { chains_csv?: ChainsSelection } = selection.keep === 'all' ? fullRecord : { ...fullRecord, chains_csv: selection };
+    const record: RunRecord & { part?: PartFacts; chains_csv?: ChainsSelection } = part ? {
+      ...stored,
       run: { ...fullRecord.run, ensembles: 1, target_ess: rule.targetEss },
       part: { index: part.index, model_index: part.modelIndex, ensemble: part.ensemble, ensembles_total: part.ensembles, part_target_ess: rule.targetEss, steps_target: maxSteps },
-    } : fullRecord;
+    } : stored;
     writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
     writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
     const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];

@@ -1,16 +1,17 @@
-import { copyFileSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { copyFileSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
 import { runFit } from '../../src/pipeline/index.js';
 import { pantheonBinnedConfig } from '../support/pantheonBinnedConfig.js';
+import { useScratchFolder } from '../support/scratchFolder.js';
 
 // `kill -9` then `--resume` for a run that stops at convergence: the resumed run must check convergence on the
 // same every-check_every schedule as an uninterrupted one, so it stops at the same step with the same chains.
 // Emulated by copying the step-100 checkpoint (checkpoint.bin and chain-record.bin) of an uninterrupted run (what a
-// killed process leaves) into a new folder and resuming there. Data: the Pantheon 2018 binned Hubble diagram (../shared/data-real/pantheon2018,
-// Scolnic et al. 2018); the loose targets make a check at step 100 already pass, so a resume that checked at once
-// would stop early.
-const scratch = resolve('.candela-tmp/resume-schedule');
+// killed process leaves) into a new folder and resuming there. Data: the Pantheon 2018 binned Hubble diagram
+// (../shared/data-real/pantheon2018, Scolnic et al. 2018); the loose targets make a check at step 100 already
+// pass, so a resume that checked at once would stop early.
+const scratch = useScratchFolder('resume-schedule');
 
 function writeConfig(name: string, checkEvery: number): string {
   const path = join(scratch, `${name}.yaml`);
@@ -23,12 +24,6 @@ function writeConfig(name: string, checkEvery: number): string {
   }));
   return path;
 }
-
-beforeAll(() => {
-  rmSync(scratch, { recursive: true, force: true });
-  mkdirSync(scratch, { recursive: true });
-});
-afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 
 describe('runFit resumed from a checkpoint between two convergence checks', () => {
   it('stops where the uninterrupted run stops, with the same chains', async () => {
