@@ -29,7 +29,8 @@ export function configToPlainObject(config: CandelaConfig, options: PlainConfigO
   return {
     title: config.title,
     seed: config.seed,
-    supernovae: config.supernovae.map((set) => dataSetToPlain(set, path)),
+    // A run of probes alone has no supernovae block (an empty list would not validate when read back).
+    ...(config.supernovae.length > 0 ? { supernovae: config.supernovae.map((set) => dataSetToPlain(set, path)) } : {}),
     standardization: {
       method: s.method,
       host_mass_step: {

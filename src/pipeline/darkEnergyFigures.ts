@@ -7,6 +7,9 @@ import type { RebuiltRunModel } from './compareRebuildModel.js';
 import { distanceDifferenceBands } from './darkEnergyFiguresDistance.js';
 import { equationOfStateBand } from './darkEnergyFiguresEquationOfState.js';
 
+/** Largest redshift of the w(z) band for runs without supernovae (BAO reach z ~ 2.3; common practice). */
+const PROBES_ONLY_MAX_REDSHIFT = 2.5;
+
 /** Width of PNG renderings, px (as for the run figures). */
 const PNG_WIDTH_PX = 1600;
 
@@ -60,7 +63,8 @@ export function writeDarkEnergyFigures(runs: readonly AnalyzedRun[], rebuilt: Re
   } else {
     skipped.push('posteriors_triangle: the runs share no sampled parameter');
   }
-  const zMax = Math.max(...runs.map(({ run }) => run.record.data.redshift_range[1]));
+  // Runs of probes alone have no supernova redshift range: their w(z) is drawn to z = 2.5, the reach of today's BAO.
+  const zMax = Math.max(...runs.map(({ run }) => (run.record.data.supernovae > 0 ? run.record.data.redshift_range[1] : PROBES_ONLY_MAX_REDSHIFT)));
   for (const analyzed of runs) {
     const input = equationOfStateBand(analyzed, zMax, `${options.seed}/w-of-z/${analyzed.run.record.model.label}`);
     if (input) save(`w_of_z_${analyzed.run.record.model.label}`, bandFigure(input, { idPrefix: `w-${analyzed.run.record.model.label}` }));
@@ -70,7 +74,9 @@ export function writeDarkEnergyFigures(runs: readonly AnalyzedRun[], rebuilt: Re
   if (distance && distance.input.bands.length > 0) {
     save('distance_modulus_difference', darkEnergyBandsFigure(distance.input, { xScale: 'log', idPrefix: 'delta-mu' }));
   } else {
-    skipped.push('distance_modulus_difference: the base model could not be rebuilt from its run folder (see the warnings)');
+    skipped.push(runs[baseIndex].run.record.data.supernovae === 0
+      ? 'distance_modulus_difference: the base run has no supernovae (the figure compares supernova distance moduli)'
+      : 'distance_modulus_difference: the base model could not be rebuilt from its run folder (see the warnings)');
   }
   return { written, skipped };
 }
