@@ -1,8 +1,6 @@
 import { CandelaError } from '../../errors.js';
 import { createAxisScale } from './axisScale.js';
 import { bandPathData } from './bandPathData.js';
-import { circleMarkersPathData } from './circleMarkersPathData.js';
-import { clippedErrorBars } from './clippedErrorBars.js';
 import { drawAxes } from './drawAxes.js';
 import type { LegendEntry } from './drawLegend.js';
 import { FIGURE_STYLE } from './figureStyle.js';
@@ -16,14 +14,14 @@ import { linePathData } from './linePathData.js';
 import { logTicks } from './logTicks.js';
 import { niceTicks } from './niceTicks.js';
 import { legendStrip } from './legendStrip.js';
-import { shapedMarkersPathData } from './markerPathData.js';
-import { LANTERN_COLORS, seriesColor, seriesMarkerShape } from './palette.js';
+import { LANTERN_COLORS } from './palette.js';
 import { clipPathElement, clippedGroup } from './plotFrame.js';
 import type { PlotFrame } from './plotFrame.js';
 import { residualRangeMag } from './residualRange.js';
 import { robustDataRange } from './robustDataRange.js';
 import { svgDocument } from './svgDocument.js';
 import { svgElement } from './svgElement.js';
+import { binnedMeanLayers, drawnSamples, sampleMarks, SUPERNOVA_MARKS } from './supernovaMarks.js';
 
 /** A binned mean residual (mag) at a redshift, with its one-sigma error (mag). */
 export interface BinnedResidual {
@@ -82,23 +80,11 @@ const X_AXIS_SPACE_PX = 40;
 const BOTTOM_PAD_PX = 4;
 /** Height of the two panels of a journal-width figure as a share of its width. */
 const JOURNAL_PANEL_ASPECT = 0.7;
-/** Figure width (px) at which markers have their full size; narrower figures get smaller markers (square-root scaling). */
-const FULL_MARKER_WIDTH_PX = 640;
 /** Share of the plotting height given to the upper (distance-modulus) panel. */
 const UPPER_PANEL_SHARE = 0.68;
 const PANEL_GAP_PX = 0;
 /** Share of the residual half-range within which residual ticks are placed. */
 const EDGE_FREE_SHARE = 0.9;
-/** Marker radius (px) for many supernovae and for binned data; error-bar opacity. */
-const MARKER_RADIUS_PX = 1.8;
-const BINNED_DATA_MARKER_RADIUS_PX = 2.8;
-const ERROR_BAR_OPACITY = 0.45;
-/** Bars cut at an axis are drawn faint and finely dashed, so a few huge errors do not cover the panel. */
-const CUT_BAR_OPACITY = 0.3;
-const CUT_BAR_DASH = '1 2';
-/** Binned means: open circle radius and stroke (px). */
-const BINNED_MEAN_RADIUS_PX = 3.2;
-const BINNED_MEAN_STROKE_PX = 1.2;
 /** Redshift axis padding factor on each side (log axis). */
 const REDSHIFT_PADDING_FACTOR = 1.12;
 /** Quantiles of the distance moduli that set the upper panel's range (the extreme 0.5% on each side may be cut). */
@@ -138,18 +124,11 @@ export function hubbleFigure(input: HubbleFigureInput, options: HubbleFigureOpti
   const bestFit = input.bestFitMuMag ?? interpolateModelMu(input.redshift, curve);
   const residual = Float64Array.from({ length: count }, (_, index) => input.muObsMag[index] - bestFit[index]);
   const binnedData = options.dataAreBinned === true;
-  const markerRadius = (binnedData ? BINNED_DATA_MARKER_RADIUS_PX : MARKER_RADIUS_PX) * Math.sqrt(Math.min(1, widthPx / FULL_MARKER_WIDTH_PX));
+  const markerRadius = (binnedData ? SUPERNOVA_MARKS.binnedDataMarkerRadiusPx : SUPERNOVA_MARKS.markerRadiusPx) * Math.sqrt(Math.min(1, widthPx / SUPERNOVA_MARKS.fullMarkerWidthPx));
   const plotWidth = widthPx - MARGIN.left - MARGIN.right;
 
   // Samples in order of first appearance, each with its members, colour, marker shape and shown name.
-  const codes = input.sample ? [...new Set(input.sample)] : ['supernovae'];
-  const samples = codes.map((code, sampleIndex) => ({
-    code,
-    name: options.sampleNames?.[code] ?? code,
-    members: Array.from({ length: count }, (_, index) => index).filter((index) => !input.sample || input.sample[index] === code),
-    color: seriesColor(sampleIndex),
-    shape: seriesMarkerShape(sampleIndex),
-  }));
+  const samples = drawnSamples(count, input.sample, options.sampleNames);
 
   let zLow = Infinity;
   let zHigh = -Infinity;
@@ -214,13 +193,11 @@ export function hubbleFigure(input: HubbleFigureInput, options: HubbleFigureOpti
     const z = pick(input.redshift);
     const errors = pick(input.muErrMag);
     const draw = (layers: string[], marks: string[], y: Float64Array, scale: typeof yUpper) => {
-      const cut = clippedErrorBars(z, y, errors, xScale, scale);
-      layers.push(svgElement('path', { class: 'error-bars', fill: 'none', stroke: sample.color, 'stroke-opacity': ERROR_BAR_OPACITY, 'stroke-width': FIGURE_STYLE.thinStrokePx, d: cut.bars }));
-      if (cut.cutBars) layers.push(svgElement('path', { class: 'cut-error-bars', fill: 'none', stroke: sample.color, 'stroke-opacity': CUT_BAR_OPACITY, 'stroke-width': FIGURE_STYLE.thinStrokePx, 'stroke-dasharray': CUT_BAR_DASH, d: cut.cutBars }));
-      layers.push(svgElement('path', { class: 'markers', fill: sample.color, stroke: 'none', 'data-sample': sample.code, d: shapedMarkersPathData(z, y, xScale, scale, markerRadius, sample.shape) }));
-      if (cut.marks) marks.push(svgElement('path', { class: 'cut-marks', fill: FIGURE_STYLE.background, stroke: sample.color, 'stroke-width': 0.8, 'data-sample': sample.code, d: cut.marks }));
+      const drawn = sampleMarks(sample, z, y, errors, xScale, scale, markerRadius);
+      layers.push(...drawn.layers);
+      marks.push(...drawn.marks);
       sample.members.forEach((member, position) => {
-        if (cut.cut[position]) cutPoints.add(member);
+        if (drawn.cut[position]) cutPoints.add(member);
       });
     };
     draw(upperLayers, upperMarks, pick(input.muObsMag), yUpper);
@@ -228,13 +205,7 @@ export function hubbleFigure(input: HubbleFigureInput, options: HubbleFigureOpti
   }
   upperLayers.push(svgElement('path', { class: 'model-curve', fill: 'none', stroke: modelColor, 'stroke-width': FIGURE_STYLE.lineStrokePx, d: linePathData(curve.z, median, xScale, yUpper) }));
   lowerLayers.push(svgElement('path', { class: 'model-curve', fill: 'none', stroke: modelColor, 'stroke-width': FIGURE_STYLE.lineStrokePx, d: linePathData(curve.z, zeros, xScale, yLower) }));
-  if (bins.length > 0) {
-    const binZ = bins.map((bin) => bin.z);
-    const binMean = bins.map((bin) => bin.mean);
-    const binBars = clippedErrorBars(binZ, binMean, bins.map((bin) => bin.err), xScale, yLower);
-    lowerLayers.push(svgElement('path', { class: 'binned-error-bars', fill: 'none', stroke: modelColor, 'stroke-width': BINNED_MEAN_STROKE_PX, d: binBars.bars + binBars.cutBars }));
-    lowerLayers.push(svgElement('path', { class: 'binned-markers', fill: FIGURE_STYLE.background, stroke: modelColor, 'stroke-width': BINNED_MEAN_STROKE_PX, d: circleMarkersPathData(binZ, binMean, xScale, yLower, BINNED_MEAN_RADIUS_PX) }));
-  }
+  if (bins.length > 0) lowerLayers.push(...binnedMeanLayers(bins, xScale, yLower));
   if (cutPoints.size > 0) entries.push({ label: `error bar beyond the axis (${cutPoints.size})`, color: modelColor, key: 'cut' });
   const zLabels = zTicks.major.map((value) => formatTickLabel(value));
   const stripTop = lower.topPx + lower.heightPx + X_AXIS_SPACE_PX;
