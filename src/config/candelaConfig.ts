@@ -114,6 +114,10 @@ export interface SupernovaDataSet {
   cuts: CutOptions;
   /** Largest accepted |z_helio - z| (dimensionless); larger is a data error. */
   maxRedshiftMismatch: number;
+  /** Names shown in figure legends for the codes of the `sample` column (code -> name; codes not listed are shown as they are). */
+  sampleNames: Record<string, string>;
+  /** The rows are already redshift bins (a compressed Hubble diagram): figures draw them as they are, without binning them again. */
+  binned: boolean;
 }
 
 /** How magnitudes become distance moduli (Tripp 1998 relation and error terms). */
@@ -188,7 +192,11 @@ export interface SamplerOptions {
   workers: 'auto' | number;
   /** Steps between checkpoints (0 = never). */
   checkpointEvery: number;
-  nested: { livePoints: number; dlogz: number; maxIterations: number };
+  /**
+   * Nested sampling: live points; stop once the live points could add at most
+   * `maxUnexploredLnZ` (nats) to ln Z; the iteration cap.
+   */
+  nested: { livePoints: number; maxUnexploredLnZ: number; maxIterations: number };
 }
 
 /** What to write and draw. */
@@ -202,6 +210,18 @@ export interface OutputOptions {
   smoothing: { kernel: 'gaussian' | 'none'; bandwidth: 'scott' | 'silverman' | number; factor: number };
   figures: FigureKind[];
   png: boolean;
+  /** Width of every figure: `screen` (the on-screen design width, 640 px), one journal column, both columns, or inches. */
+  figureWidth: 'screen' | 'single' | 'double' | { inches: number };
+  /** Text face of the figures. */
+  font: 'sans' | 'serif';
+  /** Also write each figure as PDF. */
+  pdf: boolean;
+  /** PNG resolution in dots per inch of the figure's printed width; null: 1600 px wide whatever the width. */
+  pngDpi: number | null;
+  /** Parameters of the triangle figure, in order; `auto`: every sampled one up to seven, else the cosmological ones. */
+  triangleParameters: 'auto' | string[];
+  /** A mock's truth.json (as `candela simulate` writes it): its values are marked in the triangle figure. Null: none. */
+  truthFile: ResolvedPath | null;
 }
 
 /** The whole validated configuration. */

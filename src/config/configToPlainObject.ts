@@ -64,7 +64,7 @@ export function configToPlainObject(config: CandelaConfig, options: PlainConfigO
       differential_evolution_weight: sampler.differentialEvolutionWeight, max_steps: sampler.maxSteps,
       check_every: sampler.checkEvery, target_ess: sampler.targetEss, max_rhat: sampler.maxRhat, max_minutes: sampler.maxMinutes,
       workers: sampler.workers, checkpoint_every: sampler.checkpointEvery,
-      nested: { live_points: sampler.nested.livePoints, dlogz: sampler.nested.dlogz, max_iterations: sampler.nested.maxIterations },
+      nested: { live_points: sampler.nested.livePoints, max_unexplored_ln_z: sampler.nested.maxUnexploredLnZ, max_iterations: sampler.nested.maxIterations },
     },
     output: {
       dir: path(output.dir),
@@ -72,6 +72,12 @@ export function configToPlainObject(config: CandelaConfig, options: PlainConfigO
       smoothing: { ...output.smoothing },
       figures: [...output.figures],
       png: output.png,
+      figure_width: typeof output.figureWidth === 'object' ? output.figureWidth.inches : output.figureWidth,
+      font: output.font,
+      pdf: output.pdf,
+      ...(output.pngDpi !== null ? { png_dpi: output.pngDpi } : {}),
+      triangle_parameters: output.triangleParameters === 'auto' ? 'auto' : [...output.triangleParameters],
+      ...(output.truthFile ? { truth_file: path(output.truthFile) } : {}),
     },
   };
 }
@@ -103,6 +109,8 @@ function dataSetToPlain(set: SupernovaDataSet, path: (p: ResolvedPath) => string
       drop_ids: [...cuts.dropIds],
     },
     max_redshift_mismatch: set.maxRedshiftMismatch,
+    ...(Object.keys(set.sampleNames).length > 0 ? { sample_names: { ...set.sampleNames } } : {}),
+    binned: set.binned,
   };
 }
 

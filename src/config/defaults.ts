@@ -119,7 +119,7 @@ export const DEFAULT_SAMPLER: SamplerOptions = {
   maxMinutes: 60,
   workers: 'auto',
   checkpointEvery: 500,
-  nested: { livePoints: 500, dlogz: 0.1, maxIterations: 200_000 },
+  nested: { livePoints: 500, maxUnexploredLnZ: 0.1, maxIterations: 200_000 },
 };
 
 /** Figures drawn when `output.figures` is absent. */
@@ -132,4 +132,10 @@ export const DEFAULT_OUTPUT: Omit<OutputOptions, 'dir'> & { dir: string } = {
   smoothing: { kernel: 'gaussian', bandwidth: 'scott', factor: 1 },
   figures: [...DEFAULT_FIGURES],
   png: true,
+  figureWidth: 'screen',
+  font: 'sans',
+  pdf: false,
+  pngDpi: null,
+  triangleParameters: 'auto',
+  truthFile: null,
 };

@@ -55,8 +55,8 @@ export function describeConfig(config: CandelaConfig): string[] {
       `${s.differentialEvolutionWeight > 0 ? `, ${s.differentialEvolutionWeight * 100}% differential-evolution moves` : ''}; ` +
       `stops when ESS >= ${s.targetEss} and R-hat <= ${s.maxRhat} (checked every ${s.checkEvery} steps), ` +
       `or after ${s.maxSteps} steps or ${s.maxMinutes} min; workers ${s.workers}`
-    : `sampler: nested sampling, ${s.nested.livePoints} live points, until the remaining evidence is below ` +
-      `dlogz = ${s.nested.dlogz} or after ${s.nested.maxIterations} iterations`);
+    : `sampler: nested sampling, ${s.nested.livePoints} live points, until the live points could add at most ` +
+      `${s.nested.maxUnexploredLnZ} to ln Z or after ${s.nested.maxIterations} iterations`);
   const o = config.output;
   lines.push(`output: ${o.dir.written}/<model label>/; figures ${o.figures.join(', ') || 'none'} (SVG${o.png ? ' + PNG' : ''}); ` +
     `contour pairs ${o.contourPairs === 'auto' ? 'auto' : o.contourPairs.map((p) => p.join('-')).join(', ')}`);

@@ -7,7 +7,9 @@ import type { ConfigReader, Located } from './configReader.js';
 import { DEFAULT_OUTPUT } from './defaults.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
 
-const KEYS = ['dir', 'contour_pairs', 'smoothing', 'figures', 'png'] as const;
+const KEYS = ['dir', 'contour_pairs', 'smoothing', 'figures', 'png', 'figure_width', 'font', 'pdf', 'png_dpi', 'triangle_parameters', 'truth_file'] as const;
+/** Widest figure accepted, inches (a full page is about 7 in; twice that is surely a typo). */
+const MAX_FIGURE_INCHES = 14;
 const SMOOTHING_KEYS = ['kernel', 'bandwidth', 'factor'] as const;
 
 /** Every figure kind, in drawing order. */
@@ -52,6 +54,33 @@ export function readOutput(reader: ConfigReader, at: Located): OutputOptions {
     options.figures = FIGURE_KINDS.filter((kind) => kinds.includes(kind));
   }
   options.png = reader.boolean(fields.get('png')) ?? options.png;
+  const width = fields.get('figure_width');
+  if (width?.node && isScalar(width.node) && typeof width.node.value === 'number') {
+    const inches = reader.number(width, { min: 0, exclusiveMin: true, max: MAX_FIGURE_INCHES, fix: 'write figure_width: single, double, screen, or a width in inches such as 5' });
+    if (inches !== undefined) options.figureWidth = { inches };
+  } else {
+    options.figureWidth = reader.choice(width, ['screen', 'single', 'double'] as const) ?? options.figureWidth;
+  }
+  options.font = reader.choice(fields.get('font'), ['sans', 'serif'] as const) ?? options.font;
+  options.pdf = reader.boolean(fields.get('pdf')) ?? options.pdf;
+  const dpi = fields.get('png_dpi');
+  if (dpi && dpi.node !== null && !(isScalar(dpi.node) && dpi.node.value === null)) {
+    options.pngDpi = reader.number(dpi, { min: 0, exclusiveMin: true, max: 2400 }) ?? options.pngDpi;
+  }
+  const triangle = fields.get('triangle_parameters');
+  if (triangle?.node && isScalar(triangle.node) && typeof triangle.node.value === 'string') {
+    options.triangleParameters = reader.choice(triangle, ['auto'] as const) ?? options.triangleParameters;
+  } else if (triangle) {
+    const names = (reader.list(triangle) ?? []).map((item) => reader.text(item)).filter((name): name is string => typeof name === 'string');
+    if (names.length > 0) options.triangleParameters = names;
+    else if (!reader.failedAt(triangle.path)) {
+      reader.report(triangle, 'config.empty_list', 'output.triangle_parameters lists no parameter', {
+        expected: 'auto, or a list of parameter names', found: 'an empty list', fix: 'write e.g. [omega_m, w0, wa], or auto',
+      });
+    }
+  }
+  const truth = reader.text(fields.get('truth_file'), { nullable: true });
+  if (typeof truth === 'string') options.truthFile = resolveConfigPath(reader.fileName, truth);
   return options;
 }
 

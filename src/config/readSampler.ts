@@ -11,7 +11,7 @@ const KEYS = [
   'method', 'walkers', 'ensembles', 'stretch_scale', 'differential_evolution_weight', 'max_steps', 'check_every',
   'target_ess', 'max_rhat', 'max_minutes', 'workers', 'checkpoint_every', 'nested',
 ] as const;
-const NESTED_KEYS = ['live_points', 'dlogz', 'max_iterations'] as const;
+const NESTED_KEYS = ['live_points', 'max_unexplored_ln_z', 'max_iterations'] as const;
 
 /**
  * Reads the sampler block, filling defaults. The walker count is checked
@@ -55,7 +55,7 @@ export function readSampler(reader: ConfigReader, at: Located): SamplerOptions {
   const nested = reader.mapping(get('nested'), NESTED_KEYS);
   if (nested) {
     options.nested.livePoints = reader.number(nested.get('live_points'), { integer: true, min: 2 }) ?? options.nested.livePoints;
-    options.nested.dlogz = reader.number(nested.get('dlogz'), { min: 0, exclusiveMin: true }) ?? options.nested.dlogz;
+    options.nested.maxUnexploredLnZ = reader.number(nested.get('max_unexplored_ln_z'), { min: 0, exclusiveMin: true }) ?? options.nested.maxUnexploredLnZ;
     options.nested.maxIterations = reader.number(nested.get('max_iterations'), { integer: true, min: 1 }) ?? options.nested.maxIterations;
   }
   const checkEvery = get('check_every');

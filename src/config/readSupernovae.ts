@@ -12,7 +12,7 @@ import { readLabel } from './readLabel.js';
 import { readSystematicModeSources } from './readSystematicModeSources.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
 
-const DATA_SET_KEYS = ['label', 'kind', 'table', 'columns', 'missing_values', 'covariances', 'systematic_modes', 'cuts', 'max_redshift_mismatch'] as const;
+const DATA_SET_KEYS = ['label', 'kind', 'table', 'columns', 'missing_values', 'covariances', 'systematic_modes', 'cuts', 'max_redshift_mismatch', 'sample_names', 'binned'] as const;
 const TABLE_KEYS = ['file', 'delimiter', 'comment', 'index_column', 'row_prefix'] as const;
 const KINDS: readonly SupernovaKind[] = ['light_curves', 'magnitudes'];
 
@@ -51,10 +51,22 @@ export function readSupernovae(reader: ConfigReader, at: Located): SupernovaData
     const systematicModes = readSystematicModeSources(reader, fields.get('systematic_modes'));
     const cuts = readCuts(reader, fields.get('cuts') ?? { node: null, path: `${item.path}.cuts`, anchor: item.node }, kind, columns);
     const mismatch = reader.number(fields.get('max_redshift_mismatch'), { min: 0, exclusiveMin: true });
+    const sampleNames = readSampleNames(reader, fields.get('sample_names'));
+    const binned = reader.boolean(fields.get('binned')) ?? false;
     if (!kind || !table) return;
-    sets.push({ label, kind, table, columns, missingValues, covariances, systematicModes, cuts, maxRedshiftMismatch: mismatch ?? DEFAULT_MAX_REDSHIFT_MISMATCH });
+    sets.push({ label, kind, table, columns, missingValues, covariances, systematicModes, cuts, maxRedshiftMismatch: mismatch ?? DEFAULT_MAX_REDSHIFT_MISMATCH, sampleNames, binned });
   });
   return sets;
+}
+
+/** `sample_names`: a mapping from codes of the `sample` column (numbers or words) to the names figure legends show. */
+function readSampleNames(reader: ConfigReader, at: Located | undefined): Record<string, string> {
+  const names: Record<string, string> = {};
+  for (const [code, value] of reader.mapping(at, null) ?? []) {
+    const name = reader.text(value, { numbersAsText: true });
+    if (typeof name === 'string') names[code] = name;
+  }
+  return names;
 }
 
 function readTable(reader: ConfigReader, at: Located | undefined): TableOptions | undefined {

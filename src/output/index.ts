@@ -14,6 +14,8 @@ export type { SummarizePosteriorOptions } from './summaries/summarizePosterior.j
 export type { ParameterDiagnostics } from './summaries/runSummary.js';
 export type { ParameterSummary } from './summaries/runSummary.js';
 export type { RunSummary } from './summaries/runSummary.js';
+export { runWarning } from './summaries/runWarning.js';
+export type { RunWarning } from './summaries/runWarning.js';
 
 // Rounding and number text (Particle Data Group rule).
 export { pdgRoundingPlace } from './summaries/pdgRoundingPlace.js';
@@ -65,10 +67,14 @@ export { hubbleFigure } from './figures/index.js';
 export { traceFigure } from './figures/index.js';
 export { traceStackFigure } from './figures/index.js';
 export { bandFigure } from './figures/index.js';
-export { svgToPng } from './figures/index.js';
-export { svgToPdf } from './figures/index.js';
+export { residualsFigure } from './figures/index.js';
+export type { ResidualsFigureInput, ResidualsFigureOptions } from './figures/index.js';
+export { autocorrelationFigure } from './figures/index.js';
+export type { AutocorrelationFigureOptions, AutocorrelationSeries } from './figures/index.js';
 export { measurementRatioFigure } from './figures/index.js';
 export type { MeasurementGroup, MeasurementRatioFigureInput } from './figures/index.js';
+export { svgToPng } from './figures/index.js';
+export { svgToPdf } from './figures/index.js';
 export { sampleWalkerTraces } from './figures/index.js';
 export { pruneContourIslands } from './density/pruneContourIslands.js';
 export type { FigureWidth, FontFace, WalkerLayout, WalkerTraceOptions } from './figures/index.js';
@@ -83,9 +89,13 @@ export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './figure
 // Report page: one self-contained HTML file per run.
 export { reportHtml } from './report/index.js';
 export { convergenceVerdicts } from './report/index.js';
-export type { ReportInput, ReportRunFacts, ReportSummaryTable, ReportDiagnostics, ReportDiagnosticRow, ReportFigure, ReportInputFile } from './report/index.js';
+export type { ReportInput, ReportRunFacts, ReportSummaryTable, ReportDiagnostics, ReportDiagnosticRow, ReportFigure, ReportInputFile, ReportWarning } from './report/index.js';
 export type { ConvergenceVerdicts, ParameterVerdict } from './report/index.js';
 export { summaryCells } from './tables/summaryCells.js';
+export { modelsLatex } from './tables/modelsLatex.js';
+export type { ModelColumn } from './tables/modelColumn.js';
+export { modelsIndexHtml } from './report/index.js';
+export type { ModelsIndexInput } from './report/index.js';
 export type { SummaryCells } from './tables/summaryCells.js';
 export { darkEnergyBandsFigure } from './figures/darkEnergyBandsFigure.js';
 export type { DarkEnergyBand, DarkEnergyBandsInput, DarkEnergyBandsOptions } from './figures/darkEnergyBandsFigure.js';

@@ -2,8 +2,12 @@ import { acceptanceSummary, RELIABLE_STEPS_PER_TAU, type ParameterDiagnostics } 
 import { diagnoseTraces } from './diagnoseTraces.js';
 import { densityGrid2D, kishEffectiveCount, marginalDensity1D, type HardBounds, type MarginalDensity1D } from '../math/index.js';
 import {
-  credibleContours, sampleStatistics, summarizePosterior, type ContourSet2D, type ParameterSummary, type RunSummary,
+  credibleContours, runWarning, sampleStatistics, summarizePosterior, type ContourSet2D, type ParameterSummary, type RunSummary, type RunWarning,
 } from '../output/index.js';
+import { fixedParameterNotes } from './fixedParameterNotes.js';
+import { goodnessOfFit, goodnessOfFitWarning, type GoodnessOfFit } from './goodnessOfFit.js';
+import { massStepConvention } from './massStepConvention.js';
+import { detectPriorEdges } from './priorEdgeLimits.js';
 import { arrayExtent } from './arrayExtent.js';
 import { samplerMethodOf, type RunOnDisk } from './runFiles.js';
 
@@ -43,11 +47,20 @@ export interface RunAnalysis {
   /** Mean acceptance fraction of the walkers (ensemble runs), else null. */
   acceptanceMean: number | null;
   stuckWalkers: number;
+  /** The stuck walkers, per ensemble (0-based walker indices within it); empty lists for nested runs. */
+  stuckWalkersByEnsemble: number[][];
   marginals: MarginalDensity1D[];
   contours: ContourSet2D[];
   pairs: Array<[string, string]>;
-  warnings: string[];
-  /** Ensemble runs: every stopping target met. Nested runs: the dlogz criterion was met. */
+  /**
+   * Every warning of the run, in the order printed: the data's and the
+   * likelihood's (from run.json), then those found in the chains (stuck
+   * walkers, short chains, prior edges, goodness of fit, fixed-H0 quantities).
+   */
+  warnings: RunWarning[];
+  /** Chi-square per degree of freedom at the best fit and its p-value (null without a chi-square). */
+  goodness: GoodnessOfFit | null;
+  /** Ensemble runs: every stopping target met. Nested runs: the remaining-evidence criterion was met. */
   converged: boolean;
 }
 
@@ -172,16 +185,21 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
   const weightOption = keptWeights ? { weights: keptWeights } : {};
   const keptColumn = (name: string) => Float64Array.from(kept, (r) => chains.columns[name][r]);
 
-  const warnings: string[] = [];
+  const warnings: RunWarning[] = [
+    ...(record.data.warnings ?? []).map((message) => runWarning('data', null, message)),
+    ...((record.likelihood as { warnings?: string[] }).warnings ?? []).map((message) => runWarning('likelihood_approximation', null, message)),
+  ];
   let diagnostics: Record<string, ParameterDiagnostics> = {};
   let acceptanceMean: number | null = null;
   let stuckWalkers = 0;
+  const stuckWalkersByEnsemble: number[][] = Array.from({ length: ensembles }, () => []);
   if (method === 'ensemble') {
     const result = ensembleDiagnostics(run, [...sampled, ...derived], { ensembles, walkers, steps, burnInSteps });
     diagnostics = result.diagnostics;
     acceptanceMean = result.accept.mean;
     stuckWalkers = result.accept.stuckWalkers.length;
-    if (stuckWalkers) warnings.push(`${stuckWalkers} walker(s) accepted far fewer proposals than the others (stuck): ${result.accept.stuckWalkers.slice(0, 10).join(', ')}`);
+    for (const flat of result.accept.stuckWalkers) stuckWalkersByEnsemble[Math.floor(flat / walkers)]?.push(flat % walkers);
+    if (stuckWalkers) warnings.push(runWarning('stuck_walkers', null, `${stuckWalkers} walker(s) accepted far fewer proposals than the others (stuck): ${result.accept.stuckWalkers.slice(0, 10).join(', ')}`, { stuck_walkers: stuckWalkers }));
   }
 
   const complete = [...sampled, ...derived].filter((name) => chains.columns[name].every(Number.isFinite) || kept.every((r) => Number.isFinite(chains.columns[name][r])));
@@ -197,7 +215,7 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
     const values = Float64Array.from(usable, (k) => column[k]);
     const usableWeights = keptWeights ? Float64Array.from(usable, (k) => keptWeights[k]) : null;
     const share = keptWeights ? usable.reduce((sum, k) => sum + keptWeights[k], 0) / keptWeights.reduce((sum, w) => sum + w, 0) : values.length / kept.length;
-    warnings.push(`${name} is undefined for ${((1 - share) * 100).toFixed(1)}% of the ${keptWeights ? 'posterior mass' : 'samples'} (e.g. no acceleration epoch); its summary uses the rest`);
+    warnings.push(runWarning('partly_undefined', name, `${name} is undefined for ${((1 - share) * 100).toFixed(1)}% of the ${keptWeights ? 'posterior mass' : 'samples'} (e.g. no acceleration epoch); its summary uses the rest`, { undefined_share: 1 - share }));
     if (values.length > 1) summary.parameters.push({ name, stats: sampleStatistics(values, { label: name, ...(usableWeights ? { weights: usableWeights } : {}) }), derived: true } as ParameterSummary);
   }
 
@@ -207,16 +225,37 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
     for (const name of sampled) {
       const d = diagnostics[name];
       if (!d || d.rhat === null || d.essBulk === null || d.rhat > record.run.max_rhat || d.essBulk < record.run.target_ess) converged = false;
-      if (d?.tau && steps < RELIABLE_STEPS_PER_TAU * d.tau) warnings.push(`the chain of ${name} is ${steps} steps, shorter than ${RELIABLE_STEPS_PER_TAU} autocorrelation times (tau = ${d.tau.toFixed(1)} steps): the tau estimate and the diagnostics are less reliable`);
+      if (d?.tau && steps < RELIABLE_STEPS_PER_TAU * d.tau) warnings.push(runWarning('short_chain', name, `the chain of ${name} is ${steps} steps, shorter than ${RELIABLE_STEPS_PER_TAU} autocorrelation times (tau = ${d.tau.toFixed(1)} steps): the tau estimate and the diagnostics are less reliable`, { steps, tau: d.tau, minimum_steps_per_tau: RELIABLE_STEPS_PER_TAU }));
     }
-    if (!converged) warnings.push(`the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`);
+    if (!converged) warnings.push(runWarning('not_converged', null, `the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`, { target_ess: record.run.target_ess, max_rhat: record.run.max_rhat }));
   } else {
     effectiveSampleSize = kishEffectiveCount(keptWeights ?? kept.length);
-    converged = record.sampler?.stop === 'dlogz';
-    warnings.push(`nested sampling: R-hat, ESS per chain and autocorrelation times are Markov-chain diagnostics and do not apply; the ${kept.length} weighted samples have a Kish effective sample size of ${effectiveSampleSize.toFixed(0)}`);
-    if (!converged) warnings.push(`nested sampling stopped at its iteration cap before the remaining evidence fell below dlogz = ${record.sampler?.dlogz}: ln Z and the posterior may be incomplete`);
-    if (effectiveSampleSize < MINIMUM_KISH_SAMPLES) warnings.push(`the Kish effective sample size ${effectiveSampleSize.toFixed(0)} is below ${MINIMUM_KISH_SAMPLES}: credible intervals and contours are noisy; raise sampler.nested.live_points`);
+    converged = record.sampler?.stop === 'max_unexplored_ln_z';
+    warnings.push(runWarning('chain_checks_not_applicable', null, `nested sampling: R-hat, ESS per chain and autocorrelation times are Markov-chain diagnostics and do not apply; the ${kept.length} weighted samples have a Kish effective sample size of ${effectiveSampleSize.toFixed(0)}`, { weighted_samples: kept.length, effective_sample_size_kish: effectiveSampleSize }));
+    if (!converged) warnings.push(runWarning('evidence_incomplete', null, `nested sampling stopped at its iteration cap before the ln Z the live points could still add fell below max_unexplored_ln_z = ${record.sampler?.max_unexplored_ln_z}: ln Z and the posterior may be incomplete`, { max_unexplored_ln_z: record.sampler?.max_unexplored_ln_z ?? Number.NaN, unexplored_ln_z: record.sampler?.remaining_log_z ?? Number.NaN }));
+    if (effectiveSampleSize < MINIMUM_KISH_SAMPLES) warnings.push(runWarning('few_effective_samples', null, `the Kish effective sample size ${effectiveSampleSize.toFixed(0)} is below ${MINIMUM_KISH_SAMPLES}: credible intervals and contours are noisy; raise sampler.nested.live_points`, { effective_sample_size_kish: effectiveSampleSize, minimum: MINIMUM_KISH_SAMPLES }));
   }
+
+  for (const name of sampled) {
+    const row = summary.parameters.find((p) => p.name === name);
+    if (!row) continue;
+    const edge = detectPriorEdges({ summary: row, bounds: priorBounds(run, name), bestFit: record.best_fit.parameters[name], draws: keptColumn(name), weights: keptWeights });
+    if (edge) warnings.push(edge);
+  }
+  const goodness = goodnessOfFit(record.best_fit.chi_square, record.best_fit.degrees_of_freedom);
+  const fitWarning = goodness ? goodnessOfFitWarning(goodness) : null;
+  if (fitWarning) warnings.push(fitWarning);
+  for (const term of (record.best_fit.terms ?? []).length > 1 ? record.best_fit.terms ?? [] : []) {
+    const termFit = goodnessOfFit(term.chi_square, term.degrees_of_freedom);
+    const termWarning = termFit ? goodnessOfFitWarning(termFit) : null;
+    if (termWarning) warnings.push({ ...termWarning, message: `${term.name}: ${termWarning.message}`, numbers: { ...termWarning.numbers } });
+  }
+  const configuration = record.configuration as { reference_h0?: number; standardization?: { host_mass_step?: { split_log_mass?: number } } };
+  const fixedNote = fixedParameterNotes(summary.parameters, {
+    sampled, fixed: record.parameters.fixed, referenceH0KmPerSPerMpc: configuration.reference_h0 ?? Number.NaN, radiation: record.model.radiation,
+  });
+  if (fixedNote) warnings.push(fixedNote);
+  massStepConvention(summary.parameters, configuration.standardization?.host_mass_step?.split_log_mass);
 
   const smoothing = smoothingOf(run);
   const marginals = sampled.map((name) => marginalDensity1D(name, keptColumn(name), { ...weightOption, bounds: priorBounds(run, name), ...smoothing }));
@@ -227,6 +266,6 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
   })));
   return {
     method, sampled, derived, summary, diagnostics, keptRows, keptWeights, keptSamples: kept.length, effectiveSampleSize, steps, burnInSteps, walkers, ensembles,
-    acceptanceMean, stuckWalkers, marginals, contours, pairs, warnings, converged,
+    acceptanceMean, stuckWalkers, stuckWalkersByEnsemble, marginals, contours, pairs, warnings, goodness, converged,
   };
 }

@@ -71,7 +71,7 @@ function equallyWeighted(draws: EnsembleDraws, weights: Float64Array, bestRow: n
 /**
  * `candela fit` with `sampler.method: nested`: nested sampling (Skilling 2004,
  * 2006; see runNestedSampling) of one model's posterior through its prior
- * transform and log-likelihood, with `sampler.nested` live points, dlogz and
+ * transform and log-likelihood, with `sampler.nested` live points, unexplored-ln Z bound and
  * iteration cap, seeded by the configuration's seed (same seed, same files).
  * Writes a run folder of the same shape as an ensemble run: chains.csv with a
  * `weight` column (normalized posterior weights; every dead point then the
@@ -82,7 +82,7 @@ function equallyWeighted(draws: EnsembleDraws, weights: Float64Array, bestRow: n
  *
  * Runs in the calling thread and cannot be interrupted part-way; there is no
  * checkpoint, so `--resume` does not apply to nested runs.
- * Cost: the nested run, about N (H + ln(1 / dlogz)) iterations of a few
+ * Cost: the nested run, about N (H + ln(1 / max_unexplored_ln_z)) iterations of a few
  * likelihood calls each, then one posterior evaluation per stored sample.
  * @param config the validated configuration.
  * @param index the model's index in config.models.
@@ -99,12 +99,12 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   const settings = config.sampler.nested;
   const seed = String(config.seed);
   const say = request.onLine ?? (() => undefined);
-  say(`model ${model.label}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; nested sampling with ${settings.livePoints} live points, dlogz ${settings.dlogz}`);
+  say(`model ${model.label}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; nested sampling with ${settings.livePoints} live points, until at most ${settings.maxUnexploredLnZ} of ln Z is unexplored`);
   for (const line of [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)]) say(`  ${line}`);
   const posterior = model.posterior;
   const result = runNestedSampling(
     { dimension: posterior.dimension, priorTransform: posterior.priorTransform, logLikelihood: posterior.logLikelihood },
-    { livePoints: settings.livePoints, dlogz: settings.dlogz, maxIterations: settings.maxIterations, seed, enlargement: DEFAULT_ELLIPSOID_ENLARGEMENT },
+    { livePoints: settings.livePoints, dlogz: settings.maxUnexploredLnZ, maxIterations: settings.maxIterations, seed, enlargement: DEFAULT_ELLIPSOID_ENLARGEMENT },
   );
   const weights = Float64Array.from(result.logWeights, Math.exp);
   const draws = storedDraws(model, result);
@@ -117,12 +117,12 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   const hubbleDraws = Math.max(MINIMUM_HUBBLE_DRAWS, Math.round(result.effectiveSampleSize));
   writeHubbleFiles(runDir, model, [equallyWeighted(draws, weights, best.row, hubbleDraws, seed)], 0, seed);
   buildRunOutputs([runDir], runDir);
-  say(`model ${model.label}: ln Z = ${result.logZ.toFixed(3)} +- ${result.logZError.toFixed(3)} after ${result.iterations} iterations (${result.likelihoodCalls} likelihood calls, ${result.stopReason === 'dlogz' ? 'dlogz reached' : 'iteration cap reached'}) in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
+  say(`model ${model.label}: ln Z = ${result.logZ.toFixed(3)} +- ${result.logZError.toFixed(3)} after ${result.iterations} iterations (${result.likelihoodCalls} likelihood calls, ${result.stopReason === 'dlogz' ? 'unexplored ln Z below its bound' : 'iteration cap reached'}) in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
   const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
   if (result.stopReason === 'iterations') {
     warnings.push({
       code: 'run.nested_iteration_cap', severity: 'warning', message: `nested sampling stopped at the iteration cap with ${result.remainingLogZ.toFixed(3)} nats of evidence still unaccounted for`,
-      expected: `remaining evidence below dlogz = ${settings.dlogz}`, fix: 'raise sampler.nested.max_iterations',
+      expected: `unexplored ln Z at most max_unexplored_ln_z = ${settings.maxUnexploredLnZ}`, fix: 'raise sampler.nested.max_iterations',
     });
   }
   return { model: model.label, runDir, record, warnings };

@@ -20,7 +20,7 @@ export function nestedReportFacts(record: StoredRunRecord, analysis: RunAnalysis
   const evidence = record.evidence;
   return {
     seed: record.run.seed, steps: record.run.steps, wallTimeSeconds: record.run.wall_seconds, version: record.tool.version, model: record.model.label,
-    stopReason: sampler?.stop === 'dlogz' ? `nested sampling: remaining evidence below dlogz = ${sampler.dlogz}` : 'nested sampling: iteration cap reached',
+    stopReason: sampler?.stop === 'max_unexplored_ln_z' ? `nested sampling: unexplored ln Z below max_unexplored_ln_z = ${sampler.max_unexplored_ln_z}` : 'nested sampling: iteration cap reached',
     extra: [
       { label: 'sampler', value: `nested sampling, ${sampler?.live_points} live points (convergence checks for Markov chains do not apply)` },
       { label: 'ln Z (evidence)', value: evidence ? `${evidence.log_z.toFixed(3)} ± ${evidence.log_z_error.toFixed(3)}` : 'n/a' },

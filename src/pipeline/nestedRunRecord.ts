@@ -9,12 +9,13 @@ export interface NestedRunFacts {
   sampler: {
     method: 'nested';
     live_points: number;
-    dlogz: number;
+    /** The configured bound on the ln Z the live points could still add, nats (`sampler.nested.max_unexplored_ln_z`). */
+    max_unexplored_ln_z: number;
     max_iterations: number;
     /** Volume enlargement of the bounding ellipsoids. */
     enlargement: number;
-    /** `dlogz`: the remaining-evidence criterion was met; `max_iterations`: the iteration cap was reached first. */
-    stop: 'dlogz' | 'max_iterations';
+    /** `max_unexplored_ln_z`: the unexplored ln Z fell below its bound; `max_iterations`: the iteration cap was reached first. */
+    stop: 'max_unexplored_ln_z' | 'max_iterations';
     /** Remaining-evidence estimate ln(Z + L_max X) - ln Z when the run stopped, nats. */
     remaining_log_z: number;
     /** Kish (1965) effective sample size of the posterior weights. */
@@ -38,7 +39,7 @@ export interface NestedBestSample {
  * Assembles run.json for a nested-sampling run: the same facts as an
  * ensemble run's record, where the chain layout reads as one ensemble of one
  * walker whose `steps` are the stored samples (dead points, then the final
- * live points), no burn-in, `stop_reason` `converged` when the dlogz
+ * live points), no burn-in, `stop_reason` `converged` when the unexplored-ln Z
  * criterion was met and `max_steps` when the iteration cap stopped the run;
  * plus `sampler` (method, settings, stop, Kish effective sample size) and
  * `evidence` (ln Z, its error, the information, iterations, likelihood calls).
@@ -67,10 +68,10 @@ export function createNestedRunRecord(input: {
     sampler: {
       method: 'nested',
       live_points: config.sampler.nested.livePoints,
-      dlogz: config.sampler.nested.dlogz,
+      max_unexplored_ln_z: config.sampler.nested.maxUnexploredLnZ,
       max_iterations: config.sampler.nested.maxIterations,
       enlargement: input.enlargement,
-      stop: result.stopReason === 'dlogz' ? 'dlogz' : 'max_iterations',
+      stop: result.stopReason === 'dlogz' ? 'max_unexplored_ln_z' : 'max_iterations',
       remaining_log_z: result.remainingLogZ,
       effective_sample_size: result.effectiveSampleSize,
     },

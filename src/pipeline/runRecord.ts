@@ -30,7 +30,8 @@ export interface RunRecord {
     cuts: Array<{ label: string; initial: number; final: number; steps: Array<{ cut: string; removed: number; remaining: number }> }>;
     warnings: string[];
   };
-  likelihood: { description: string[]; path: string };
+  /** How the likelihood is evaluated, and the approximations it warns about (frozen covariance, degeneracies). */
+  likelihood: { description: string[]; path: string; warnings?: string[] };
   best_fit: {
     parameters: Record<string, number>; chi_square: number | null;
     /** Per likelihood term: chi-square at the best fit, data points, free parameters it reads, and degrees of freedom (data - those parameters). */
@@ -127,7 +128,7 @@ export function commonRunSections(input: { config: CandelaConfig; modelIndex: nu
       })),
       warnings: data.warnings.map((w) => w.message),
     },
-    likelihood: { description: [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)], path: model.supernovae?.path ?? 'probes' },
+    likelihood: { description: [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)], path: model.supernovae?.path ?? 'probes', warnings: [...(model.supernovae?.warnings ?? [])] },
     best_fit: {
       parameters: bestParameters,
       chi_square: totalChiSquare,

@@ -28,6 +28,9 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
   const parameters = Object.fromEntries(analysis.summary.parameters.map((p) => [p.name, {
     mean: p.stats.mean, sd: p.stats.sd, median: p.stats.median, ci68: p.stats.ci68, ci95: p.stats.ci95, hdi68: p.stats.hdi68,
     map: p.stats.map ?? null, derived: Boolean(p.derived), samples: p.stats.count,
+    // A marginal cut by its prior quotes this one-sided limit instead of mean ± sd (see the prior_edge warning).
+    one_sided_limit: p.oneSidedLimit ? { side: p.oneSidedLimit.side, value: p.oneSidedLimit.value, mass: p.oneSidedLimit.mass } : null,
+    ...(p.note ? { note: p.note } : {}),
   }]));
   const diagnostics = Object.fromEntries(Object.entries(analysis.diagnostics).map(([name, d]) => [name, {
     rhat: d.rhat, rhat_walkers: d.rhatWalkers ?? null, ess_bulk: d.essBulk, ess_tail: d.essTail, tau: d.tau, mcse_mean: d.mcseMean,
@@ -42,7 +45,7 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
       note: 'nested sampling draws weighted samples, not Markov chains: R-hat, per-chain ESS and autocorrelation times do not apply',
       passed: analysis.converged,
       stop: record.sampler?.stop ?? null,
-      dlogz: record.sampler?.dlogz ?? null,
+      max_unexplored_ln_z: record.sampler?.max_unexplored_ln_z ?? null,
       remaining_log_z: record.sampler?.remaining_log_z ?? null,
       effective_sample_size_kish: analysis.effectiveSampleSize,
       weighted_samples: analysis.keptSamples,
@@ -57,7 +60,7 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
     };
   return {
     schema: SUMMARY_SCHEMA,
-    ...(nested ? { sampler: { method: 'nested', live_points: record.sampler?.live_points ?? null, dlogz: record.sampler?.dlogz ?? null } } : {}),
+    ...(nested ? { sampler: { method: 'nested', live_points: record.sampler?.live_points ?? null, max_unexplored_ln_z: record.sampler?.max_unexplored_ln_z ?? null } } : {}),
     title: record.title,
     model: record.model,
     parameters,
@@ -68,6 +71,8 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
       n_data: record.best_fit.n_data,
       n_free: record.best_fit.n_free,
       degrees_of_freedom: record.best_fit.degrees_of_freedom,
+      chi_square_per_degree_of_freedom: analysis.goodness?.reducedChiSquare ?? null,
+      p_value: analysis.goodness?.pValue ?? null,
       // Older run records (before per-term fits) hold the supernovae only.
       terms: record.best_fit.terms ?? [{ name: 'supernovae', chi_square: record.best_fit.chi_square, n_data: record.best_fit.n_data, n_free: record.best_fit.n_free, degrees_of_freedom: record.best_fit.degrees_of_freedom }],
       log_likelihood_max: record.best_fit.log_likelihood,
@@ -94,6 +99,7 @@ export function summaryDocument(run: RunOnDisk, analysis: RunAnalysis) {
     },
     likelihood: record.likelihood,
     data: record.data,
-    warnings: analysis.warnings,
+    // Every warning the terminal prints: code, parameter concerned, sentence and numbers.
+    warnings: analysis.warnings.map((w) => ({ code: w.code, parameter: w.parameter, message: w.message, numbers: w.numbers })),
   };
 }

@@ -19,9 +19,10 @@ export function terminalRunReport(runDir: string): string {
     terminalMarginals(analysis.marginals, { width: TERMINAL_COLUMNS - 20, height: 4 }),
   ];
   const terms = run.record.best_fit.terms ?? [];
-  if (run.record.best_fit.chi_square !== null) lines.push(`chi^2 at best fit = ${run.record.best_fit.chi_square.toFixed(2)} for ${run.record.best_fit.degrees_of_freedom} degrees of freedom (${run.record.best_fit.n_data} data points)`);
+  const goodness = analysis.goodness;
+  if (run.record.best_fit.chi_square !== null) lines.push(`chi^2 at best fit = ${run.record.best_fit.chi_square.toFixed(2)} for ${run.record.best_fit.degrees_of_freedom} degrees of freedom (${run.record.best_fit.n_data} data points)${goodness ? `; per degree of freedom ${goodness.reducedChiSquare.toFixed(3)}, p-value ${goodness.pValue.toPrecision(3)}` : ''}`);
   if (terms.length > 1) for (const term of terms) lines.push(`  ${term.name}: chi^2 = ${term.chi_square === null ? 'n/a' : term.chi_square.toFixed(2)} for ${term.n_data} data points`);
-  for (const warning of analysis.warnings) lines.push(`warning: ${warning}`);
+  for (const warning of analysis.warnings) lines.push(`warning [${warning.code}${warning.parameter ? `, ${warning.parameter}` : ''}]: ${warning.message}`);
   lines.push(`outputs: ${runDir} (report.html, summary.json, summary.md, table.tex, chains.csv, figures/, contours/, marginals/)`);
   return lines.join('\n');
 }

@@ -25,7 +25,7 @@ function writeConfig(name: string, seed: number): string {
     title: 'nested test', seed,
     models: '  - { label: flat_lcdm, dark_energy: lambda, curvature: flat }',
     parameters: '  omega_m: { prior: uniform, min: 0, max: 1 }',
-    sampler: `{ method: nested, nested: { live_points: ${LIVE_POINTS}, dlogz: 0.05 } }`,
+    sampler: `{ method: nested, nested: { live_points: ${LIVE_POINTS}, max_unexplored_ln_z: 0.05 } }`,
     output: `{ dir: ${join(scratch, name)}, figures: [triangle, hubble, trace], png: false }`,
   }));
   return path;
@@ -106,7 +106,7 @@ describe('fitNestedModel', () => {
 
   it('records the sampler and the evidence in run.json and states in summary.json that chain diagnostics do not apply', () => {
     const record = JSON.parse(readFileSync(join(outcome.runDir, 'run.json'), 'utf8'));
-    expect(record.sampler).toMatchObject({ method: 'nested', live_points: LIVE_POINTS, dlogz: 0.05, stop: 'dlogz' });
+    expect(record.sampler).toMatchObject({ method: 'nested', live_points: LIVE_POINTS, max_unexplored_ln_z: 0.05, stop: 'max_unexplored_ln_z' });
     for (const key of ['log_z', 'log_z_error', 'information_nats', 'iterations', 'likelihood_calls']) expect(Number.isFinite(record.evidence[key]), key).toBe(true);
     expect(record.evidence.likelihood_calls).toBeGreaterThan(record.evidence.iterations);
     const summary = JSON.parse(readFileSync(join(outcome.runDir, 'summary.json'), 'utf8'));

@@ -50,7 +50,7 @@ models:
 parameters:
   omega_m: { prior: uniform, min: 0, max: 1 }
   w0: { prior: uniform, min: -2, max: 0 }
-sampler: { method: nested, nested: { live_points: ${options.livePoints}, dlogz: 0.05 } }
+sampler: { method: nested, nested: { live_points: ${options.livePoints}, max_unexplored_ln_z: 0.05 } }
 output: { dir: ${join(folder, 'fits')}, figures: [triangle], png: false }
 `);
   return path;
@@ -119,7 +119,7 @@ describe.skipIf(!process.env.CANDELA_VALIDATE)('Savage-Dickey against evidences 
         seed,
         models: '  - { label: flat_lcdm, dark_energy: lambda, curvature: flat }',
         parameters: '  omega_m: { prior: uniform, min: 0, max: 1 }',
-        sampler: '{ method: nested, nested: { live_points: 200, dlogz: 0.05 } }',
+        sampler: '{ method: nested, nested: { live_points: 200, max_unexplored_ln_z: 0.05 } }',
         output: `{ dir: ${join(folder, 'fit')}, figures: [], png: false }`,
       }));
       if (Number.isNaN(quadrature)) {

@@ -4,7 +4,8 @@ import type { ReportInputFile } from './reportInput.js';
 
 /**
  * The provenance sections: the resolved configuration as escaped YAML in a
- * `<pre>` block, and a table of input files with size and SHA-256 digest, so
+ * `<pre>` block, and a table of input files (the path as written and, when it
+ * differs, as resolved; role; size) with their SHA-256 digest, so
  * a reader can check that a rerun used the same inputs.
  *
  * @param configurationYaml the configuration after defaults, as YAML text
@@ -21,7 +22,9 @@ export function provenanceSection(configurationYaml: string, inputFiles: readonl
   ]);
   const head = htmlElement('thead', {}, htmlElement('tr', {}, ['file', 'role', 'size (bytes)', 'SHA-256'].map((text) => htmlElement('th', { scope: 'col' }, text))));
   const rows = inputFiles.map((file) => htmlElement('tr', {}, [
-    htmlElement('td', {}, htmlElement('code', {}, escapeXml(file.path))),
+    htmlElement('td', {}, file.resolvedPath && file.resolvedPath !== file.path
+      ? [htmlElement('code', {}, escapeXml(file.path)), htmlElement('span', { class: 'resolved' }, [' → ', htmlElement('code', {}, escapeXml(file.resolvedPath))])]
+      : htmlElement('code', {}, escapeXml(file.path))),
     htmlElement('td', {}, escapeXml(file.role ?? '')),
     htmlElement('td', { class: 'number' }, file.sizeBytes === undefined ? '' : String(file.sizeBytes)),
     htmlElement('td', { class: 'digest' }, escapeXml(file.sha256)),

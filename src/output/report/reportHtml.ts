@@ -4,7 +4,7 @@ import { convergenceVerdicts } from './convergenceVerdicts.js';
 import { figuresSection } from './figuresSection.js';
 import { htmlElement } from './htmlElement.js';
 import { provenanceSection } from './provenanceSection.js';
-import type { ReportInput } from './reportInput.js';
+import type { ReportInput, ReportWarning } from './reportInput.js';
 import { REPORT_STYLE } from './reportStyle.js';
 import { runSection } from './runSection.js';
 import { summarySection } from './summarySection.js';
@@ -35,10 +35,13 @@ export function reportHtml(input: ReportInput): string {
   const symbols = input.symbols;
   const verdict = convergenceVerdicts(input.diagnostics);
   const failing = verdict.parameters.filter((parameter) => !parameter.pass).map((parameter) => parameter.parameter);
+  const warningCount = input.warnings?.length ?? 0;
+  // A passing verdict never stands alone while warnings (a prior edge, a poor fit) qualify the numbers.
+  const qualifier = warningCount > 0 ? `; ${warningCount} warning${warningCount === 1 ? '' : 's'} below qualify the results` : '';
   const verdictText = input.diagnostics.notApplicable !== undefined
-    ? 'Markov-chain convergence checks do not apply to this run'
+    ? `Markov-chain convergence checks do not apply to this run${qualifier}`
     : verdict.pass
-    ? '\u2713 every convergence check passes'
+    ? `\u2713 every convergence check passes${qualifier}`
     : verdict.parameters.length === 0
       ? '\u2717 no convergence numbers were given'
       : `\u2717 convergence checks fail for ${failing.join(', ')}`;
@@ -47,7 +50,7 @@ export function reportHtml(input: ReportInput): string {
     htmlElement('p', { class: `verdict ${verdict.pass || input.diagnostics.notApplicable !== undefined ? 'pass' : 'fail'}`, role: 'status' }, escapeXml(verdictText)),
   ]);
   const warnings = input.warnings?.length
-    ? htmlElement('aside', { class: 'warnings' }, [htmlElement('strong', {}, 'Warnings'), htmlElement('ul', {}, input.warnings.map((warning) => htmlElement('li', {}, escapeXml(warning))))])
+    ? htmlElement('aside', { class: 'warnings', id: 'warnings' }, [htmlElement('strong', {}, 'Warnings'), htmlElement('ul', {}, input.warnings.map(warningItem))])
     : '';
   const head = htmlElement('head', {}, [
     '\n',
@@ -81,4 +84,11 @@ export function reportHtml(input: ReportInput): string {
     '\n',
   ]);
   return `<!DOCTYPE html>\n${htmlElement('html', { lang: 'en' }, ['\n', head, '\n', body, '\n'])}\n`;
+}
+
+/** One warning as a list item: its kind (and parameter) in code type, then the sentence. */
+function warningItem(warning: string | ReportWarning): string {
+  if (typeof warning === 'string') return htmlElement('li', {}, escapeXml(warning));
+  const tag = `${warning.code}${warning.parameter ? ` · ${warning.parameter}` : ''}`;
+  return htmlElement('li', { 'data-code': warning.code }, `${htmlElement('code', {}, escapeXml(tag))} ${escapeXml(warning.message)}`);
 }

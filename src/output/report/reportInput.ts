@@ -28,7 +28,7 @@ export interface ReportSummaryTable {
   /** Column headings after the parameter column, e.g. ['median and 68% interval', '95% interval']. */
   columns: readonly string[];
   /** One row per parameter: its name and one text cell per column. */
-  rows: readonly { parameter: string; cells: readonly string[] }[];
+  rows: readonly { parameter: string; cells: readonly string[]; note?: string }[];
   /** Sentence shown under the table (how values and errors are defined). */
   note?: string;
 }
@@ -75,12 +75,22 @@ export interface ReportFigure {
 
 /** An input file and its SHA-256 digest (hex), computed by the caller. */
 export interface ReportInputFile {
+  /** The path as the user wrote it. */
   path: string;
+  /** The same path resolved against the configuration file's folder, when it differs from `path`. */
+  resolvedPath?: string;
   sha256: string;
   /** File size (bytes). */
   sizeBytes?: number;
   /** What the file is, e.g. 'supernova table', 'systematic covariance'. */
   role?: string;
+}
+
+/** A warning with its kind and the parameter it concerns (see the summaries' RunWarning). */
+export interface ReportWarning {
+  code: string;
+  parameter: string | null;
+  message: string;
 }
 
 /** Everything {@link reportHtml} puts on the page. */
@@ -93,8 +103,11 @@ export interface ReportInput {
   /** The configuration after defaults were filled in, as YAML text. */
   configurationYaml: string;
   inputFiles: readonly ReportInputFile[];
-  /** Warnings raised during the run, shown near the top. */
-  warnings?: readonly string[];
+  /**
+   * Warnings of the run, shown in the box at the top: plain sentences, or
+   * warning objects whose code and parameter are shown before the sentence.
+   */
+  warnings?: readonly (string | ReportWarning)[];
   /** Parameter symbols for table headings, replacing the output layer's parameterSymbols table. */
   symbols?: Readonly<Record<string, ParameterSymbol>>;
 }

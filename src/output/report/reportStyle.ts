@@ -28,6 +28,9 @@ thead th { border-bottom: 1.5px solid var(--ink); font-weight: 600; }
 tbody th { font-weight: 500; white-space: nowrap; }
 td.number, th.number { text-align: right; white-space: nowrap; }
 th .name, td .name { color: var(--muted); font-size: 0.8em; margin-left: 0.4em; font-family: ui-monospace, 'DejaVu Sans Mono', 'Liberation Mono', monospace; }
+th .qualifier { display: block; color: var(--muted); font-size: 0.78em; font-weight: normal; }
+.resolved { color: var(--muted); font-size: 0.85em; }
+.warnings code { font-size: 0.85em; margin-right: 0.3em; }
 .mark { font-weight: 700; margin-right: 0.25em; }
 .note { color: var(--muted); font-size: 0.88rem; margin: 0.3rem 0 0; }
 figure { margin: 1.2rem 0 1.8rem; padding: 0.6rem; background: #ffffff; border: 1px solid var(--rule); }

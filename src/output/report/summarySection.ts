@@ -19,7 +19,8 @@ export function parameterHeadingHtml(parameter: string, symbols?: Readonly<Recor
 
 /**
  * The "Parameter summary" section: one row per parameter, the caller's
- * already-rounded text cells right-aligned in tabular figures.
+ * already-rounded text cells right-aligned in tabular figures; a row's note
+ * (a sign convention, a quantity at a fixed H0) is printed under its name.
  *
  * @param table column headings, rows and an optional note
  * @param symbols parameter symbols for the first column (default: the output layer's table)
@@ -29,7 +30,7 @@ export function parameterHeadingHtml(parameter: string, symbols?: Readonly<Recor
 export function summarySection(table: ReportSummaryTable, symbols?: Readonly<Record<string, ParameterSymbol>>): string {
   const head = htmlElement('thead', {}, htmlElement('tr', {}, [htmlElement('th', { scope: 'col' }, 'parameter'), ...table.columns.map((column) => htmlElement('th', { scope: 'col', class: 'number' }, escapeXml(column)))]));
   const rows = table.rows.map((row) => htmlElement('tr', {}, [
-    htmlElement('th', { scope: 'row' }, parameterHeadingHtml(row.parameter, symbols)),
+    htmlElement('th', { scope: 'row' }, row.note ? [parameterHeadingHtml(row.parameter, symbols), htmlElement('span', { class: 'qualifier' }, escapeXml(row.note))] : parameterHeadingHtml(row.parameter, symbols)),
     ...table.columns.map((_, index) => htmlElement('td', { class: 'number' }, escapeXml(row.cells[index] ?? ''))),
   ]));
   return htmlElement('section', { id: 'summary' }, [

@@ -18,6 +18,15 @@ export interface ParameterSummary {
   diagnostics?: ParameterDiagnostics;
   /** True for quantities computed from the sampled ones (omega_k, age_gyr, ...). */
   derived?: boolean;
+  /**
+   * Set when the posterior is cut by a hard prior edge: tables then quote this
+   * one-sided limit instead of mean ± sd. `upper`: the parameter is below
+   * `value` with probability `mass` (the lower prior edge was touched);
+   * `lower`: above it (the upper edge was touched).
+   */
+  oneSidedLimit?: { side: 'upper' | 'lower'; value: number; mass: number };
+  /** A short qualifier printed beside the value, e.g. 'at fixed H0 = 70 km/s/Mpc'. */
+  note?: string;
 }
 
 /**

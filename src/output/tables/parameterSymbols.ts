@@ -27,6 +27,17 @@ export function escapeLatexText(text: string): string {
 }
 
 /**
+ * A note (a sign convention, a quantity at a fixed parameter) in LaTeX text
+ * mode: special characters escaped, comparison signs in math mode (in text
+ * mode they print as other glyphs with the default font encoding).
+ * @param note plain text.
+ * @example latexNote('> 0: hosts above 10^10 M_sun brighter') // '$>$ 0: hosts above 10\\textasciicircum{}10 M\\_sun brighter'
+ */
+export function latexNote(note: string): string {
+  return escapeLatexText(note).replace(/[<>]/g, (sign) => `$${sign}$`);
+}
+
+/**
  * The symbol of any parameter name: the table entry; for a per-sample name
  * (`sigma_int_LOWZ`) the base symbol with the sample as a superscript
  * (LaTeX `\sigma_{\rm int}^{\rm LOWZ}`, label 'σint[LOWZ]'); otherwise the

@@ -1,5 +1,5 @@
 import type { RunSummary } from '../summaries/runSummary.js';
-import { escapeLatexText, parameterSymbol } from './parameterSymbols.js';
+import { escapeLatexText, latexNote, parameterSymbol } from './parameterSymbols.js';
 import { summaryCells } from './summaryCells.js';
 
 /** Options of {@link summaryLatex}. */
@@ -48,6 +48,11 @@ export function summaryLatex(summary: RunSummary, options: SummaryLatexOptions =
     if (includeDiagnostics) row.push(...[cells.rHat, cells.essBulk, cells.essTail].map((text) => (text === '—' ? '--' : escapeLatexText(text))));
     lines.push(`${row.join(' & ')} \\\\`);
   }
-  lines.push('\\hline\\hline', '\\end{tabular}');
+  lines.push('\\hline\\hline');
+  // Notes (sign conventions, quantities at a fixed parameter) under the table, one row each.
+  for (const parameter of summary.parameters.filter((p) => p.note)) {
+    lines.push(`\\multicolumn{${header.length}}{l}{\\footnotesize $${parameterSymbol(parameter.name).latex}$: ${latexNote(parameter.note as string)}} \\\\`);
+  }
+  lines.push('\\end{tabular}');
   return lines.join('\n') + '\n';
 }

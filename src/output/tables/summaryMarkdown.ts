@@ -33,12 +33,14 @@ export function summaryMarkdown(summary: RunSummary): string {
   const lines: string[] = [`# Posterior summary${summary.title ? `: ${summary.title}` : ''}`, ''];
   lines.push(
     `${summary.sampleCount} samples. Mean ± standard deviation; median with the equal-tailed 68.27% interval as errors; ` +
-    'equal-tailed 95.45% interval; shortest 68.27% interval (HDI). Rounded by the Particle Data Group rule.', '',
+    'equal-tailed 95.45% interval; shortest 68.27% interval (HDI). Rounded by the Particle Data Group rule.' +
+    (rows.some((row) => row.parameter.oneSidedLimit) ? ' A marginal cut by a hard prior edge is quoted as a one-sided 95% limit instead of mean ± sd and median ± errors.' : ''), '',
   );
   lines.push(`| ${header.join(' | ')} |`);
   lines.push(`|${header.map((_, k) => (k === 0 ? ':--' : '--:')).join('|')}|`);
   for (const { parameter, cells, symbol } of rows) {
-    const name = `${symbol.label} \`${parameter.name}\`${symbol.unit ? ` [${symbol.unit}]` : ''}${parameter.derived ? ' (derived)' : ''}`;
+    const qualifiers = [...(parameter.derived ? ['derived'] : []), ...(parameter.note ? [parameter.note] : [])];
+    const name = `${symbol.label} \`${parameter.name}\`${symbol.unit ? ` [${symbol.unit}]` : ''}${qualifiers.length ? ` (${qualifiers.join('; ')})` : ''}`;
     const row = [name, cells.meanSd, cells.median68, cells.interval95, cells.hdi68];
     if (withMap) row.push(cells.map);
     if (withDiagnostics) row.push(cells.rHat, cells.essBulk, cells.essTail);

@@ -57,6 +57,7 @@ export function summaryTerminal(summary: RunSummary, options: SummaryTerminalOpt
   const line = (row: string[]): string => row.map((text, column) => fitWidth(text, widths[column], column > 0 && column !== 2)).join(GAP).trimEnd();
   const rule = '─'.repeat(Math.min(width, widths.reduce((sum, w) => sum + w, 0) + GAP.length * (widths.length - 1)));
   const lines = [line(header), rule, ...body.map(line)];
+  for (const parameter of summary.parameters.filter((p) => p.note)) lines.push(`${parameter.name}: ${parameter.note}`);
   if (flagged) lines.push(`! beyond the limits${options.rHatMax !== undefined ? ` R-hat <= ${options.rHatMax}` : ''}${options.essMin !== undefined ? ` ESS >= ${options.essMin}` : ''}`);
   return lines.join('\n') + '\n';
 }
