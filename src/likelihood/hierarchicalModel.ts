@@ -1,14 +1,9 @@
 import { CandelaError } from '../errors.js';
-import { createCosmology, type CosmologyOutcome, type CosmologyParameters } from '../cosmology/index.js';
-import { SPEED_OF_LIGHT_KM_PER_S } from '../math/index.js';
 import type { ParameterValues } from './likelihoodTerm.js';
 import { prepareHierarchicalData, type HierarchicalData } from './hierarchicalData.js';
 import { hierarchicalParameterNames, type HierarchicalParameterNames } from './hierarchicalParameterNames.js';
 import type { HierarchicalTermOptions } from './hierarchicalTermOptions.js';
-import { NOMINAL_H0_KM_PER_S_PER_MPC } from './supernovaModel.js';
-
-/** Relative headroom on the largest redshift, so rounding never leaves the cosmology's checked range (common practice). */
-const REDSHIFT_HEADROOM = 1e-9;
+import { checkFlowRedshifts, createHubbleFlowModuli } from './hubbleFlowModuli.js';
 
 /** The parameters at one point, in the form the evaluation loops use (reused record). */
 export interface HierarchicalPoint {
@@ -97,30 +92,17 @@ export function createHierarchicalModel(options: HierarchicalTermOptions): Hiera
   const { table } = options;
   const n = table.count;
   if (n < 1) throw new CandelaError({ code: 'likelihood.empty_sample', path: options.name, message: `likelihood term ${options.name} has no supernovae` });
-  for (let i = 0; i < n; i++) {
-    if (table.calibratorMu && Number.isFinite(table.calibratorMu[i])) continue;
-    if (!(table.redshift[i] > 0) || !(table.redshiftHelio[i] > -1)) {
-      throw new CandelaError({ code: 'likelihood.bad_redshift', file: table.sourceFile, line: table.sourceLine[i], message: 'a Hubble-flow supernova needs z > 0', found: String(table.redshift[i]) });
-    }
-  }
+  checkFlowRedshifts(table); // before the light-curve checks, so a z <= 0 row is named as such
   const data = prepareHierarchicalData(options);
   const frozen = data.dense !== null && options.standardization.alphaBetaCovariance === 'frozen';
   const names = hierarchicalParameterNames(options, frozen);
+  // The Hubble-flow distance moduli, shared with the conventional term (hubbleFlowModuli.ts).
+  const flowModel = createHubbleFlowModuli(table, options.cosmologyModel, {
+    omegaDarkEnergy: names.readsOmegaDarkEnergy, w0: names.readsW0, wa: names.readsWa, h0: names.readsH0,
+  });
+  const h0At = flowModel.h0At;
   const sampleCount = table.sampleNames.length;
   const sampleOfRow = table.sampleIndex;
-  const flow: number[] = [];
-  for (let i = 0; i < n; i++) if (!data.isCalibrator[i]) flow.push(i);
-  flow.sort((a, b) => table.redshift[a] - table.redshift[b]);
-  const flowRows = Int32Array.from(flow);
-  const sortedRedshifts = Float64Array.from(flow, (i) => table.redshift[i]);
-  const helioTerm = Float64Array.from(flow, (i) => 5 * Math.log10(1 + table.redshiftHelio[i]));
-  const distances = new Float64Array(flow.length);
-  const cosmologyParameters: CosmologyParameters = {
-    darkEnergy: options.cosmologyModel.darkEnergy, flat: options.cosmologyModel.flat, omegaMatter: NaN, h0KmPerSPerMpc: NOMINAL_H0_KM_PER_S_PER_MPC,
-    cmbTemperatureK: options.cosmologyModel.cmbTemperatureK, effectiveNeutrinoSpecies: options.cosmologyModel.effectiveNeutrinoSpecies,
-  };
-  const cosmologyOptions = { maxRedshift: (flow.length ? sortedRedshifts[flow.length - 1] : 0) * (1 + REDSHIFT_HEADROOM) };
-  const h0At = (p: ParameterValues): number => (names.readsH0 ? p.h0 : NOMINAL_H0_KM_PER_S_PER_MPC);
   const point: HierarchicalPoint = {
     alpha: NaN, beta: NaN, massStep: 0, stretchSlope: 0, colorSlope: 0,
     stretchMean: new Float64Array(sampleCount), colorMean: new Float64Array(sampleCount),
@@ -158,33 +140,10 @@ export function createHierarchicalModel(options: HierarchicalTermOptions): Hiera
     return null;
   };
 
-  const fillModuli = (p: ParameterValues): string | null => {
-    if (!(h0At(p) > 0 && h0At(p) < Infinity)) return `parameter h0 = ${p.h0} must be a positive finite number`;
-    const hubble = 5 * Math.log10(SPEED_OF_LIGHT_KM_PER_S / h0At(p)) + 25;
-    if (flowRows.length) {
-      cosmologyParameters.omegaMatter = p.omega_m;
-      if (names.readsOmegaDarkEnergy) cosmologyParameters.omegaDarkEnergy = p.omega_de;
-      if (names.readsW0) cosmologyParameters.w0 = p.w0;
-      if (names.readsWa) cosmologyParameters.wa = p.wa;
-      cosmologyParameters.h0KmPerSPerMpc = h0At(p);
-      const outcome: CosmologyOutcome = createCosmology(cosmologyParameters, cosmologyOptions);
-      if (!outcome.ok) return outcome.reason;
-      outcome.cosmology.transverseComovingDistancesHubbleUnits(sortedRedshifts, distances);
-      for (let k = 0; k < flowRows.length; k++) {
-        if (!(distances[k] > 0)) {
-          return `transverse comoving distance ${distances[k].toPrecision(4)} c/H0 at z = ${sortedRedshifts[k]} is not positive (beyond the antipode of a closed universe)`;
-        }
-        modelModulus[flowRows[k]] = hubble + helioTerm[k] + 5 * Math.log10(distances[k]);
-      }
-    }
-    for (let i = 0; i < n; i++) if (data.isCalibrator[i]) modelModulus[i] = (table.calibratorMu as Float64Array)[i];
-    return null;
-  };
-
   return {
     options, data, names, count: n, sampleCount, frozen, point, modelModulus, h0At,
     residual(p, out) {
-      const problem = readPoint(p) ?? fillModuli(p);
+      const problem = readPoint(p) ?? flowModel.moduli(p, modelModulus);
       if (problem) return problem;
       const { alpha, beta, massStep, stretchSlope, colorSlope, stretchMean, colorMean } = point;
       const observed = data.observed;

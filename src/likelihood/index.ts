@@ -33,7 +33,7 @@ export type { HubbleDiagram } from './supernovaTermOptions.js';
 export { createSupernovaTerm } from './createSupernovaTerm.js';
 export { DEFAULT_COMPRESSION_TOLERANCE } from './createSupernovaTerm.js';
 export { AUTO_COMPRESSION_MIN_DIAGONAL_COUNT } from './createSupernovaTerm.js';
-export { NOMINAL_H0_KM_PER_S_PER_MPC } from './supernovaModel.js';
+export { NOMINAL_H0_KM_PER_S_PER_MPC } from './hubbleFlowModuli.js';
 // hierarchical (latent stretch and colour) supernova term
 export type { HierarchicalTermOptions } from './hierarchicalTermOptions.js';
 export type { HierarchicalTerm } from './hierarchicalTermOptions.js';

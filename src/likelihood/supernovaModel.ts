@@ -1,22 +1,11 @@
 import { CandelaError } from '../errors.js';
-import { createCosmology, type Cosmology, type CosmologyOutcome, type CosmologyParameters } from '../cosmology/index.js';
-import { SPEED_OF_LIGHT_KM_PER_S } from '../math/index.js';
+import type { Cosmology, CosmologyOutcome } from '../cosmology/index.js';
+import { createHubbleFlowModuli } from './hubbleFlowModuli.js';
 import { requireLightCurves, trippCorrectedMagnitudes, type TrippCoefficients } from '../standardize/index.js';
 import type { ParameterValues } from './likelihoodTerm.js';
 import { createSupernovaCovarianceModel, type SupernovaCovarianceModel } from './supernovaCovarianceModel.js';
 import { supernovaParameterNames, type SupernovaParameterNames } from './supernovaParameterNames.js';
 import type { SupernovaTermOptions } from './supernovaTermOptions.js';
-
-/**
- * H0 used for the model distance moduli when the term does not read h0 (offset
- * marginalized, no calibrators, no radiation): only M + 5 log10(c/H0) is then
- * constrained, and the reported absolute magnitude refers to this H0
- * (the common H0 = 70 km/s/Mpc convention of supernova compilations; common practice).
- */
-export const NOMINAL_H0_KM_PER_S_PER_MPC = 70;
-
-/** Relative headroom on the largest redshift, so that node redshifts rounded through ln(1+z) and back stay inside the cosmology's range. */
-const REDSHIFT_HEADROOM = 1e-9;
 
 /**
  * Everything the evaluation paths share (private helper of the supernova term):
@@ -76,25 +65,11 @@ export function createSupernovaModel(options: SupernovaTermOptions): SupernovaMo
   const names = supernovaParameterNames(options);
   if (names.readsAlphaBeta) requireLightCurves(table); // throws CandelaError now rather than in the hot path
   const sampleCount = names.intrinsicNames.length;
-  const isCalibrator = new Uint8Array(n);
-  const flow: number[] = [];
-  for (let i = 0; i < n; i++) {
-    if (table.calibratorMu && Number.isFinite(table.calibratorMu[i])) isCalibrator[i] = 1;
-    else {
-      if (!(table.redshift[i] > 0) || !(table.redshiftHelio[i] > -1)) {
-        throw new CandelaError({ code: 'likelihood.bad_redshift', file: table.sourceFile, line: table.sourceLine[i], message: 'a Hubble-flow supernova needs z > 0', found: String(table.redshift[i]) });
-      }
-      flow.push(i);
-    }
-  }
-  flow.sort((a, b) => table.redshift[a] - table.redshift[b]);
+  const flowModel = createHubbleFlowModuli(table, options.cosmologyModel, {
+    omegaDarkEnergy: names.readsOmegaDarkEnergy, w0: names.readsW0, wa: names.readsWa, h0: names.readsH0,
+  });
+  const { isCalibrator, flowRows, cosmologyAt, flowShape, hubbleTerm, h0At } = flowModel;
   const covariance = createSupernovaCovarianceModel(table, options.covariances, standardization.scatter, table.sampleIndex, sampleCount, isCalibrator, options.systematicModes);
-  const flowRows = Int32Array.from(flow);
-  const sortedRedshifts = Float64Array.from(flow, (i) => table.redshift[i]);
-  const distances = new Float64Array(flow.length);
-  const helioTerm = Float64Array.from(flow, (i) => 5 * Math.log10(1 + table.redshiftHelio[i]));
-  const maxFlowRedshift = flow.length ? sortedRedshifts[flow.length - 1] : 0;
-
   const fixed = options.fixed ?? {};
   const frozen = names.readsAlphaBeta && standardization.alphaBetaCovariance === 'frozen';
   let frozenAt = standardization.frozenAt;
@@ -107,24 +82,8 @@ export function createSupernovaModel(options: SupernovaTermOptions): SupernovaMo
   const alphaBetaVary = names.readsAlphaBeta && !frozen && !('alpha' in fixed && 'beta' in fixed);
   const covarianceVaries = alphaBetaVary || names.intrinsicNames.some((name) => !(name in fixed));
 
-  const cosmologyParameters: CosmologyParameters = {
-    darkEnergy: options.cosmologyModel.darkEnergy, flat: options.cosmologyModel.flat, omegaMatter: NaN,
-    omegaDarkEnergy: undefined, w0: undefined, wa: undefined, h0KmPerSPerMpc: NOMINAL_H0_KM_PER_S_PER_MPC,
-    cmbTemperatureK: options.cosmologyModel.cmbTemperatureK, effectiveNeutrinoSpecies: options.cosmologyModel.effectiveNeutrinoSpecies,
-  };
-  const cosmologyOptions = { maxRedshift: maxFlowRedshift * (1 + REDSHIFT_HEADROOM) };
   const coefficients: TrippCoefficients = { alpha: 0, beta: 0, massStepMag: 0 };
   const shape = new Float64Array(n);
-  const h0At = (p: ParameterValues): number => (names.readsH0 ? p.h0 : NOMINAL_H0_KM_PER_S_PER_MPC);
-
-  const cosmologyAt = (p: ParameterValues): CosmologyOutcome => {
-    cosmologyParameters.omegaMatter = p.omega_m;
-    if (names.readsOmegaDarkEnergy) cosmologyParameters.omegaDarkEnergy = p.omega_de;
-    if (names.readsW0) cosmologyParameters.w0 = p.w0;
-    if (names.readsWa) cosmologyParameters.wa = p.wa;
-    cosmologyParameters.h0KmPerSPerMpc = h0At(p);
-    return createCosmology(cosmologyParameters, cosmologyOptions);
-  };
   const standardize = (p: ParameterValues, out: Float64Array): void => {
     if (!names.readsAlphaBeta) {
       out.set(table.magnitude as Float64Array);
@@ -135,23 +94,11 @@ export function createSupernovaModel(options: SupernovaTermOptions): SupernovaMo
     coefficients.massStepMag = names.readsMassStep ? p.mass_step : 0;
     trippCorrectedMagnitudes(table, coefficients, standardization.massStep, out);
   };
-  const flowShape = (cosmology: Cosmology, out: Float64Array): string | null => {
-    cosmology.transverseComovingDistancesHubbleUnits(sortedRedshifts, distances);
-    for (let k = 0; k < flowRows.length; k++) {
-      const distance = distances[k];
-      if (!(distance > 0)) {
-        return `transverse comoving distance ${distance.toPrecision(4)} c/H0 at z = ${sortedRedshifts[k]} is not positive (beyond the antipode of a closed universe)`;
-      }
-      out[flowRows[k]] = helioTerm[k] + 5 * Math.log10(distance);
-    }
-    return null;
-  };
-  const hubbleTerm = (p: ParameterValues): number => 5 * Math.log10(SPEED_OF_LIGHT_KM_PER_S / h0At(p)) + 25;
 
   return {
     options, count: n, names, covariance, flowRows, isCalibrator, covarianceVaries, frozen,
-    minFlowRedshift: flow.length ? sortedRedshifts[0] : 0,
-    maxFlowRedshift,
+    minFlowRedshift: flowModel.minFlowRedshift,
+    maxFlowRedshift: flowModel.maxFlowRedshift,
     readCovarianceInputs(p, out) {
       out[0] = frozen ? (frozenAt as { alpha: number }).alpha : names.readsAlphaBeta ? p.alpha : 0;
       out[1] = frozen ? (frozenAt as { beta: number }).beta : names.readsAlphaBeta ? p.beta : 0;
