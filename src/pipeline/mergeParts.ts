@@ -1,6 +1,6 @@
 import { existsSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
-import { configToPlainObject, loadConfigFile, resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
+import { configToPlainObject, loadConfigFile, type CandelaConfig } from '../config/index.js';
 import { CandelaError } from '../errors.js';
 import { writeFileAtomic } from '../output/index.js';
 import { createInProcessEvaluator, EnsembleSampler, type EnsembleSnapshot, type SamplerSnapshot } from '../sampler/index.js';
@@ -13,6 +13,7 @@ import { readPartsForMerge, type PartOnDisk, type PartRecord } from './mergeChec
 import { judgeMergedRun, type MergeVerdict } from './mergeVerdict.js';
 import { createRunRecord, type RunRecord } from './runRecord.js';
 import { prepareRunFolder, RUN_FILES } from './runFolder.js';
+import { writeResolvedConfig } from './writeResolvedConfig.js';
 import { checkConvergence, type StopReason } from './samplingLoop.js';
 import { SLURM_FILES, SLURM_FOLDER } from './slurmPlan.js';
 
@@ -176,7 +177,7 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   const ensembles = parts.map((_, k) => ({ ...sampler.chain(k) }));
   writeChainsFile(join(request.outDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps);
   writeFileAtomic(join(request.outDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
-  writeFileAtomic(join(request.outDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
+  writeResolvedConfig(request.outDir, config);
   writeHubbleFiles(request.outDir, model, ensembles, check.burnInSteps, String(config.seed));
   buildRunOutputs([request.outDir], request.outDir);
   return { runDir: request.outDir, record, verdict };

@@ -1,5 +1,5 @@
 import { join } from 'node:path';
-import { resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
+import type { CandelaConfig } from '../config/index.js';
 import type { Issue } from '../errors.js';
 import { deriveSeed } from '../math/index.js';
 import { DEFAULT_ELLIPSOID_ENLARGEMENT, runNestedSampling, type NestedResult } from '../sampler/index.js';
@@ -13,6 +13,7 @@ import { resampleRowsByWeight } from './nestedResampleRows.js';
 import { createNestedRunRecord, type NestedBestSample } from './nestedRunRecord.js';
 import type { FitOutcome, FitRequest } from './runFit.js';
 import { RUN_FILES } from './runFolder.js';
+import { writeResolvedConfig } from './writeResolvedConfig.js';
 
 /**
  * Equally weighted draws handed to the Hubble-diagram band (writeHubbleFiles
@@ -113,7 +114,7 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   const wallSeconds = (Date.now() - started) / 1000;
   const record = createNestedRunRecord({ config, modelIndex: index, model, data, result, best: best.sample, enlargement: DEFAULT_ELLIPSOID_ENLARGEMENT, wallSeconds });
   writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
-  writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
+  writeResolvedConfig(runDir, config);
   const hubbleDraws = Math.max(MINIMUM_HUBBLE_DRAWS, Math.round(result.effectiveSampleSize));
   writeHubbleFiles(runDir, model, [equallyWeighted(draws, weights, best.row, hubbleDraws, seed)], 0, seed);
   buildRunOutputs([runDir], runDir);

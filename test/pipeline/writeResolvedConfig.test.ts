@@ -1,0 +1,61 @@
+import { copyFileSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { afterEach, describe, expect, it } from 'vitest';
+import { loadConfigFile, parseConfigText } from '../../src/config/index.js';
+import { writeResolvedConfig } from '../../src/pipeline/writeResolvedConfig.js';
+import { runCommandLine } from '../support/runCommandLine.js';
+import { PANTHEON_BINNED_FOLDER } from '../support/pantheonBinnedConfig.js';
+import { useScratchFolder } from '../support/scratchFolder.js';
+
+// The resolved configuration stored in a run folder names its files relative
+// to that folder. Data: the Pantheon 2018 binned Hubble diagram and its
+// systematic matrix (Scolnic et al. 2018, ApJ 859, 101), copied next to a
+// configuration that names them by relative paths, as most users write them.
+const scratch = useScratchFolder('write-resolved-config');
+
+afterEach(() => { process.exitCode = undefined; });
+
+function writeProject(): string {
+  mkdirSync(join(scratch, 'project', 'data'), { recursive: true });
+  for (const file of ['lcparam_DS17f.txt', 'sys_DS17f.txt']) copyFileSync(join(PANTHEON_BINNED_FOLDER, file), join(scratch, 'project', 'data', file));
+  const path = join(scratch, 'project', 'run.yaml');
+  writeFileSync(path, `seed: 1
+supernovae:
+  - label: bins
+    kind: magnitudes
+    table: { file: data/lcparam_DS17f.txt, delimiter: whitespace }
+    columns: { id: name, z: zcmb, z_helio: zhel, magnitude: mb, magnitude_err: dmb }
+    covariances:
+      - { file: data/sys_DS17f.txt, applies_to: magnitudes }
+standardization:
+  scatter: { intrinsic: off }
+models:
+  - { label: flat_lcdm, dark_energy: lambda }
+output: { dir: out }
+`);
+  // Loaded by a path relative to the working folder, as `candela fit configs/x.yaml` does.
+  return relative(process.cwd(), path);
+}
+
+describe('writeResolvedConfig', () => {
+  it('writes paths relative to the run folder, so `candela check RUN/config.resolved.yaml` passes from any folder', async () => {
+    const config = loadConfigFile(writeProject());
+    const runDir = relative(process.cwd(), join(scratch, 'project', 'out', 'flat_lcdm'));
+    mkdirSync(runDir, { recursive: true });
+    writeResolvedConfig(runDir, config);
+    const stored = join(runDir, 'config.resolved.yaml');
+    const text = readFileSync(stored, 'utf8');
+    expect(text).toContain('file: ../../data/lcparam_DS17f.txt');
+    expect(text).toContain('file: ../../data/sys_DS17f.txt');
+    expect(text).toContain('dir: ..');
+    const check = await runCommandLine(['check', stored]);
+    expect(check.stderr).not.toMatch(/error/);
+    expect(check.code).toBe(0);
+    // Read back, the copy names the same files and the same output folder as the original.
+    const again = parseConfigText(text, stored);
+    if (!again.ok) throw new Error('the stored copy does not parse');
+    expect(again.value.supernovae[0].table.file.resolved).toBe(config.supernovae[0].table.file.resolved);
+    expect(again.value.supernovae[0].covariances[0].file.resolved).toBe(config.supernovae[0].covariances[0].file.resolved);
+    expect(again.value.output.dir.resolved).toBe(config.output.dir.resolved);
+  });
+});
