@@ -28,6 +28,7 @@ export function nestedReportFacts(record: StoredRunRecord, analysis: RunAnalysis
       { label: 'effective sample size (Kish)', value: `${(analysis.effectiveSampleSize ?? 0).toFixed(0)} of ${analysis.keptSamples} weighted samples` },
       { label: 'supernovae', value: String(record.data.supernovae) },
       { label: 'chi-square at best fit', value: record.best_fit.chi_square === null ? 'n/a' : `${record.best_fit.chi_square.toFixed(2)} for ${record.best_fit.degrees_of_freedom} degrees of freedom` },
+      ...(analysis.goodness ? [{ label: 'chi-square per degree of freedom', value: `${analysis.goodness.reducedChiSquare.toFixed(3)} (p-value ${analysis.goodness.pValue.toPrecision(3)})` }] : []),
       { label: 'likelihood evaluations', value: String(record.run.evaluations) },
     ],
   };
