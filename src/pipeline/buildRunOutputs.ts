@@ -1,10 +1,13 @@
 import { mkdirSync } from 'node:fs';
-import { join } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import {
   contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, densityGridCsv, hubbleFigure,
-  marginalDensityCsv, measurementRatioFigure, reportHtml, summaryCells, summaryLatex, summaryMarkdown, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
+  marginalDensityCsv, measurementRatioFigure, reportHtml, sampleWalkerTraces, summaryCells, summaryLatex, summaryMarkdown, svgToPdf, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
   type BinnedResidual, type ContourSet2D, type ReportFigure, type ReportRunFacts, type TraceParameterPanel,
 } from '../output/index.js';
+import { figureSettings, TRUTH_LABEL, type FigureSettings } from './figureSettings.js';
+import { reportInputFiles } from './reportInputFiles.js';
+import { modelColumn, siblingModelFolders, writeModelsIndex } from './modelsIndex.js';
 import { RELIABLE_STEPS_PER_TAU } from '../diagnostics/index.js';
 import { densityGrid2D } from '../math/index.js';
 import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
@@ -13,8 +16,11 @@ import { readProbeDiagrams } from './probeDiagramFiles.js';
 import { RUN_FILES } from './runFolder.js';
 import { summaryDocument } from './summaryDocument.js';
 import { nestedReportFacts } from './nestedReportFacts.js';
-import { arrayExtent } from './arrayExtent.js';
+import { binResiduals } from './binResiduals.js';
+import { residualsFigureOfRun } from './residualsFigureOfRun.js';
+import { autocorrelationFigureOfRun } from './autocorrelationFigureOfRun.js';
 import { stringify } from 'yaml';
+import { PARAMETERS, parameterRank, parseParameterName } from '../parameters/index.js';
 
 /** Width of PNG renderings, px (print quality for a figure of ~640 px design width). */
 const PNG_WIDTH_PX = 1600;
@@ -23,9 +29,16 @@ const TRIANGLE_MAX_PARAMETERS = 7;
 /** Redshift bins of the binned Hubble residuals (equal in log z). */
 const RESIDUAL_BINS = 12;
 
-function figureNames(run: RunOnDisk): { figures: string[]; png: boolean } {
-  const output = (run.record.configuration as { output?: { figures?: string[]; png?: boolean } }).output ?? {};
-  return { figures: output.figures ?? ['triangle', 'hubble', 'trace'], png: output.png ?? true };
+/** The PNG of a figure: at the configured dots per inch, else {@link PNG_WIDTH_PX} wide. */
+function pngOf(svg: string, settings: FigureSettings): Buffer {
+  return svgToPng(svg, settings.pngDpi === null ? PNG_WIDTH_PX : { dotsPerInch: settings.pngDpi });
+}
+
+/** The truth values of the shown parameters, for the triangle figure's reference marks (none without a truth file). */
+function truthOptions(settings: FigureSettings, parameters: readonly string[]): { reference?: Record<string, number>; referenceLabel?: string } {
+  if (!settings.truth) return {};
+  const shown = Object.fromEntries(parameters.filter((name) => settings.truth![name] !== undefined).map((name) => [name, settings.truth![name]]));
+  return Object.keys(shown).length > 0 ? { reference: shown, referenceLabel: TRUTH_LABEL } : {};
 }
 
 function trianglePairs(parameters: string[]): Array<[string, string]> {
@@ -34,7 +47,11 @@ function trianglePairs(parameters: string[]): Array<[string, string]> {
   return pairs;
 }
 
-function triangleParameters(analysis: RunAnalysis): string[] {
+function triangleParameters(analysis: RunAnalysis, settings: FigureSettings): string[] {
+  if (settings.triangleParameters !== 'auto') {
+    const chosen = settings.triangleParameters.filter((name) => analysis.sampled.includes(name));
+    if (chosen.length > 0) return chosen;
+  }
   if (analysis.sampled.length <= TRIANGLE_MAX_PARAMETERS) return analysis.sampled;
   const cosmological = analysis.sampled.filter((name) => ['omega_m', 'omega_de', 'w0', 'wa', 'h0'].includes(name));
   return cosmological.length ? cosmological : analysis.sampled.slice(0, TRIANGLE_MAX_PARAMETERS);
@@ -63,36 +80,9 @@ export function contoursForTriangle(run: RunOnDisk, analysis: RunAnalysis, param
   });
 }
 
-/**
- * Inverse-variance weighted mean residual in log-spaced redshift bins
- * (diagonal errors only: correlations between supernovae are ignored, as
- * usual for a display).
- * @param z redshifts (> 0 are binned).
- * @param residual residuals, mag.
- * @param error one-sigma errors, mag (> 0 are used).
- * @param bins number of equal bins in ln z.
- * @returns one entry per non-empty bin: weighted mean ln z as z, mean residual and its error (mag).
- * @throws nothing.
- * @example binResiduals(z, residual, sigma, 12)[0].mean
- */
-export function binResiduals(z: Float64Array, residual: Float64Array, error: Float64Array, bins: number): BinnedResidual[] {
-  const [zLow, zHigh] = arrayExtent(z.filter((v) => v > 0));
-  const low = Math.log(zLow);
-  const high = Math.log(zHigh);
-  const width = (high - low) / bins || 1;
-  const sums = Array.from({ length: bins }, () => ({ weight: 0, weighted: 0, weightedZ: 0 }));
-  for (let i = 0; i < z.length; i++) {
-    if (!(z[i] > 0 && error[i] > 0 && Number.isFinite(residual[i]))) continue;
-    const bin = Math.min(bins - 1, Math.floor((Math.log(z[i]) - low) / width));
-    const weight = 1 / (error[i] * error[i]);
-    sums[bin].weight += weight;
-    sums[bin].weighted += weight * residual[i];
-    sums[bin].weightedZ += weight * Math.log(z[i]);
-  }
-  return sums.filter((s) => s.weight > 0).map((s) => ({ z: Math.exp(s.weightedZ / s.weight), mean: s.weighted / s.weight, err: 1 / Math.sqrt(s.weight) }));
-}
+export { binResiduals };
 
-function hubbleSvg(run: RunOnDisk): string | null {
+function hubbleSvg(run: RunOnDisk, settings: FigureSettings): string | null {
   if (!run.hubble || !run.hubbleModel) return null;
   const columns = run.hubble.columns;
   const z = Float64Array.from(columns.z, Number);
@@ -104,28 +94,22 @@ function hubbleSvg(run: RunOnDisk): string | null {
   return hubbleFigure({
     redshift: z, muObsMag: muObs, muErrMag: muErr, sample: columns.sample, bestFitMuMag: muModel,
     modelCurve: { z: model.z, median: model.mu_median, low68: model.mu_low68, high68: model.mu_high68 },
-    binnedResiduals: binResiduals(z, residual, muErr, RESIDUAL_BINS),
-  }, { modelLabel: `${run.record.model.label} (best fit)` });
+    // Already-binned data are not binned again: the points are the bins.
+    ...(settings.dataAreBinned ? {} : { binnedResiduals: binResiduals(z, residual, muErr, RESIDUAL_BINS) }),
+  }, {
+    modelLabel: `${run.record.model.label} (best fit)`, width: settings.width, fontFace: settings.fontFace,
+    sampleNames: settings.sampleNames, dataAreBinned: settings.dataAreBinned,
+  });
 }
 
-function traceSvg(run: RunOnDisk, analysis: RunAnalysis): string {
+function traceSvg(run: RunOnDisk, analysis: RunAnalysis, settings: FigureSettings): string {
   const { steps, walkers, ensembles } = analysis;
-  const panels: TraceParameterPanel[] = analysis.sampled.map((name) => {
-    const column = run.chains.columns[name];
-    return {
-      parameter: name,
-      ensembles: Array.from({ length: ensembles }, (_, k) => {
-        const mean = new Float64Array(steps);
-        for (let s = 0; s < steps; s++) {
-          let sum = 0;
-          for (let w = 0; w < walkers; w++) sum += column[(k * steps + s) * walkers + w];
-          mean[s] = sum / walkers;
-        }
-        return { label: `ensemble ${k + 1} (walker mean)`, series: [mean] };
-      }),
-    };
-  });
-  return traceStackFigure(panels, analysis.burnInSteps);
+  // Individual walkers, not their mean: a stuck walker shows as a flat line, and the acceptance summary's stuck walkers are always drawn.
+  const panels: TraceParameterPanel[] = analysis.sampled.map((name) => ({
+    parameter: name,
+    ensembles: sampleWalkerTraces(run.chains.columns[name], { steps, walkers, ensembles }, { stuckWalkers: analysis.stuckWalkersByEnsemble }),
+  }));
+  return traceStackFigure(panels, analysis.burnInSteps, { width: settings.width, fontFace: settings.fontFace });
 }
 
 function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
@@ -137,6 +121,7 @@ function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
     extra: [
       { label: 'supernovae', value: String(record.data.supernovae) },
       { label: 'chi-square at best fit', value: record.best_fit.chi_square === null ? 'n/a' : `${record.best_fit.chi_square.toFixed(2)} for ${record.best_fit.degrees_of_freedom} degrees of freedom` },
+      ...(analysis.goodness ? [{ label: 'chi-square per degree of freedom', value: `${analysis.goodness.reducedChiSquare.toFixed(3)} (p-value ${analysis.goodness.pValue.toPrecision(3)})` }] : []),
       ...termRows(record),
       { label: 'likelihood evaluations', value: String(record.run.evaluations) },
     ],
@@ -161,6 +146,8 @@ function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
  */
 export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
   const analysis = analyzeRun(run);
+  const settings = figureSettings(run);
+  analysis.warnings.push(...settings.warnings);
   mkdirSync(join(outDir, 'marginals'), { recursive: true });
   mkdirSync(join(outDir, 'contours'), { recursive: true });
   mkdirSync(join(outDir, 'figures'), { recursive: true });
@@ -175,15 +162,17 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
     writeFileAtomic(`${stem}.geojson`, contourGeoJson(set));
     writeFileAtomic(`${stem}.paths.csv`, contourPathsCsv(set));
   }
-  const { figures: wanted, png } = figureNames(run);
+  const wanted = settings.figures;
   const figures: ReportFigure[] = [];
   if (wanted.includes('triangle')) {
-    const parameters = triangleParameters(analysis);
-    const svg = triangleFigure([{ label: run.record.model.label, marginals: analysis.marginals.filter((m) => parameters.includes(m.parameter)), contours: contoursForTriangle(run, analysis, parameters) }], parameters);
+    const parameters = triangleParameters(analysis, settings);
+    const svg = triangleFigure([{ label: run.record.model.label, marginals: analysis.marginals.filter((m) => parameters.includes(m.parameter)), contours: contoursForTriangle(run, analysis, parameters) }], parameters, {
+      width: settings.width, fontFace: settings.fontFace, ...truthOptions(settings, parameters),
+    });
     figures.push({ title: 'Posterior: 1-D marginals and 68% / 95% credible regions', svg, fileName: 'triangle' });
   }
   if (wanted.includes('hubble')) {
-    const svg = hubbleSvg(run);
+    const svg = hubbleSvg(run, settings);
     if (svg) figures.push({ title: 'Hubble diagram and residuals at the best fit', svg, fileName: 'hubble' });
   }
   // Each probe term with a diagram (ProbeDefinition.diagram) draws its data against the fit, one figure per term.
@@ -191,21 +180,28 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
     figures.push({ title: diagram.title, svg: measurementRatioFigure(diagram), fileName: `probe-${key}` });
   }
   // Traces show Markov chains; nested samples are not a chain, so nested runs have no trace figure.
-  if (wanted.includes('trace') && analysis.method === 'ensemble') figures.push({ title: 'Traces (walker mean per ensemble); shaded: burn-in', svg: traceSvg(run, analysis), fileName: 'trace' });
+  if (wanted.includes('trace') && analysis.method === 'ensemble') figures.push({ title: 'Traces of a few walkers per ensemble (stuck walkers highlighted); shaded: burn-in', svg: traceSvg(run, analysis, settings), fileName: 'trace' });
+  // Residuals on their own (the Hubble figure's lower panel, full size) and the autocorrelation functions with tau marked.
+  const residuals = wanted.includes('residuals') ? residualsFigureOfRun(run, settings) : null;
+  if (residuals) figures.push({ title: 'Hubble residuals at the best fit, with binned means', svg: residuals, fileName: 'residuals' });
+  const autocorrelation = wanted.includes('autocorrelation') ? autocorrelationFigureOfRun(run, analysis, settings) : null;
+  if (autocorrelation) figures.push({ title: 'Normalized autocorrelation per parameter; markers: integrated autocorrelation time', svg: autocorrelation, fileName: 'autocorrelation' });
   for (const figure of figures) {
     writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.svg`), figure.svg);
-    if (png) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.png`), svgToPng(figure.svg, PNG_WIDTH_PX));
+    if (settings.png) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.png`), pngOf(figure.svg, settings));
+    if (settings.pdf) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.pdf`), svgToPdf(figure.svg));
   }
   writeFileAtomic(join(outDir, RUN_FILES.report), reportHtml({
     title: `${run.record.title} — ${run.record.model.label}`,
     facts: reportFacts(run, analysis),
     summary: {
-      columns: ['Mean ± sd', 'Median, 68.27% errors', '95.45% interval'],
+      columns: ['Mean ± sd', 'Median, 68.27% errors', '95.45% interval', '68.27% HDI', 'MAP'],
       rows: analysis.summary.parameters.map((parameter) => {
         const cells = summaryCells(parameter, 'plain');
-        return { parameter: parameter.name, cells: [cells.meanSd, cells.median68, cells.interval95] };
+        const note = [...(parameter.derived ? ['derived'] : []), ...(parameter.note ? [parameter.note] : [])].join('; ');
+        return { parameter: parameter.name, cells: [cells.meanSd, cells.median68, cells.interval95, cells.hdi68, cells.map], ...(note ? { note } : {}) };
       }),
-      ...(analysis.method === 'nested' ? { note: `Weighted nested-sampling samples (Kish effective sample size ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}).` } : {}),
+      ...summaryNote(analysis),
     },
     diagnostics: {
       rows: analysis.sampled.filter((name) => analysis.diagnostics[name]).map((name) => {
@@ -218,10 +214,33 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
     },
     figures,
     configurationYaml: stringify(run.record.configuration),
-    inputFiles: run.record.inputs.map((input) => ({ path: input.path, sha256: input.sha256 })),
+    inputFiles: reportInputFiles(run),
     warnings: analysis.warnings,
   }));
+  if (resolve(outDir) === resolve(run.dir)) refreshModelsIndex(run, analysis);
   return analysis;
+}
+
+/**
+ * After a model of a multi-model configuration is written in place, rewrites
+ * the index page and models table beside the models' folders from every
+ * model finished so far (a model whose folder cannot be analysed yet, e.g. an
+ * interrupted one, is left out until it is).
+ */
+function refreshModelsIndex(run: RunOnDisk, analysis: RunAnalysis): void {
+  const folders = siblingModelFolders(run);
+  if (folders.length < 2) return;
+  const indexDir = dirname(resolve(run.dir));
+  const columns = folders.flatMap((folder) => {
+    if (resolve(folder) === resolve(run.dir)) return [modelColumn(run, analysis, indexDir)];
+    try {
+      const sibling = readRunFolder(folder);
+      return [modelColumn(sibling, analyzeRun(sibling), indexDir)];
+    } catch {
+      return [];
+    }
+  });
+  if (columns.length >= 2) writeModelsIndex(columns, indexDir, run.record.title, run.record.tool.version);
 }
 
 /**
@@ -238,17 +257,23 @@ export function buildRunOutputs(runDirs: string[], outDir: string): RunAnalysis[
   const runs = runDirs.map(readRunFolder);
   if (runs.length === 1) return [writeRunOutputs(runs[0], outDir)];
   const analyses = runs.map((run) => analyzeRun(run));
+  const settings = figureSettings(runs[0]);
   mkdirSync(outDir, { recursive: true });
-  const shared = analyses[0].sampled.filter((name) => analyses.every((a) => a.sampled.includes(name)) && ['omega_m', 'omega_de', 'w0', 'wa', 'h0'].includes(name));
-  const parameters = shared.length >= 1 ? shared : analyses[0].sampled.filter((name) => analyses.every((a) => a.sampled.includes(name)));
+  // The union of the runs' physical parameters (cosmology, early universe, probe: the registry's roles), in registry
+  // order, so that supernovae alone, + BAO and + CMB share one figure; a run draws only the panels it has.
+  const physical = (name: string) => ['cosmology', 'early_universe', 'probe'].includes(PARAMETERS[parseParameterName(name)?.base ?? '']?.role ?? '');
+  const union = [...new Set(analyses.flatMap((a) => a.sampled))].sort((a, b) => parameterRank(a) - parameterRank(b));
+  const parameters = union.some(physical) ? union.filter(physical) : union;
   const svg = triangleFigure(runs.map((run, k) => ({
     label: run.record.model.label,
     marginals: analyses[k].marginals.filter((m) => parameters.includes(m.parameter)),
-    contours: contoursForTriangle(run, analyses[k], parameters),
-  })), parameters);
+    contours: contoursForTriangle(run, analyses[k], parameters.filter((name) => analyses[k].sampled.includes(name))),
+  })), parameters, { width: settings.width, fontFace: settings.fontFace });
   writeFileAtomic(join(outDir, 'overlay_triangle.svg'), svg);
-  if (figureNames(runs[0]).png) writeFileAtomic(join(outDir, 'overlay_triangle.png'), svgToPng(svg, PNG_WIDTH_PX));
+  if (settings.png) writeFileAtomic(join(outDir, 'overlay_triangle.png'), pngOf(svg, settings));
+  if (settings.pdf) writeFileAtomic(join(outDir, 'overlay_triangle.pdf'), svgToPdf(svg));
   writeFileAtomic(join(outDir, 'overlay_summary.md'), runs.map((run, k) => `## ${run.record.model.label}\n\n${summaryMarkdown(analyses[k].summary)}`).join('\n'));
+  writeModelsIndex(runs.map((run, k) => modelColumn(run, analyses[k], resolve(outDir))), outDir, runs[0].record.title, runs[0].record.tool.version);
   return analyses;
 }
 
@@ -260,4 +285,13 @@ function termRows(record: RunOnDisk['record']): Array<{ label: string; value: st
     label: `chi-square of ${term.name}`,
     value: term.chi_square === null ? 'n/a' : `${term.chi_square.toFixed(2)} for ${term.n_data} data points, ${term.degrees_of_freedom} degrees of freedom`,
   }));
+}
+
+/** The sentence under the report's parameter table: weighted samples, one-sided limits. */
+function summaryNote(analysis: RunAnalysis): { note?: string } {
+  const sentences = [
+    ...(analysis.method === 'nested' ? [`Weighted nested-sampling samples (Kish effective sample size ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}).`] : []),
+    ...(analysis.summary.parameters.some((p) => p.oneSidedLimit) ? ['A marginal cut by a hard prior edge is quoted as a one-sided 95% limit instead of mean ± sd (see the warnings).'] : []),
+  ];
+  return sentences.length ? { note: sentences.join(' ') } : {};
 }
