@@ -232,7 +232,8 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
     effectiveSampleSize = kishEffectiveCount(keptWeights ?? kept.length);
     converged = record.sampler?.stop === 'max_unexplored_ln_z';
     warnings.push(runWarning('chain_checks_not_applicable', null, `nested sampling: R-hat, ESS per chain and autocorrelation times are Markov-chain diagnostics and do not apply; the ${kept.length} weighted samples have a Kish effective sample size of ${effectiveSampleSize.toFixed(0)}`, { weighted_samples: kept.length, effective_sample_size_kish: effectiveSampleSize }));
-    if (!converged) warnings.push(runWarning('evidence_incomplete', null, `nested sampling stopped at its iteration cap before the ln Z the live points could still add fell below max_unexplored_ln_z = ${record.sampler?.max_unexplored_ln_z}: ln Z and the posterior may be incomplete`, { max_unexplored_ln_z: record.sampler?.max_unexplored_ln_z ?? Number.NaN, unexplored_ln_z: record.sampler?.remaining_log_z ?? Number.NaN }));
+    // Worded as the fit prints it (nestedFit), so the terminal line and summary.json carry one sentence.
+    if (!converged) warnings.push(runWarning('evidence_incomplete', null, `nested sampling stopped at the iteration cap with ${(record.sampler?.remaining_log_z ?? Number.NaN).toFixed(3)} nats of evidence still unaccounted for`, { max_unexplored_ln_z: record.sampler?.max_unexplored_ln_z ?? Number.NaN, unexplored_ln_z: record.sampler?.remaining_log_z ?? Number.NaN }));
     if (effectiveSampleSize < MINIMUM_KISH_SAMPLES) warnings.push(runWarning('few_effective_samples', null, `the Kish effective sample size ${effectiveSampleSize.toFixed(0)} is below ${MINIMUM_KISH_SAMPLES}: credible intervals and contours are noisy; raise sampler.nested.live_points`, { effective_sample_size_kish: effectiveSampleSize, minimum: MINIMUM_KISH_SAMPLES }));
   }
 

@@ -82,3 +82,27 @@ describe('warnings of a fit', () => {
     expect(dirname(join(scratch, 'out', links[0]))).toBe(join(scratch, 'out', 'flat_lcdm'));
   });
 });
+
+describe('warnings of a nested-sampling fit stopped by its iteration cap', () => {
+  it('every warning printed on the terminal is in summary.json and report.html', async () => {
+    const dir = join(scratch, 'nested');
+    mkdirSync(dir, { recursive: true });
+    writeFileSync(join(dir, 'fit.yaml'), pantheonBinnedConfig({
+      title: 'nested cap', seed: 3,
+      models: '  - { label: flat_lcdm, dark_energy: lambda, curvature: flat }',
+      sampler: '{ method: nested, nested: { live_points: 40, max_iterations: 60, max_unexplored_ln_z: 0.01 } }',
+      output: `{ dir: ${join(dir, 'out')}, figures: [triangle], png: false }`,
+    }));
+    const result = await runCommandLine(['fit', join(dir, 'fit.yaml')]);
+    expect(result.code, result.stderr).toBe(0);
+    const lines = `${result.stdout}\n${result.stderr}`.split('\n').filter((line) => /\bwarning\b/.test(line) && !line.startsWith('  fix:'));
+    const summary = JSON.parse(readFileSync(join(dir, 'out', 'summary.json'), 'utf8')) as { warnings: SummaryWarning[] };
+    const report = readFileSync(join(dir, 'out', 'report.html'), 'utf8');
+    expect(lines.some((line) => line.includes('iteration cap'))).toBe(true);
+    for (const line of lines) {
+      const warning = summary.warnings.find((w) => line.includes(w.message));
+      expect(warning, `printed but not in summary.json: ${line}`).toBeDefined();
+      expect(report).toContain(escapeHtml(warning!.message));
+    }
+  }, 300_000);
+});
