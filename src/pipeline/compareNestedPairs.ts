@@ -3,6 +3,7 @@ import { savageDickeyRatio, savageDickeyRatio2D, type SavageDickeyEstimate } fro
 import { priorLogDensity, type Prior } from '../likelihood/index.js';
 import { smoothingOf } from './analyzeRun.js';
 import type { AnalyzedRun } from './compareInputs.js';
+import { storedConfiguration } from './storedConfiguration.js';
 
 /** A simpler run nested in an extended one: the extended model at fixed values of its extra parameters is the simpler model. */
 export interface DetectedNestedPair {
@@ -20,11 +21,11 @@ export type PairSavageDickey =
   | { ok: false; reason: string };
 
 function dataFingerprint(run: AnalyzedRun['run']): string {
-  const configuration = run.record.configuration as { standardization?: unknown };
+  const configuration = storedConfiguration(run);
   return JSON.stringify({
     files: run.record.inputs.slice(1).map((input) => input.sha256).sort(),
     count: run.record.best_fit.n_data,
-    standardization: configuration.standardization ?? null,
+    standardization: configuration.ok ? configuration.value.standardization : null,
     curvature: run.record.model.curvature,
     radiation: run.record.model.radiation,
   });

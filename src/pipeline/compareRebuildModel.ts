@@ -1,10 +1,9 @@
-import { join, resolve } from 'node:path';
-import { stringify } from 'yaml';
-import { parseConfigText } from '../config/index.js';
+import { join } from 'node:path';
 import { CandelaError, type Issue } from '../errors.js';
 import { buildModel, type BuiltModel } from './buildModel.js';
 import { loadSupernovae, type LoadedSupernovae } from './loadSupernovae.js';
 import { RUN_FILES } from './runFolder.js';
+import { storedConfiguration } from './storedConfiguration.js';
 import type { RunOnDisk } from './runFiles.js';
 import { fileSha256 } from './runRecord.js';
 
@@ -17,19 +16,8 @@ export interface RebuiltRunModel {
 }
 
 /**
- * Name under which the stored configuration is parsed. run.json holds the
- * paths as the fit resolved them: absolute, or relative to the folder
- * `candela fit` ran in. Parsing the configuration as if it were a file in the
- * current folder lets the config layer resolve every path it declares (tables,
- * covariances, systematic modes, probe files, the output folder) the same way,
- * so `candela compare` run from the fit's folder finds them all; no list of
- * path keys is kept here.
- */
-const STORED_CONFIGURATION_NAME = 'run.json#configuration';
-
-/**
  * Rebuilds the posterior a run sampled, from run.json's resolved
- * configuration (parsed again by the config layer) and the input files, for
+ * configuration (storedConfiguration: every path as the fit resolved it) and the input files, for
  * quantities that need the likelihood at points the chains do not hold (the
  * deviance at the posterior mean of the DIC, reference distance curves).
  * Compares each data file's SHA-256 with the one recorded at fit time and
@@ -45,7 +33,7 @@ const STORED_CONFIGURATION_NAME = 'run.json#configuration';
  */
 export function rebuildRunModel(run: RunOnDisk): RebuiltRunModel {
   const source = join(run.dir, RUN_FILES.run);
-  const parsed = parseConfigText(stringify(run.record.configuration), resolve(STORED_CONFIGURATION_NAME));
+  const parsed = storedConfiguration(run);
   if (!parsed.ok) {
     const issues: Issue[] = parsed.issues.filter((issue) => issue.severity !== 'warning').map((issue) => ({
       ...issue, code: 'compare.bad_configuration', file: source, message: `the configuration stored in run.json no longer validates: ${issue.message}`,

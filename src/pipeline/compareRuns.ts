@@ -10,6 +10,7 @@ import { comparedModel } from './compareModelRecord.js';
 import { detectNestedPairs, savageDickeyForPair } from './compareNestedPairs.js';
 import { rebuildRunModel, type RebuiltRunModel } from './compareRebuildModel.js';
 import { writeDarkEnergyFigures } from './darkEnergyFigures.js';
+import { storedConfiguration } from './storedConfiguration.js';
 
 /** File names `candela compare` writes. */
 export const COMPARISON_FILES = { json: 'comparison.json', markdown: 'comparison.md', latex: 'comparison.tex' } as const;
@@ -101,7 +102,8 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
   }));
   const report = compareModels(models.map((model) => model.record), { baseLabel, nestedPairs });
   mkdirSync(request.outDir, { recursive: true });
-  const png = (runs[baseIndex].run.record.configuration as { output?: { png?: boolean } }).output?.png ?? true;
+  const baseConfiguration = storedConfiguration(runs[baseIndex].run);
+  const png = baseConfiguration.ok ? baseConfiguration.value.output.png : true;
   const figures = writeDarkEnergyFigures(runs, rebuilt, baseIndex, request.outDir, { png, seed });
   warnings.push(...figures.skipped.map((reason) => `figure not drawn: ${reason}`));
   const document = comparisonDocument({

@@ -2,6 +2,8 @@ import { copyFileSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSyn
 import { join, relative, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { compareRuns, runFit, type FitOutcome } from '../../src/pipeline/index.js';
+import { readRunFolder } from '../../src/pipeline/runFiles.js';
+import { storedConfiguration } from '../../src/pipeline/storedConfiguration.js';
 
 // `candela compare` on a run fitted with systematic modes from a configuration
 // given by a relative path, so that every stored path is relative to the folder
@@ -45,6 +47,15 @@ describe('compareRuns on a run with systematic modes', () => {
   it('stores the modes path relative to the folder the fit ran in', () => {
     const record = JSON.parse(readFileSync(join(outcomes[0].runDir, 'run.json'), 'utf8'));
     expect(record.configuration.supernovae[0].systematic_modes[0].file).toBe(relative(process.cwd(), join(scratch, 'data', 'modes.txt')));
+  });
+
+  it('reads the stored configuration typed, every path resolved as the fit resolved it', () => {
+    const run = readRunFolder(outcomes[0].runDir);
+    const stored = storedConfiguration(run);
+    if (!stored.ok) throw new Error(stored.issues.map((issue) => issue.message).join('; '));
+    expect(resolve(stored.value.supernovae[0].systematicModes[0].file.resolved)).toBe(join(scratch, 'data', 'modes.txt'));
+    expect(resolve(stored.value.supernovae[0].table.file.resolved)).toBe(join(scratch, 'data', 'lcparam_DS17f.txt'));
+    expect(storedConfiguration(run)).toBe(stored);
   });
 
   it('resolves the modes path like the table path and computes the DIC', () => {
