@@ -1,3 +1,5 @@
+import { checkRepeatedRows } from './checkRepeatedRows.js';
+import { checkValueBounds } from './checkValueBounds.js';
 import type { IssueList } from './issueList.js';
 import type { DataRow } from './locateTableLayout.js';
 import type { MappedColumn, ParsedCells } from './parseTableCells.js';
@@ -27,9 +29,11 @@ const COVARIANCE_PAIRS: Array<[SupernovaField, SupernovaField, SupernovaField]> 
 /**
  * Physical checks on parsed rows: z > 0 and z_helio > 0, |z_helio - z| at
  * most `maxRedshiftMismatch`, uncertainties positive (or non-negative for z
- * and host mass), duplicate ids (warning), errors above
- * {@link HUGE_MAGNITUDE_ERROR_MAG} (one warning) and light-curve covariances
- * implying |correlation| > 1 (warning). Cost O(rows).
+ * and host mass), errors above {@link HUGE_MAGNITUDE_ERROR_MAG} (one
+ * warning), light-curve covariances implying |correlation| > 1 (warning),
+ * values no supernova can have (errors, checkValueBounds), copied rows
+ * (errors) and ids repeated with other values (one warning,
+ * checkRepeatedRows). Cost O(rows).
  * @param rows the rows the cells came from (for line numbers).
  * @param cells the parsed cells.
  * @param columns the mapped columns (for column names).
@@ -106,20 +110,6 @@ export function checkSupernovaRows(
       });
     }
   }
-  const ids = cells.texts.id;
-  if (ids) {
-    const firstRow = new Map<string, number>();
-    ids.forEach((id, r) => {
-      const first = firstRow.get(id);
-      if (first === undefined) {
-        firstRow.set(id, r);
-        return;
-      }
-      issues.add({
-        ...at('id', r), severity: 'warning', code: 'data.duplicate_id',
-        message: `id '${id}' already appeared on line ${rows[first].line}`,
-        fix: 'if this is the same supernova observed by two surveys, make sure the covariance accounts for it; otherwise rename one',
-      });
-    });
-  }
+  checkValueBounds(rows, cells, columns, displayName, issues);
+  checkRepeatedRows(rows, columns, columnOf.get('id'), displayName, issues);
 }

@@ -4,6 +4,7 @@ import {
   applyCuts, checkPositiveDefinite, concatenateTables, readCovarianceMatrix, readSupernovaTable, readSystematicModes, subsetCovariance,
   subsetSystematicModes, type CovarianceMatrix, type CutReport, type SupernovaTable, type SystematicModes,
 } from '../data/index.js';
+import { locateConfigKey, pointAtConfigKey } from './pointAtConfigKey.js';
 
 /** The data of a run, read, checked, cut and joined. */
 export interface LoadedSupernovae {
@@ -51,9 +52,9 @@ export function loadSupernovae(config: CandelaConfig): LoadedSupernovae {
   const inputFiles: LoadedSupernovae['inputFiles'] = [];
   let includesStatistical = false;
   const multiple = config.supernovae.length > 1;
-  for (const set of config.supernovae) {
+  for (const [index, set] of config.supernovae.entries()) {
     try {
-      const part = loadDataSet(set, multiple);
+      const part = loadDataSet(set, multiple, config, index);
       warnings.push(...part.warnings);
       parts.push(part);
       cutReports.push({ label: set.label, report: part.report });
@@ -81,23 +82,23 @@ export function loadSupernovae(config: CandelaConfig): LoadedSupernovae {
   };
 }
 
-function loadDataSet(set: SupernovaDataSet, multiple: boolean): LoadedPart {
+function loadDataSet(set: SupernovaDataSet, multiple: boolean, config: CandelaConfig, index: number): LoadedPart {
   const issues: Issue[] = [];
-  const { table: raw, warnings } = readSupernovaTable({
-    file: set.table.file.resolved,
-    displayName: set.table.file.written,
-    kind: set.kind,
-    delimiter: set.table.delimiter,
-    commentPrefix: set.table.comment ?? undefined,
-    indexColumn: set.table.indexColumn,
-    rowPrefix: set.table.rowPrefix,
-    columns: set.columns,
-    missingValues: set.missingValues,
-    maxRedshiftMismatch: set.maxRedshiftMismatch,
-    sampleLabel: set.label,
-  });
+  const key = `supernovae[${index}]`;
+  const collectAt = (error: unknown, role: string, paths: string[]): void => {
+    if (error instanceof CandelaError) issues.push(...error.issues.map((issue) => pointAtConfigKey(issue, config, role, paths)));
+    else throw error;
+  };
+  let read: ReturnType<typeof readSupernovaTable> | null = null;
+  try {
+    read = readTable(set);
+  } catch (error) {
+    collectAt(error, 'table', [`${key}.table.file`, `${key}.table`]);
+  }
+  if (!read) throw new CandelaError(issues);
+  const { table: raw, warnings } = read;
   const fullCovariances: CovarianceMatrix[] = [];
-  for (const source of set.covariances) {
+  for (const [k, source] of set.covariances.entries()) {
     try {
       fullCovariances.push(readCovarianceMatrix({
         file: source.file.resolved,
@@ -110,22 +111,45 @@ function loadDataSet(set: SupernovaDataSet, multiple: boolean): LoadedPart {
         symmetryTolerance: source.symmetryTolerance,
       }));
     } catch (error) {
-      if (error instanceof CandelaError) issues.push(...error.issues);
-      else throw error;
+      collectAt(error, 'covariance', [`${key}.covariances[${k}].file`, `${key}.covariances[${k}]`]);
     }
   }
   const fullModes: SystematicModes[] = [];
-  for (const source of set.systematicModes) {
+  for (const [k, source] of set.systematicModes.entries()) {
     try {
       fullModes.push(readSystematicModes({
         file: source.file.resolved, displayName: source.file.written, expectedSupernovae: raw.count, scale: source.scale,
       }));
     } catch (error) {
-      if (error instanceof CandelaError) issues.push(...error.issues);
-      else throw error;
+      collectAt(error, 'systematic-mode', [`${key}.systematic_modes[${k}].file`, `${key}.systematic_modes[${k}]`]);
     }
   }
   if (issues.length > 0) throw new CandelaError(issues);
+  return cutDataSet(set, raw, warnings, fullCovariances, fullModes, multiple, locateConfigKey(config, [`${key}.cuts`, key]));
+}
+
+/** Reads a data set's table as its configuration describes it. */
+function readTable(set: SupernovaDataSet): ReturnType<typeof readSupernovaTable> {
+  return readSupernovaTable({
+    file: set.table.file.resolved,
+    displayName: set.table.file.written,
+    kind: set.kind,
+    delimiter: set.table.delimiter,
+    commentPrefix: set.table.comment ?? undefined,
+    indexColumn: set.table.indexColumn,
+    rowPrefix: set.table.rowPrefix,
+    columns: set.columns,
+    missingValues: set.missingValues,
+    maxRedshiftMismatch: set.maxRedshiftMismatch,
+    sampleLabel: set.label,
+  });
+}
+
+/** Applies a data set's cuts to its table, covariances and modes, and checks what is left. */
+function cutDataSet(
+  set: SupernovaDataSet, raw: SupernovaTable, warnings: Issue[], fullCovariances: CovarianceMatrix[], fullModes: SystematicModes[],
+  multiple: boolean, cutsAt: Pick<Issue, 'file' | 'line' | 'column' | 'path'>,
+): LoadedPart {
   const cuts = set.cuts;
   const { table: cut, keptIndices, report } = applyCuts(raw, {
     redshiftMin: cuts.redshift?.[0],
@@ -138,7 +162,12 @@ function loadDataSet(set: SupernovaDataSet, multiple: boolean): LoadedPart {
     exemptCalibratorsFromRedshiftCuts: cuts.keepCalibrators,
   });
   if (cut.count === 0) {
-    throw new CandelaError({ code: 'data.all_cut', file: set.table.file.written, path: `supernovae.${set.label}.cuts`, message: 'the cuts removed every supernova', fix: 'loosen the cuts' });
+    const removed = report.steps.filter((step) => step.removed > 0).map((step) => `keep ${step.description} removed ${step.removed}`).join('; ');
+    throw new CandelaError({
+      ...cutsAt, code: 'data.all_cut',
+      message: `the cuts removed all ${raw.count} supernovae of data set '${set.label}' (table ${set.table.file.written})`,
+      found: removed || undefined, fix: `loosen the cuts under ${cutsAt.path}, so that some supernovae remain`,
+    });
   }
   const relabelled = multiple ? relabelSamples(cut, set.label) : cut;
   const table = set.covariances.some((source) => source.includesStatistical) ? withoutStatisticalErrors(relabelled) : relabelled;

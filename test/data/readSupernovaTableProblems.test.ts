@@ -106,12 +106,12 @@ describe('readSupernovaTable reports bad input', () => {
     expect(problems(options('no-such-file.txt'))[0]).toMatchObject({ code: 'data.file_not_found', file: 'no-such-file.txt' });
   });
 
-  it('warns, but reads, when an id repeats', () => {
+  it('warns once, but reads, when an id repeats with other values', () => {
     const { table, warnings } = readSupernovaTable(options('duplicate-id.txt'));
     expect(table.count).toBe(3);
     expect(warnings).toHaveLength(1);
-    expect(warnings[0]).toMatchObject({ code: 'data.duplicate_id', severity: 'warning', file: 'duplicate-id.txt', line: 4, row: 3, path: 'name' });
-    expect(warnings[0].message).toContain('line 2');
+    expect(warnings[0]).toMatchObject({ code: 'data.repeated_ids', severity: 'warning', file: 'duplicate-id.txt', line: 4, row: 3, path: 'name' });
+    expect(warnings[0].message).toContain("'sn-a' on lines 2 and 4");
   });
 
   it('lists every problem of a file at once', () => {

@@ -155,8 +155,12 @@ describe('loadSupernovae with systematic modes', () => {
     expect(issues.map((issue) => [issue.code, issue.file])).toEqual([
       ['covariance.non_numeric', 'bad-cov.txt'],
       ['modes.wrong_row_count', 'short.csv'],
-      ['data.file_not_found', 'absent.csv'],
+      ['data.file_not_found', join(scratch, 'broken.yaml')],
     ]);
+    // a missing file is named by the configuration key that names it (common practice: point at what the user can edit)
+    expect(issues[2]).toMatchObject({ path: 'supernovae[0].systematic_modes[1].file' });
+    expect(issues[2].message).toContain("'absent.csv'");
+    expect(issues[2].found).toBe(`nothing at ${join(scratch, 'absent.csv')}`);
   });
 
   it('lists each mode file with its size in the check summary', () => {
