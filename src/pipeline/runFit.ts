@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
-import { loadConfigFile, resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
+import { closestWord, loadConfigFile, resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
 import { CandelaError, type Issue } from '../errors.js';
 import { samplePrior } from '../likelihood/index.js';
 import {
@@ -63,6 +63,11 @@ export interface FitRequest {
    */
   part?: number;
   /**
+   * Fits only the model with this label (into the folder it has in a full
+   * run, with the chains it has there, byte for byte).
+   */
+  model?: string;
+  /**
    * With `part`: the step count the part runs to, replacing sampler.max_steps
    * (a cluster plan gives every part the same count, see planSlurmArray; the
    * configuration stays unchanged, so the parts still merge).
@@ -92,6 +97,8 @@ export interface FitProgress {
   elapsedSeconds: number;
   check: ConvergenceCheck | null;
   targetEss: number;
+  /** R-hat the run must reach (sampler.max_rhat). */
+  maxRhat: number;
   /** Mean acceptance fraction over all walkers so far. */
   acceptance: number;
 }
@@ -130,12 +137,29 @@ export function runFolderFor(config: CandelaConfig, index: number, outDir?: stri
  * atomic checkpoint every `checkpoint_every` steps, and finally writes the
  * chains and every derived output.
  */
+/**
+ * The indices of the models to fit: every model, or the one whose label is `label`.
+ * @throws CandelaError `fit.unknown_model` (path --model) naming the labels and the closest one.
+ */
+function selectedModels(config: CandelaConfig, label: string | undefined): number[] {
+  if (label === undefined) return config.models.map((_, index) => index);
+  const index = config.models.findIndex((model) => model.label === label);
+  if (index >= 0) return [index];
+  const labels = config.models.map((model) => model.label);
+  const suggestion = closestWord(label, labels);
+  throw new CandelaError({
+    code: 'fit.unknown_model', path: '--model', message: `the configuration has no model labelled "${label}"`,
+    expected: `one of ${labels.join(', ')}`, found: label, fix: suggestion ? `did you mean "${suggestion}"?` : 'give the label of one of the models of the configuration',
+  });
+}
+
 export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
   const config = loadConfigFile(request.configPath);
   const part = request.part === undefined ? null : locatePart(config, request.part, request.outDir);
+  const selected = selectedModels(config, request.model);
   // The worker threads of the first model start now and build it from the configuration while this
   // thread reads the data and builds the models (two cores busy instead of one after the other).
-  const firstIndex = part ? part.modelIndex : 0;
+  const firstIndex = part ? part.modelIndex : selected[0];
   let models: BuiltModel[] = [];
   const early = startEarlyEvaluator(config, request, firstIndex, () => models[firstIndex].logProbability);
   // fitOneModel closes the pool it is given; until then (bad data, an existing folder, an abort) this does.
@@ -153,13 +177,13 @@ export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
       if (request.signal?.aborted) throw new FitInterrupted('interrupted before the sampling started; run the same command with --resume to start it', []);
       return [await fitOneModel(config, part.modelIndex, models[part.modelIndex], data, part.runDir, request, part, handOver(part.modelIndex))];
     }
-    models = config.models.map((_, index) => buildModel(config, index, data));
+    for (const index of selected) models[index] = buildModel(config, index, data);
     const folders = config.models.map((_, index) => runFolderFor(config, index, request.outDir));
-    for (const folder of folders) prepareRunFolder(folder, { force: Boolean(request.force), resume: Boolean(request.resume) });
+    for (const index of selected) prepareRunFolder(folders[index], { force: Boolean(request.force), resume: Boolean(request.resume) });
     const outcomes: FitOutcome[] = [];
-    for (let index = 0; index < models.length; index++) {
+    for (const [position, index] of selected.entries()) {
       if (request.signal?.aborted) {
-        const left = models.slice(index).map((model) => model.label).join(', ');
+        const left = selected.slice(position).map((i) => models[i].label).join(', ');
         throw new FitInterrupted(`interrupted before the model(s) ${left} started; run the same command with --resume to continue`, outcomes);
       }
       try {
@@ -292,7 +316,7 @@ async function fitOneModel(
         saveCheckpoint();
         lastCheckpoint = sampler.stepCount;
       }
-      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: rule.targetEss, acceptance: meanAcceptance(sampler) });
+      request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: rule.targetEss, maxRhat: rule.maxRhat, acceptance: meanAcceptance(sampler) });
     }
     if (stopReason === 'interrupted') say(`model ${model.label}${partNote}: stopped at step ${sampler.stepCount} on the signal; writing the checkpoint and the outputs so far`);
     saveCheckpoint();

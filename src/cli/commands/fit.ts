@@ -18,11 +18,17 @@ function formatNumber(value: number | null | undefined, digits: number): string 
 function etaSeconds(progress: FitProgress): number | null {
   const check = progress.check;
   if (!check || check.minEssBulk === null || check.minEssBulk <= 0 || progress.step === 0) return null;
-  // ESS grows about linearly with the steps kept after the burn-in.
+  // ESS grows about linearly with the steps kept after the burn-in; R-hat - 1 of converging chains
+  // shrinks about as 1 / (kept steps) (Gelman & Rubin 1992: B/W falls as 1/n), so each target gives
+  // the kept steps it needs, and the larger of the two decides.
   const kept = Math.max(1, progress.step - check.burnInSteps);
-  const needed = (progress.targetEss / check.minEssBulk) * kept + check.burnInSteps;
+  const forEss = (progress.targetEss / check.minEssBulk) * kept;
+  const forRhat = check.maxRhat !== null && check.maxRhat > progress.maxRhat ? ((check.maxRhat - 1) / (progress.maxRhat - 1)) * kept : 0;
+  const needed = Math.max(forEss, forRhat) + check.burnInSteps;
   const rate = progress.elapsedSeconds / progress.step;
-  return Math.max(0, Math.min(needed, progress.maxSteps) - progress.step) * rate;
+  const left = Math.max(0, Math.min(needed, progress.maxSteps) - progress.step) * rate;
+  // Not converged yet but both extrapolations already met: the next check decides; say so rather than "0 s".
+  return left === 0 && !check.converged ? null : left;
 }
 
 function statusLine(progress: FitProgress): string {
@@ -71,6 +77,7 @@ export function registerFitCommand(program: Command): void {
     .option('--resume', 'continue an interrupted run from its last checkpoint')
     .option('--workers <n>', 'worker threads (replaces sampler.workers)', (text) => Number.parseInt(text, 10))
     .option('--quiet', 'print nothing but errors')
+    .option('--model <label>', 'fit only the model with this label (its folder and chains are those of a full run)')
     .option('--part <index>', 'run only part I = model index x ensembles + ensemble, into <out>/parts/<model>/ensemble-<k>', parsePart)
     .option('--plan <scheduler>', 'write a job-array plan for a cluster scheduler instead of sampling (slurm)')
     .option('--steps-per-part <n>', 'with --plan or --part: the step count every part runs to (default sampler.max_steps; a part never stops early on its own diagnostics)', wholeNumber('--steps-per-part'))
@@ -81,7 +88,7 @@ export function registerFitCommand(program: Command): void {
     .option('--stop-warning <seconds>', 'with --plan: Slurm sends SIGTERM this long before the time limit; the part writes its checkpoint and stops (default 600)', wholeNumber('--stop-warning'))
     .option('--node-binary <path>', 'with --plan: the node the cluster starts candela with (default: the node running this command)')
     .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n  candela fit configs/demo.yaml --out out/demo --plan slurm --steps-per-part 8000 --cluster-queue short --part-memory 4G\n  candela fit configs/demo.yaml --out out/demo --part 3\n\nCtrl-C writes a checkpoint and the outputs so far; --resume continues the run.\n')
-    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string;
+    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string; model?: string;
       stepsPerPart?: number; clusterAccount?: string; clusterQueue?: string; partMemory?: string; partMinutes?: number; stopWarning?: number; nodeBinary?: string }) => {
       if (options.plan !== undefined) {
         if (options.plan !== 'slurm') throw new CandelaError({ code: 'fit.unknown_plan', path: '--plan', message: 'this scheduler is not supported', expected: 'slurm', found: options.plan });
@@ -132,7 +139,7 @@ export function registerFitCommand(program: Command): void {
       };
       try {
         const outcomes = await runFit({
-          configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, part: options.part, partSteps: options.stepsPerPart, signal: controller.signal,
+          configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, part: options.part, partSteps: options.stepsPerPart, model: options.model, signal: controller.signal,
           onLine: (line) => {
             if (quiet) return;
             if (bar && barStarted) { bar.stop(); barStarted = false; }
