@@ -81,6 +81,16 @@ describe('warnings of a fit', () => {
     expect(table).toMatch(/^AIC & /m);
     expect(dirname(join(scratch, 'out', links[0]))).toBe(join(scratch, 'out', 'flat_lcdm'));
   });
+
+  it('candela report with several run folders writes the index page elsewhere, its links relative to it', async () => {
+    const elsewhere = join(scratch, 'overlay');
+    const result = await runCommandLine(['report', ...LABELS.map((label) => join(scratch, 'out', label)), '--out', elsewhere]);
+    expect(result.code, result.stderr).toBe(0);
+    const links = [...readFileSync(join(elsewhere, 'index.html'), 'utf8').matchAll(/href="([^"]+)"/g)].map((match) => match[1]);
+    expect(new Set(links)).toEqual(new Set(LABELS.map((label) => `../out/${label}/report.html`)));
+    for (const link of links) expect(existsSync(join(elsewhere, link)), link).toBe(true);
+    expect(existsSync(join(elsewhere, 'models.tex'))).toBe(true);
+  });
 });
 
 describe('warnings of a nested-sampling fit stopped by its iteration cap', () => {
