@@ -45,6 +45,8 @@ export interface ResidualsFigureOptions {
   sampleNames?: Readonly<Record<string, string>>;
   /** Legend label of the zero line (default 'best fit'). */
   modelLabel?: string;
+  /** The data are already binned (a compressed compilation): larger markers, and no binned means should be passed. */
+  dataAreBinned?: boolean;
   /** Prefix of the clip-path id (default 'residuals'). */
   idPrefix?: string;
 }
@@ -64,7 +66,7 @@ const REDSHIFT_PADDING_FACTOR = 1.12;
  * Cost: O(n log n) for n supernovae (the range quantile).
  *
  * @param input redshifts, residuals and errors (mag), samples, binned means (mag), model band (mag)
- * @param options size (px or journal width), font face, sample names, model label, clip id prefix
+ * @param options size (px or journal width), font face, sample names, model label, binned-data flag, clip id prefix
  * @returns the SVG document
  * @throws CandelaError `figure.length_mismatch` when per-supernova arrays differ in length; `figure.bad_range` without a positive redshift
  * @example residualsFigure({ redshift: z, residualMag: r, errorMag: e, binnedResiduals: bins }).startsWith('<svg') // true
@@ -84,7 +86,7 @@ export function residualsFigure(input: ResidualsFigureInput, options: ResidualsF
   if (!(zHigh >= zLow)) throw new CandelaError({ code: 'figure.bad_range', message: 'a residual figure needs at least one supernova with a positive redshift' });
   const widthPx = figureWidthPx(options.width, options.widthPx ?? 640);
   const heightPx = Math.round(options.heightPx ?? 340);
-  const markerRadius = SUPERNOVA_MARKS.markerRadiusPx * Math.sqrt(Math.min(1, widthPx / SUPERNOVA_MARKS.fullMarkerWidthPx));
+  const markerRadius = (options.dataAreBinned ? SUPERNOVA_MARKS.binnedDataMarkerRadiusPx : SUPERNOVA_MARKS.markerRadiusPx) * Math.sqrt(Math.min(1, widthPx / SUPERNOVA_MARKS.fullMarkerWidthPx));
   const samples = drawnSamples(count, input.sample, options.sampleNames);
   const ink = LANTERN_COLORS.ink;
   const bins = input.binnedResiduals ?? [];
