@@ -58,7 +58,8 @@ export function describeConfig(config: CandelaConfig): string[] {
     : `sampler: nested sampling, ${s.nested.livePoints} live points, until the live points could add at most ` +
       `${s.nested.maxUnexploredLnZ} to ln Z or after ${s.nested.maxIterations} iterations`);
   const o = config.output;
-  lines.push(`output: ${o.dir.written}/<model label>/; figures ${o.figures.join(', ') || 'none'} (SVG${o.png ? ' + PNG' : ''}); ` +
+  lines.push(`output: ${o.dir.written}/<model label>/; figures ${o.figures.join(', ') || 'none'} (SVG${o.png ? ` + PNG${o.pngDpi !== null ? ` at ${o.pngDpi} dpi` : ''}` : ''}${o.pdf ? ' + PDF' : ''}; ` +
+    `${typeof o.figureWidth === 'object' ? `${o.figureWidth.inches} in` : o.figureWidth} width, ${o.font} text${o.truthFile ? `, truth from ${o.truthFile.written}` : ''}); ` +
     `contour pairs ${o.contourPairs === 'auto' ? 'auto' : o.contourPairs.map((p) => p.join('-')).join(', ')}`);
   return lines;
 }
