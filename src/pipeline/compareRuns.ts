@@ -2,8 +2,10 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { compareModels, type NestedModelPair } from '../compare/index.js';
 import { CandelaError, isCandelaError } from '../errors.js';
+import { closestWord } from '../math/index.js';
 import { writeFileAtomic } from '../output/index.js';
 import { comparisonDocument } from './compareDocument.js';
+import { checkComparisonFolder, clearComparisonFolder } from './compareOutputFolder.js';
 import { readComparedRuns } from './compareInputs.js';
 import { comparisonMarkdownDetails, dicMissingNotice } from './compareMarkdownDetails.js';
 import { comparedModel } from './compareModelRecord.js';
@@ -21,8 +23,10 @@ export interface CompareRequest {
   runDirs: string[];
   /** Label of the base model (default: the first run's). */
   baseLabel?: string;
-  /** Output folder (created when missing; files in it are replaced). */
+  /** Output folder (created when missing). */
   outDir: string;
+  /** Replace the contents of an existing non-empty output folder (default: refuse it). */
+  force?: boolean;
 }
 
 /** What `candela compare` wrote. */
@@ -58,17 +62,19 @@ export interface CompareOutcome {
  * Savage-Dickey estimates, a few thousand likelihood evaluations for the figures.
  * @param request run folders, base label, output folder.
  * @returns the document, the files written and the warnings.
- * @throws CandelaError `compare.unknown_model` for a base label no run has; the errors of
+ * @throws CandelaError `compare.folder_not_empty` without `force` (checkComparisonFolder), `compare.unknown_model` for a base label no run has; the errors of
  *   readComparedRuns and compareModels (e.g. different data counts); file-system errors.
  * @example compareRuns({ runDirs: ['out/p/flat_lcdm', 'out/p/flat_wcdm'], outDir: 'out/p/comparison' }).document.models[1].delta_aic
  */
 export function compareRuns(request: CompareRequest): CompareOutcome {
+  checkComparisonFolder(request.outDir, request.runDirs, Boolean(request.force));
   const runs = readComparedRuns(request.runDirs);
   const labels = runs.map(({ run }) => run.record.model.label);
   const baseLabel = request.baseLabel ?? labels[0];
   const baseIndex = labels.indexOf(baseLabel);
   if (baseIndex < 0) {
-    throw new CandelaError({ code: 'compare.unknown_model', path: '--base', message: `no run fits a model labelled ${baseLabel}`, expected: `one of: ${labels.join(', ')}`, found: baseLabel, fix: 'give --base one of the runs\' model labels' });
+    const suggestion = closestWord(baseLabel, labels);
+    throw new CandelaError({ code: 'compare.unknown_model', path: '--base', message: `no run fits a model labelled ${baseLabel}`, expected: `one of: ${labels.join(', ')}`, found: baseLabel, fix: suggestion ? `did you mean --base ${suggestion}?` : 'give --base one of the runs\' model labels' });
   }
   const seed = `${runs[baseIndex].run.record.run.seed}/compare`;
   const warnings: string[] = [];
@@ -101,6 +107,7 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
     ...(savageDickey.ok ? { savageDickey: { logBayesFactor: savageDickey.estimate.logBayesFactor, logBayesFactorError: savageDickey.estimate.logBayesFactorError } } : {}),
   }));
   const report = compareModels(models.map((model) => model.record), { baseLabel, nestedPairs });
+  clearComparisonFolder(request.outDir);
   mkdirSync(request.outDir, { recursive: true });
   const baseConfiguration = storedConfiguration(runs[baseIndex].run);
   const png = baseConfiguration.ok ? baseConfiguration.value.output.png : true;

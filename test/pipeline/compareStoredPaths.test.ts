@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { compareRuns, runFit, type FitOutcome } from '../../src/pipeline/index.js';
 import { readRunFolder } from '../../src/pipeline/runFiles.js';
 import { storedConfiguration } from '../../src/pipeline/storedConfiguration.js';
+import { isCandelaError } from '../../src/errors.js';
 
 // `candela compare` on a run fitted with systematic modes from a configuration
 // given by a relative path, so that every stored path is relative to the folder
@@ -65,6 +66,15 @@ describe('compareRuns on a run with systematic modes', () => {
     expect(model.dic_missing).toBeNull();
     expect(Number.isFinite(model.dic)).toBe(true);
     expect(readFileSync(join(scratch, 'comparison', 'comparison.md'), 'utf8')).not.toContain('DIC missing');
+  });
+
+  it('suggests the closest model label for a misspelt --base', () => {
+    try {
+      compareRuns({ runDirs: outcomes.map((o) => o.runDir), baseLabel: 'flat_lcmd', outDir: join(scratch, 'misspelt') });
+      expect.unreachable();
+    } catch (error) {
+      expect(isCandelaError(error) && error.issues[0]).toMatchObject({ code: 'compare.unknown_model', path: '--base', fix: 'did you mean --base flat_lcdm?' });
+    }
   });
 
   it('says loudly, in comparison.json and at the top of comparison.md, when the DIC cannot be computed', () => {
