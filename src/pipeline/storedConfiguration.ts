@@ -1,9 +1,11 @@
+import { readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { stringify } from 'yaml';
 import { parseConfigText, type CandelaConfig } from '../config/index.js';
 import type { Checked } from '../errors.js';
 import { RUN_FILES } from './runFolder.js';
 import type { RunOnDisk } from './runFiles.js';
+import { RUN_FOLDER_PATHS_NOTE } from './writeResolvedConfig.js';
 
 /**
  * Name under which the configuration stored in run.json is parsed. run.json
@@ -18,11 +20,14 @@ const STORED_CONFIGURATION_NAME = 'run.json#configuration';
 const parsedRuns = new WeakMap<RunOnDisk, Checked<CandelaConfig>>();
 
 /**
- * The configuration a run used, typed: run.json's resolved configuration
- * parsed again by the config layer (once per run folder read; later calls
- * return the same result). Issues are re-addressed to run.json.
+ * The configuration a run used, typed, parsed once per run folder read (later
+ * calls return the same result): the run folder's config.resolved.yaml when
+ * its paths are relative to the run folder (writeResolvedConfig says so on
+ * its second line), so the run folder can move with its data; else run.json's
+ * resolved configuration, with the paths as the fit resolved them (runs
+ * written before). Issues name the file that was read.
  *
- * Cost: one parse of the configuration text on the first call.
+ * Cost: one read and one parse of the configuration text on the first call.
  * @param run a run folder read by readRunFolder.
  * @returns the configuration, or the issues that stop it from validating (a run written by another version).
  * @throws nothing.
@@ -31,11 +36,21 @@ const parsedRuns = new WeakMap<RunOnDisk, Checked<CandelaConfig>>();
 export function storedConfiguration(run: RunOnDisk): Checked<CandelaConfig> {
   const known = parsedRuns.get(run);
   if (known) return known;
-  const parsed = parseConfigText(stringify(run.record.configuration), resolve(STORED_CONFIGURATION_NAME));
-  const result: Checked<CandelaConfig> = parsed.ok ? parsed : {
-    ok: false,
-    issues: parsed.issues.map((issue) => ({ ...issue, file: join(run.dir, RUN_FILES.run), line: undefined, column: undefined })),
-  };
+  const copy = join(run.dir, RUN_FILES.resolvedConfig);
+  let text: string | null = null;
+  try {
+    text = readFileSync(copy, 'utf8');
+  } catch {
+    text = null;
+  }
+  const result = text !== null && text.split('\n', 2)[1] === RUN_FOLDER_PATHS_NOTE
+    ? parseConfigText(text, copy)
+    : readdressed(parseConfigText(stringify(run.record.configuration), resolve(STORED_CONFIGURATION_NAME)), join(run.dir, RUN_FILES.run));
   parsedRuns.set(run, result);
   return result;
+}
+
+/** The issues of a parse of run.json's configuration, pointed at run.json (their lines are those of the re-written text). */
+function readdressed(parsed: Checked<CandelaConfig>, file: string): Checked<CandelaConfig> {
+  return parsed.ok ? parsed : { ok: false, issues: parsed.issues.map((issue) => ({ ...issue, file, line: undefined, column: undefined })) };
 }

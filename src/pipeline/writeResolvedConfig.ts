@@ -9,7 +9,8 @@ import { RUN_FILES } from './runFolder.js';
  * copy reads back to the same files from anywhere: `candela check
  * RUN/config.resolved.yaml` passes and `candela fit RUN/config.resolved.yaml`
  * re-runs the fit as it is. (run.json keeps the paths as the fit resolved
- * them, relative to the folder it ran in.)
+ * them, relative to the folder it ran in.) The second line says so
+ * (RUN_FOLDER_PATHS_NOTE).
  *
  * Cost: linear in the configuration size; one atomic file write.
  * @param runDir the run folder (absolute, or relative to the working folder like the configuration's paths).
@@ -19,5 +20,13 @@ import { RUN_FILES } from './runFolder.js';
  * @example writeResolvedConfig('out/run', config) // out/run/config.resolved.yaml names ../../data/table.txt
  */
 export function writeResolvedConfig(runDir: string, config: CandelaConfig): void {
-  writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config, { pathsRelativeTo: runDir }));
+  const text = resolvedConfigToYaml(config, { pathsRelativeTo: runDir });
+  const firstLineEnd = text.indexOf('\n') + 1;
+  writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), `${text.slice(0, firstLineEnd)}${RUN_FOLDER_PATHS_NOTE}\n${text.slice(firstLineEnd)}`);
 }
+
+/**
+ * The comment line (second line) of a config.resolved.yaml whose paths are
+ * relative to its run folder; storedConfiguration reads such a copy directly.
+ */
+export const RUN_FOLDER_PATHS_NOTE = '# file paths are relative to the folder of this file.';

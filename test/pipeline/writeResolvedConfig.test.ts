@@ -1,7 +1,9 @@
-import { copyFileSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { join, relative } from 'node:path';
+import { copyFileSync, existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { join, relative, resolve } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { loadConfigFile, parseConfigText } from '../../src/config/index.js';
+import { configToPlainObject, loadConfigFile, parseConfigText } from '../../src/config/index.js';
+import type { RunOnDisk } from '../../src/pipeline/runFiles.js';
+import { storedConfiguration } from '../../src/pipeline/storedConfiguration.js';
 import { writeResolvedConfig } from '../../src/pipeline/writeResolvedConfig.js';
 import { runCommandLine } from '../support/runCommandLine.js';
 import { PANTHEON_BINNED_FOLDER } from '../support/pantheonBinnedConfig.js';
@@ -57,5 +59,25 @@ describe('writeResolvedConfig', () => {
     expect(again.value.supernovae[0].table.file.resolved).toBe(config.supernovae[0].table.file.resolved);
     expect(again.value.supernovae[0].covariances[0].file.resolved).toBe(config.supernovae[0].covariances[0].file.resolved);
     expect(again.value.output.dir.resolved).toBe(config.output.dir.resolved);
+  });
+
+  it('lets storedConfiguration read the copy, so a run folder moved with its data still finds its files', () => {
+    const config = loadConfigFile(writeProject());
+    const runDir = join(scratch, 'project', 'out', 'flat_lcdm');
+    mkdirSync(runDir, { recursive: true });
+    writeResolvedConfig(runDir, config);
+    const moved = join(scratch, 'moved');
+    renameSync(join(scratch, 'project'), moved);
+    // A stand-in for a run folder read back: run.json's configuration keeps the paths of the original place.
+    const run = { dir: join(moved, 'out', 'flat_lcdm'), record: { configuration: configToPlainObject(config) } } as unknown as RunOnDisk;
+    const stored = storedConfiguration(run);
+    if (!stored.ok) throw new Error(stored.issues.map((issue) => issue.message).join('; '));
+    const table = resolve(stored.value.supernovae[0].table.file.resolved);
+    expect(table).toBe(join(moved, 'data', 'lcparam_DS17f.txt'));
+    expect(existsSync(table)).toBe(true);
+    // Without the note (a copy written before), run.json's paths are used.
+    writeFileSync(join(run.dir, 'config.resolved.yaml'), '# old copy\n');
+    const old = storedConfiguration({ ...run } as RunOnDisk);
+    expect(old.ok && resolve(old.value.supernovae[0].table.file.resolved)).toBe(resolve(config.supernovae[0].table.file.resolved));
   });
 });
