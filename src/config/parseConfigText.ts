@@ -18,21 +18,13 @@ import { readSampler } from './readSampler.js';
 import { readStandardization } from './readStandardization.js';
 import { readSupernovae } from './readSupernovae.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
+import { lineOfNestingError, yamlSyntaxFix } from './yamlSyntaxFix.js';
 
 /** The top-level keys, in documentation order. */
 export const TOP_LEVEL_KEYS = [
   'title', 'seed', 'supernovae', 'standardization', 'probes', 'models', 'parameters', 'derived', 'reference_h0', 'sampler', 'output',
 ] as const;
 const DERIVED: readonly DerivedQuantity[] = ['omega_k', 'omega_de', 'q0', 'z_accel', 'age_gyr', 'offset'];
-
-/** Fixes for the YAML syntax errors people make most (codes of the yaml package). */
-const SYNTAX_FIXES: Record<string, string> = {
-  DUPLICATE_KEY: 'keep only one of the two entries with this key',
-  TAB_AS_INDENT: 'indent with spaces, not tabs',
-  BAD_INDENT: 'indent child keys by the same number of spaces under their parent, and close every [ or { that was opened',
-  MISSING_CHAR: 'close the bracket, brace or quote that was opened',
-  MULTIPLE_DOCS: 'keep one document per file (remove the extra "---")',
-};
 
 /**
  * Parses and validates a configuration. YAML syntax errors are reported with
@@ -53,10 +45,27 @@ export function parseConfigText(text: string, fileName: string): Checked<Candela
     const { line, col } = lineCounter.linePos(error.pos[0]);
     return { line, column: col };
   };
-  const syntax: Issue[] = document.errors.map((error) => ({
-    code: 'config.yaml_syntax', message: `YAML syntax: ${error.message.split('\n')[0]}`, file: fileName, ...positionOf(error),
-    fix: SYNTAX_FIXES[error.code] ?? 'check the indentation, the ":" after each key and matching quotes and brackets near this position',
-  }));
+  const lines = text.split(/\r?\n/);
+  const lineAbove = (line: number): string => {
+    for (let k = line - 2; k >= 0; k--) if (lines[k].trim() !== '' && !lines[k].trimStart().startsWith('#')) return lines[k];
+    return '';
+  };
+  const indentOfLine = (lineText: string): number => lineText.length - lineText.trimStart().length;
+  // One issue per line: the yaml package often reports one mistake twice (e.g. two codes for one over-indented key).
+  const seenLines = new Set<number>();
+  const syntax: Issue[] = [];
+  for (const error of document.errors) {
+    const reported = positionOf(error);
+    const line = lineOfNestingError(lines, reported.line, error.code);
+    const position = line === reported.line ? reported : { line, column: indentOfLine(lines[line - 1]) + 1 };
+    if (seenLines.has(position.line)) continue;
+    seenLines.add(position.line);
+    const message = error.message.split('\n')[0];
+    syntax.push({
+      code: 'config.yaml_syntax', message: `YAML syntax: ${message}`, file: fileName, ...position,
+      fix: yamlSyntaxFix({ code: error.code, message, lineText: lines[position.line - 1] ?? '', previousText: lineAbove(position.line) }),
+    });
+  }
   const yamlWarnings: Issue[] = document.warnings.map((warning) => ({
     code: 'config.yaml_warning', severity: 'warning', message: warning.message.split('\n')[0], file: fileName, ...positionOf(warning),
   }));
