@@ -1,6 +1,6 @@
 import { loadConfigFile } from '../config/index.js';
 import { CandelaError, type Issue } from '../errors.js';
-import { createRandomStream, deriveSeed } from '../math/index.js';
+import { closestWord, createRandomStream, deriveSeed } from '../math/index.js';
 import { samplePrior } from '../likelihood/index.js';
 import { createInProcessEvaluator, locatePosteriorMode } from '../sampler/index.js';
 import { buildModel } from './buildModel.js';
@@ -35,7 +35,9 @@ export async function standardizeTable(configPath: string, given: Record<string,
   const config = loadConfigFile(configPath);
   const modelIndex = modelLabel === undefined ? 0 : config.models.findIndex((m) => m.label === modelLabel);
   if (modelIndex < 0) {
-    throw new CandelaError({ code: 'standardize.unknown_model', path: 'models', message: `no model is labelled '${modelLabel}'`, expected: config.models.map((m) => m.label).join(', '), fix: 'use one of the model labels of the configuration' });
+    const labels = config.models.map((m) => m.label);
+    const closest = closestWord(modelLabel ?? '', labels);
+    throw new CandelaError({ code: 'standardize.unknown_model', path: '--model', message: `no model is labelled '${modelLabel}'`, expected: labels.join(', '), fix: closest ? `did you mean --model ${closest}?` : 'use one of the model labels of the configuration' });
   }
   const data = loadSupernovae(config);
   const model = buildModel(config, modelIndex, data);
@@ -43,7 +45,8 @@ export async function standardizeTable(configPath: string, given: Record<string,
   const issues: Issue[] = [];
   for (const name of Object.keys(given)) {
     if (!names.includes(name)) {
-      issues.push({ code: 'standardize.unknown_parameter', path: `--at ${name}`, message: `${name} is not a sampled parameter of model ${model.label}`, expected: names.join(', '), fix: 'give values only for the sampled parameters' });
+      const closest = closestWord(name, names);
+      issues.push({ code: 'standardize.unknown_parameter', path: `--at ${name}`, message: `${name} is not a sampled parameter of model ${model.label}`, expected: names.join(', '), fix: closest ? `did you mean --at ${closest}=...?` : 'give values only for the sampled parameters' });
     }
   }
   if (issues.length) throw new CandelaError(issues);
