@@ -64,6 +64,24 @@ describe('fits with probes', () => {
     expect(readFileSync(join(scratch, 'sn-bao', 'report.html'), 'utf8')).toContain('chi-square of bao');
   });
 
+  it('overlays runs of different configurations on one triangle figure with the union of their parameters', async () => {
+    const config = write('bao-bbn', `title: bao bbn\nseed: 9\n${bao(', ruler: computed')}models:\n  - { label: bao_bbn }\n` +
+      `parameters:\n  omega_b_h2: { prior: gaussian, mean: 0.02218, sd: 0.00055 }\n` +
+      `sampler: { walkers: 8, ensembles: 2, target_ess: 200, max_steps: 3000, check_every: 250, workers: 1 }\noutput: { dir: ${join(scratch, 'bao-bbn')}, figures: [], png: false }\n`);
+    const fitted = await runCommandLine(['fit', config, '--quiet']);
+    expect(fitted.code, fitted.stderr).toBe(0);
+    // The first test's run samples omega_m and h_ruler; this one omega_m, h0 and omega_b_h2.
+    const { code, stderr } = await runCommandLine(['report', join(scratch, 'bao-only'), join(scratch, 'bao-bbn'), '--out', join(scratch, 'overlay')]);
+    expect(code, stderr).toBe(0);
+    const svg = readFileSync(join(scratch, 'overlay', 'overlay_triangle.svg'), 'utf8');
+    // Four parameters (omega_m, h0, omega_b_h2, h_ruler): four 1-D panels and six pair panels; omega_m is drawn by both runs.
+    expect(svg.match(/class="panel marginal-panel"/g)).toHaveLength(4);
+    expect(svg.match(/class="panel pair-panel"/g)).toHaveLength(6);
+    expect(svg.match(/class="marginal"/g)).toHaveLength(5);
+    const summary = readFileSync(join(scratch, 'overlay', 'overlay_summary.md'), 'utf8');
+    for (const name of ['h_ruler', 'h0', 'omega_b_h2']) expect(summary).toContain(name);
+  });
+
   it('exits 2 naming the file and line for an unknown BAO quantity, and writes nothing', async () => {
     const table = join(scratch, 'bad.csv');
     writeFileSync(table, 'z_eff,quantity,value,sigma\n0.5,DM_over_rd,13.5,0.2\n0.7,DM_over_rs,17.3,0.2\n');
