@@ -1,10 +1,11 @@
-import { copyFileSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { compareRuns, runFit, type FitOutcome } from '../../src/pipeline/index.js';
 import { readRunFolder } from '../../src/pipeline/runFiles.js';
 import { storedConfiguration } from '../../src/pipeline/storedConfiguration.js';
 import { isCandelaError } from '../../src/errors.js';
+import { writePantheonProject } from '../support/pantheonProject.js';
 
 // `candela compare` on a run fitted with systematic modes from a configuration
 // given by a relative path, so that every stored path is relative to the folder
@@ -14,33 +15,19 @@ import { isCandelaError } from '../../src/errors.js';
 // published systematic. Short chains: the test checks paths and the DIC's
 // presence, not a converged posterior.
 const scratch = resolve('.candela-tmp/compare-stored-paths');
-const source = resolve('../shared/data-real/pantheon2018/Binned_data');
 let outcomes: FitOutcome[];
 
 beforeAll(async () => {
   rmSync(scratch, { recursive: true, force: true });
-  mkdirSync(join(scratch, 'data'), { recursive: true });
-  copyFileSync(join(source, 'lcparam_DS17f.txt'), join(scratch, 'data', 'lcparam_DS17f.txt'));
-  const rows = readFileSync(join(source, 'lcparam_DS17f.txt'), 'utf8').trim().split('\n').length - 1;
-  writeFileSync(join(scratch, 'data', 'modes.txt'), `${Array.from({ length: rows }, () => '0.01').join('\n')}\n`);
-  writeFileSync(join(scratch, 'modes.yaml'), `title: "stored paths"
-seed: 5
-supernovae:
-  - label: bins
-    kind: magnitudes
-    table: { file: data/lcparam_DS17f.txt, delimiter: whitespace }
-    columns: { id: name, z: zcmb, z_helio: zhel, magnitude: mb, magnitude_err: dmb }
-    systematic_modes:
-      - { file: data/modes.txt }
-standardization:
-  scatter: { intrinsic: off, lensing_per_redshift: 0, peculiar_velocity_km_s: 0, redshift_errors: false }
-models:
+  const path = writePantheonProject(scratch, 'modes.yaml', '    systematic_modes:\n      - { file: data/modes.txt }\n', `models:
   - { label: flat_lcdm, dark_energy: lambda, curvature: flat }
 sampler: { walkers: 8, ensembles: 2, max_steps: 200, check_every: 100, checkpoint_every: 0, target_ess: 1000000, workers: 1 }
 output: { dir: fits, figures: [triangle], png: false }
 `);
+  const rows = readFileSync(join(scratch, 'data', 'lcparam_DS17f.txt'), 'utf8').trim().split('\n').length - 1;
+  writeFileSync(join(scratch, 'data', 'modes.txt'), `${Array.from({ length: rows }, () => '0.01').join('\n')}\n`);
   // The configuration path is relative to the working folder, so the fit stores relative paths.
-  outcomes = await runFit({ configPath: relative(process.cwd(), join(scratch, 'modes.yaml')) });
+  outcomes = await runFit({ configPath: relative(process.cwd(), path) });
 }, 120_000);
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 

@@ -8,6 +8,7 @@ import { writeResolvedConfig } from '../../src/pipeline/writeResolvedConfig.js';
 import { runCommandLine } from '../support/runCommandLine.js';
 import { PANTHEON_BINNED_FOLDER } from '../support/pantheonBinnedConfig.js';
 import { useScratchFolder } from '../support/scratchFolder.js';
+import { writePantheonProject } from '../support/pantheonProject.js';
 
 // The resolved configuration stored in a run folder names its files relative
 // to that folder. Data: the Pantheon 2018 binned Hubble diagram and its
@@ -18,23 +19,9 @@ const scratch = useScratchFolder('write-resolved-config');
 afterEach(() => { process.exitCode = undefined; });
 
 function writeProject(): string {
-  mkdirSync(join(scratch, 'project', 'data'), { recursive: true });
-  for (const file of ['lcparam_DS17f.txt', 'sys_DS17f.txt']) copyFileSync(join(PANTHEON_BINNED_FOLDER, file), join(scratch, 'project', 'data', file));
-  const path = join(scratch, 'project', 'run.yaml');
-  writeFileSync(path, `seed: 1
-supernovae:
-  - label: bins
-    kind: magnitudes
-    table: { file: data/lcparam_DS17f.txt, delimiter: whitespace }
-    columns: { id: name, z: zcmb, z_helio: zhel, magnitude: mb, magnitude_err: dmb }
-    covariances:
-      - { file: data/sys_DS17f.txt, applies_to: magnitudes }
-standardization:
-  scatter: { intrinsic: off }
-models:
-  - { label: flat_lcdm, dark_energy: lambda }
-output: { dir: out }
-`);
+  const project = join(scratch, 'project');
+  const path = writePantheonProject(project, 'run.yaml', '    covariances:\n      - { file: data/sys_DS17f.txt, applies_to: magnitudes }\n', 'models:\n  - { label: flat_lcdm, dark_energy: lambda }\noutput: { dir: out }\n');
+  copyFileSync(join(PANTHEON_BINNED_FOLDER, 'sys_DS17f.txt'), join(project, 'data', 'sys_DS17f.txt'));
   // Loaded by a path relative to the working folder, as `candela fit configs/x.yaml` does.
   return relative(process.cwd(), path);
 }
