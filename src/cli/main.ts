@@ -48,7 +48,21 @@ function isEntryPoint(): boolean {
   }
 }
 
+/**
+ * A reader that stops early (`candela standardize CONFIG | head`) closes the
+ * pipe; the next write then fails with EPIPE. That is the reader's choice,
+ * not an error: candela stops quietly with exit code 0, as command-line
+ * filters do (common practice). Other stream errors keep their report.
+ */
+function endQuietlyWhenReaderLeaves(stream: NodeJS.WriteStream): void {
+  stream.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(0);
+    throw error;
+  });
+}
+
 if (isEntryPoint()) {
+  endQuietlyWhenReaderLeaves(process.stdout);
   main(process.argv.slice(2)).then((code) => {
     process.exitCode = code;
   });
