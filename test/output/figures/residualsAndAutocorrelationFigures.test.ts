@@ -1,3 +1,4 @@
+import { readFileSync, writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { autocorrelationFigure, residualsFigure } from '../../../src/output/figures/index.js';
 import { isCandelaError } from '../../../src/errors.js';
@@ -56,5 +57,33 @@ describe('autocorrelationFigure', () => {
     const tree = parseXml(autocorrelationFigure([{ parameter: 'w0', correlation, tauSteps: null }, { parameter: 'omega_m', correlation, tauSteps: 3 }]));
     expect(findAll(tree, 'path', (node) => hasClass(node, 'autocorrelation'))).toHaveLength(2);
     expect(findAll(tree, 'path', (node) => hasClass(node, 'tau-marker'))).toHaveLength(1);
+  });
+});
+
+describe('golden files', () => {
+  // Fixed inputs with literal numbers; the golden files were inspected by eye (rendered to PNG) when
+  // written. Set CANDELA_UPDATE_GOLDEN=1 to rewrite them after an intended change.
+  const golden = (name: string, svg: string) => {
+    const path = `test/golden/figures/${name}`;
+    if (process.env.CANDELA_UPDATE_GOLDEN) writeFileSync(path, svg);
+    expect(svg).toBe(readFileSync(path, 'utf8'));
+  };
+
+  it('draws the fixed residuals exactly as test/golden/figures/residuals-tiny.svg', () => {
+    golden('residuals-tiny.svg', residualsFigure({
+      redshift: Float64Array.of(0.015, 0.03, 0.08, 0.2, 0.45, 0.9), residualMag: Float64Array.of(0.04, -0.06, 0.01, -0.02, 0.05, -0.4),
+      errorMag: Float64Array.of(0.12, 0.1, 0.08, 0.07, 0.09, 0.15), sample: ['near', 'near', 'near', 'far', 'far', 'far'],
+      binnedResiduals: [{ z: 0.03, mean: -0.01, err: 0.06 }, { z: 0.4, mean: 0.01, err: 0.05 }],
+      modelBand: { z: Float64Array.of(0.01, 0.1, 1), low68: Float64Array.of(-0.005, -0.01, -0.03), high68: Float64Array.of(0.005, 0.01, 0.03) },
+    }, { width: 'single' }));
+  });
+
+  it('draws the AR(1) autocorrelations exactly as test/golden/figures/autocorrelation-tiny.svg', () => {
+    // rho(t) = phi^t with tau = (1 + phi)/(1 - phi) (textbook AR(1) result) for phi = 0.5 and 0.8.
+    const ar1 = (phi: number) => Float64Array.from({ length: 120 }, (_, lag) => phi ** lag);
+    golden('autocorrelation-tiny.svg', autocorrelationFigure([
+      { parameter: 'omega_m', correlation: ar1(0.5), tauSteps: 3 },
+      { parameter: 'w0', correlation: ar1(0.8), tauSteps: 9 },
+    ], { width: 'single' }));
   });
 });
