@@ -105,7 +105,7 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   const posterior = model.posterior;
   const result = runNestedSampling(
     { dimension: posterior.dimension, priorTransform: posterior.priorTransform, logLikelihood: posterior.logLikelihood },
-    { livePoints: settings.livePoints, dlogz: settings.maxUnexploredLnZ, maxIterations: settings.maxIterations, seed, enlargement: DEFAULT_ELLIPSOID_ENLARGEMENT },
+    { livePoints: settings.livePoints, maxUnexploredLnZ: settings.maxUnexploredLnZ, maxIterations: settings.maxIterations, seed, enlargement: DEFAULT_ELLIPSOID_ENLARGEMENT },
   );
   const weights = Float64Array.from(result.logWeights, Math.exp);
   const draws = storedDraws(model, result);
@@ -118,7 +118,7 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   const hubbleDraws = Math.max(MINIMUM_HUBBLE_DRAWS, Math.round(result.effectiveSampleSize));
   writeHubbleFiles(runDir, model, [equallyWeighted(draws, weights, best.row, hubbleDraws, seed)], 0, seed);
   buildRunOutputs([runDir], runDir);
-  say(`model ${model.label}: ln Z = ${result.logZ.toFixed(3)} +- ${result.logZError.toFixed(3)} after ${result.iterations} iterations (${result.likelihoodCalls} likelihood calls, ${result.stopReason === 'dlogz' ? 'unexplored ln Z below its bound' : 'iteration cap reached'}) in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
+  say(`model ${model.label}: ln Z = ${result.logZ.toFixed(3)} +- ${result.logZError.toFixed(3)} after ${result.iterations} iterations (${result.likelihoodCalls} likelihood calls, ${result.stopReason === 'evidence_settled' ? 'unexplored ln Z below its bound' : 'iteration cap reached'}) in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
   const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
   if (result.stopReason === 'iterations') {
     warnings.push({

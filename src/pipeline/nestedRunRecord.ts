@@ -62,7 +62,7 @@ export function createNestedRunRecord(input: {
     run: {
       seed: String(config.seed), steps: rows, burn_in_steps: 0, walkers: 1, ensembles: 1,
       evaluations: result.likelihoodCalls, wall_seconds: Math.round(input.wallSeconds * 1000) / 1000, worker_threads: 1,
-      stop_reason: result.stopReason === 'dlogz' ? 'converged' : 'max_steps',
+      stop_reason: result.stopReason === 'evidence_settled' ? 'converged' : 'max_steps',
       target_ess: config.sampler.targetEss, max_rhat: config.sampler.maxRhat,
     },
     sampler: {
@@ -71,7 +71,7 @@ export function createNestedRunRecord(input: {
       max_unexplored_ln_z: config.sampler.nested.maxUnexploredLnZ,
       max_iterations: config.sampler.nested.maxIterations,
       enlargement: input.enlargement,
-      stop: result.stopReason === 'dlogz' ? 'max_unexplored_ln_z' : 'max_iterations',
+      stop: result.stopReason === 'evidence_settled' ? 'max_unexplored_ln_z' : 'max_iterations',
       remaining_log_z: result.remainingLogZ,
       effective_sample_size: result.effectiveSampleSize,
     },

@@ -35,7 +35,7 @@ describe.skipIf(skipBrowserTests)(browserTestTitle('models index page in headles
       const { page, problems } = await watchedPage(browser);
       page.on('requestfailed', (request) => problems.push(`failed: ${request.url()}`));
       await page.goto(pathToFileURL(index).href, { waitUntil: 'load' });
-      const links = await page.$$eval('#models thead a', (anchors) => anchors.map((anchor) => (anchor as HTMLAnchorElement).href));
+      const links = await page.$$eval('#models thead a', (anchors) => anchors.map((anchor) => (anchor as unknown as { href: string }).href));
       expect(links).toHaveLength(LABELS.length);
       for (const link of links) {
         const response = await page.goto(link, { waitUntil: 'load' });

@@ -49,7 +49,7 @@ describe('detectPriorEdges', () => {
     // Flat draws on [0, 1] weighted by 2 (1 - x) are a triangular density falling from the edge 0: its 95% quantile is 1 - sqrt(0.05) = 0.776393.
     const values = draws('weighted', (u) => u);
     const weights = Float64Array.from(values, (x) => 2 * (1 - x));
-    const summary = { name: 'sigma_int', stats: sampleStatistics(values, { label: 'sigma_int', weights }) };
+    const summary: ParameterSummary = { name: 'sigma_int', stats: sampleStatistics(values, { label: 'sigma_int', weights }) };
     const warning = detectPriorEdges({ summary, bounds: { lower: 0, upper: 1 }, bestFit: 0.001, draws: values, weights });
     expect(warning?.code).toBe('prior_edge');
     expect(summary.oneSidedLimit!.value).toBeCloseTo(1 - Math.sqrt(0.05), 2);

@@ -101,8 +101,8 @@ describe('simulateSurvey with systematics_form: modes', () => {
     const matrixModel = buildModel(withMatrix, 0, loadSupernovae(withMatrix));
     expect(modesModel.parameterNames).toEqual(['omega_m', 'w0', 'abs_mag', 'alpha', 'beta']);
     expect(matrixModel.parameterNames).toEqual(modesModel.parameterNames);
-    expect(modesModel.supernovae.path).toBe('low_rank');
-    expect(matrixModel.supernovae.path).toBe('general');
+    expect(modesModel.supernovae?.path).toBe('low_rank');
+    expect(matrixModel.supernovae?.path).toBe('general');
     const points = [[0.3, -0.9, -19.3, 0.14, 3.1], [0.25, -1.1, -19.35, 0.12, 2.9], [0.4, -0.7, -19.2, 0.17, 3.4]];
     const values = points.map((point) => {
       const theta = Float64Array.from(point);

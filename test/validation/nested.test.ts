@@ -32,7 +32,7 @@ function pullStatistics(test: Case, seeds: number, livePoints: number): { mean: 
   let calls = 0;
   const start = performance.now();
   for (let s = 0; s < seeds; s++) {
-    const result = runNestedSampling(test.problem, { livePoints, dlogz: 0.05, maxIterations: 1_000_000, seed: `validate/${test.name}/${s}` });
+    const result = runNestedSampling(test.problem, { livePoints, maxUnexploredLnZ: 0.05, maxIterations: 1_000_000, seed: `validate/${test.name}/${s}` });
     pulls.push((result.logZ - test.truth) / result.logZError);
     calls += result.likelihoodCalls;
     let lower = 0;

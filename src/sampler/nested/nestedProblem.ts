@@ -34,7 +34,7 @@ export interface NestedOptions {
    * Stopping tolerance in nats: stop when the largest evidence the live points
    * could still add, ln(Z + L_max X) - ln Z, is below it (e.g. 0.01 to 0.5).
    */
-  dlogz: number;
+  maxUnexploredLnZ: number;
   /** Hard cap on iterations (dead points), an integer >= 1; reaching it sets `stopReason: 'iterations'`. */
   maxIterations: number;
   /** Seed string of the random stream (src/math createRandomStream); same seed, same result. */
@@ -69,8 +69,8 @@ export interface NestedResult {
   logWeights: Float64Array;
   /** Kish (1965) effective sample size of the weights, 1 / sum(weight^2). */
   effectiveSampleSize: number;
-  /** Why the run stopped: the dlogz criterion was met, or maxIterations was reached. */
-  stopReason: 'dlogz' | 'iterations';
+  /** Why the run stopped: the unexplored evidence fell below maxUnexploredLnZ, or maxIterations was reached. */
+  stopReason: 'evidence_settled' | 'iterations';
   /** The remaining-evidence estimate ln(Z + L_max X) - ln Z when the run stopped (nats). */
   remainingLogZ: number;
 }

@@ -13,7 +13,7 @@ export const DEFAULT_ELLIPSOID_ENLARGEMENT = 1.5;
 /** The options with the default filled in. */
 export interface ResolvedNestedOptions {
   livePoints: number;
-  dlogz: number;
+  maxUnexploredLnZ: number;
   maxIterations: number;
   seed: string;
   enlargement: number;
@@ -26,14 +26,14 @@ function isPositiveInteger(value: unknown): value is number {
 /**
  * Checks {@link NestedOptions} for a problem of `dimension` parameters and
  * fills the default enlargement. Every problem is collected; issue paths are
- * the option names (`livePoints`, `dlogz`, ...).
+ * the option names (`livePoints`, `maxUnexploredLnZ`, ...).
  *
  * Cost: O(1).
- * @param options The caller's options (livePoints count, dlogz in nats, maxIterations count, seed, enlargement as a volume factor).
+ * @param options The caller's options (livePoints count, maxUnexploredLnZ in nats, maxIterations count, seed, enlargement as a volume factor).
  * @param dimension Number of parameters D of the problem.
  * @throws CandelaError with code `sampler.invalid_option` (one issue per bad field),
  *   including livePoints < 2 (D + 1), which is too few to fit a bounding ellipsoid.
- * @example resolveNestedOptions({ livePoints: 100, dlogz: 0.1, maxIterations: 1e5, seed: 's' }, 2).enlargement // 1.5
+ * @example resolveNestedOptions({ livePoints: 100, maxUnexploredLnZ: 0.1, maxIterations: 1e5, seed: 's' }, 2).enlargement // 1.5
  */
 export function resolveNestedOptions(options: NestedOptions, dimension: number): ResolvedNestedOptions {
   const issues: Issue[] = [];
@@ -42,7 +42,7 @@ export function resolveNestedOptions(options: NestedOptions, dimension: number):
   };
   const resolved: ResolvedNestedOptions = {
     livePoints: options.livePoints,
-    dlogz: options.dlogz,
+    maxUnexploredLnZ: options.maxUnexploredLnZ,
     maxIterations: options.maxIterations,
     seed: options.seed,
     enlargement: options.enlargement ?? DEFAULT_ELLIPSOID_ENLARGEMENT,
@@ -52,7 +52,7 @@ export function resolveNestedOptions(options: NestedOptions, dimension: number):
   if (!isPositiveInteger(resolved.livePoints) || resolved.livePoints < minimumLive) {
     invalid('livePoints', `an integer >= ${minimumLive} (2 x (dimension + 1))`, resolved.livePoints);
   }
-  if (!(resolved.dlogz > 0) || !Number.isFinite(resolved.dlogz)) invalid('dlogz', 'a finite number > 0 (nats)', resolved.dlogz);
+  if (!(resolved.maxUnexploredLnZ > 0) || !Number.isFinite(resolved.maxUnexploredLnZ)) invalid('maxUnexploredLnZ', 'a finite number > 0 (nats)', resolved.maxUnexploredLnZ);
   if (!isPositiveInteger(resolved.maxIterations)) invalid('maxIterations', 'an integer >= 1', resolved.maxIterations);
   if (typeof resolved.seed !== 'string' || resolved.seed.length === 0) invalid('seed', 'a non-empty string', resolved.seed);
   if (!(resolved.enlargement >= 1) || !Number.isFinite(resolved.enlargement)) invalid('enlargement', 'a finite volume factor >= 1', resolved.enlargement);

@@ -53,12 +53,12 @@ function zeroEvidence(calls: number): CandelaError {
  * L_i, assigns it the prior mass w_i = X_(i-1) - X_i with the deterministic
  * shrinkage X_i = exp(-i / N), adds w_i L_i to Z, and replaces it by a prior
  * draw with L > L_i taken uniformly inside the enlarged bounding ellipsoids of
- * the live points. The run stops when ln(Z + L_max X_i) - ln Z < dlogz; the
+ * the live points. The run stops when ln(Z + L_max X_i) - ln Z < maxUnexploredLnZ; the
  * final live points are then added, each with prior mass X_i / N. The error
  * of ln Z is sqrt(H / N) (Skilling 2006).
  *
  * Deterministic for a given seed (one createRandomStream stream; the draw
- * order is fixed). Cost: about N (H + ln(1/dlogz)) iterations, each one O(N)
+ * order is fixed). Cost: about N (H + ln(1/maxUnexploredLnZ)) iterations, each one O(N)
  * scan plus a few likelihood calls (the rejection rate grows with D and with
  * the enlargement); bounds are rebuilt every {@link BOUND_REBUILD_SHARE} x N
  * iterations at O(N D^2) each. Memory O((iterations + N) D).
@@ -66,7 +66,7 @@ function zeroEvidence(calls: number): CandelaError {
  * Assumes the likelihood has no plateaus (regions of exactly constant L > 0);
  * a zero likelihood (-Infinity) region is fine.
  * @param problem Dimension, prior transform and log-likelihood (nats).
- * @param options Live points, dlogz (nats), iteration cap, seed, enlargement.
+ * @param options Live points, maxUnexploredLnZ (nats), iteration cap, seed, enlargement.
  * @param onProgress Called after every iteration with (iteration, ln Z so far, remaining-evidence estimate in nats).
  * @returns Evidence, its error, information, the weighted posterior samples and counts.
  * @throws CandelaError `sampler.invalid_option` for bad options;
@@ -76,7 +76,7 @@ function zeroEvidence(calls: number): CandelaError {
  * @example
  * const result = runNestedSampling(
  *   { dimension: 1, priorTransform: (u, x) => { x[0] = 20 * u[0] - 10; }, logLikelihood: (x) => -0.5 * x[0] ** 2 - 0.5 * Math.log(2 * Math.PI) },
- *   { livePoints: 200, dlogz: 0.1, maxIterations: 100_000, seed: 'demo' });
+ *   { livePoints: 200, maxUnexploredLnZ: 0.1, maxIterations: 100_000, seed: 'demo' });
  * result.logZ // about ln(1/20) = -3.00 +- 0.09
  */
 export function runNestedSampling(problem: NestedProblem, options: NestedOptions, onProgress?: NestedProgress): NestedResult {
@@ -127,8 +127,8 @@ export function runNestedSampling(problem: NestedProblem, options: NestedOptions
     }
     const logX = -iteration / liveCount;
     remaining = tally.logZ === -Infinity ? Infinity : logAddExp(tally.logZ, liveLogL[best] + logX) - tally.logZ;
-    if (remaining < settings.dlogz) {
-      stopReason = 'dlogz';
+    if (remaining < settings.maxUnexploredLnZ) {
+      stopReason = 'evidence_settled';
       break;
     }
     if (iteration >= settings.maxIterations) break;

@@ -17,7 +17,7 @@ import { axisGaussianLogLikelihood, boxPrior, correlatedGaussianLogLikelihood, t
 const ERROR_MULTIPLE = 3;
 
 function run(problem: NestedProblem, overrides: Partial<NestedOptions> = {}): NestedResult {
-  return runNestedSampling(problem, { livePoints: 200, dlogz: 0.05, maxIterations: 200_000, seed: 'nested-test', ...overrides });
+  return runNestedSampling(problem, { livePoints: 200, maxUnexploredLnZ: 0.05, maxIterations: 200_000, seed: 'nested-test', ...overrides });
 }
 
 function sumOfWeights(result: NestedResult, select: (row: number) => boolean = () => true): number {
@@ -33,7 +33,7 @@ describe('runNestedSampling', () => {
     const truth = -5.991464547107982;
     const result = run({ dimension: 2, priorTransform: boxPrior(2, -10, 10), logLikelihood: correlatedGaussianLogLikelihood([1, -0.5], 1, 1.5, 0.8) });
     expect(Math.abs(result.logZ - truth)).toBeLessThan(ERROR_MULTIPLE * result.logZError);
-    expect(result.stopReason).toBe('dlogz');
+    expect(result.stopReason).toBe('evidence_settled');
     expect(result.remainingLogZ).toBeLessThan(0.05);
     // Skilling (2006): about N x H iterations are needed; sqrt(H/N) must be the reported error.
     expect(result.logZError).toBeCloseTo(Math.sqrt(result.information / 200), 12);
@@ -106,7 +106,7 @@ describe('runNestedSampling', () => {
     );
     const withProgress = runNestedSampling(
       { dimension: 2, priorTransform: boxPrior(2, -10, 10), logLikelihood: correlatedGaussianLogLikelihood([0, 0], 1, 1, 0) },
-      { livePoints: 200, dlogz: 0.05, maxIterations: 50, seed: 'nested-test' },
+      { livePoints: 200, maxUnexploredLnZ: 0.05, maxIterations: 50, seed: 'nested-test' },
       (iteration, logZ, remaining) => {
         expect(Number.isFinite(logZ)).toBe(true);
         expect(remaining).toBeGreaterThan(0);
@@ -123,12 +123,12 @@ describe('runNestedSampling', () => {
   it('throws sampler.invalid_option for every bad option at once', () => {
     const problem = { dimension: 3, priorTransform: boxPrior(3, 0, 1), logLikelihood: () => 0 };
     try {
-      runNestedSampling(problem, { livePoints: 5, dlogz: 0, maxIterations: 1.5, seed: '', enlargement: 0.5 });
+      runNestedSampling(problem, { livePoints: 5, maxUnexploredLnZ: 0, maxIterations: 1.5, seed: '', enlargement: 0.5 });
       expect.unreachable();
     } catch (error) {
       expect(isCandelaError(error)).toBe(true);
       const paths = (error as { issues: Array<{ code: string; path: string }> }).issues.map((issue) => `${issue.code}:${issue.path}`);
-      expect(paths).toEqual(['livePoints', 'dlogz', 'maxIterations', 'seed', 'enlargement'].map((path) => `sampler.invalid_option:${path}`));
+      expect(paths).toEqual(['livePoints', 'maxUnexploredLnZ', 'maxIterations', 'seed', 'enlargement'].map((path) => `sampler.invalid_option:${path}`));
     }
   });
 
