@@ -59,6 +59,7 @@ export { describeConfig } from './describeConfig.js';
 export { describePrior } from './describeConfig.js';
 export { starterConfigText } from './starterConfigText.js';
 export { STARTER_DATA_FOLDER } from './starterConfigText.js';
+export { STARTER_TABLE_FILE } from './starterConfigText.js';
 export type { StarterOptions } from './starterConfigText.js';
 // Helpers
 export { resolveConfigPath } from './resolveConfigPath.js';
