@@ -1,4 +1,4 @@
-import { createCosmology, type DarkEnergyLaw } from '../cosmology/index.js';
+import { CMB_TEMPERATURE_K, createCosmology, type DarkEnergyLaw } from '../cosmology/index.js';
 import { isCandelaError } from '../errors.js';
 import type { DarkEnergyBand, DarkEnergyBandsInput } from '../output/index.js';
 import type { BuiltModel } from './buildModel.js';
@@ -15,8 +15,6 @@ export const DISTANCE_CURVE_POINTS = 100;
 export const DISTANCE_RESIDUAL_BINS = 12;
 /** Smallest redshift of the curves (the data may include z = 0 calibrators). */
 const MINIMUM_CURVE_REDSHIFT = 1e-3;
-/** Radiation constants matching the cosmology layer's convention. */
-const CMB_TEMPERATURE_K = 2.7255;
 
 interface MagnitudeCurve {
   /** Apparent standardized magnitude m(z) = mu(z) + M at the grid, mag. */

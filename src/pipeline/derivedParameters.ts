@@ -1,4 +1,4 @@
-import { createCosmology } from '../cosmology/index.js';
+import { DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, CMB_TEMPERATURE_K, createCosmology } from '../cosmology/index.js';
 import type { DarkEnergyLaw } from '../cosmology/index.js';
 import { SPEED_OF_LIGHT_KM_PER_S } from '../math/index.js';
 
@@ -21,9 +21,6 @@ export interface DerivedModel {
   referenceH0KmPerSPerMpc: number;
 }
 
-/** Radiation constants matching the cosmology layer's convention (photons at 2.7255 K, 3.046 massless neutrino species). */
-const CMB_TEMPERATURE_K = 2.7255;
-const EFFECTIVE_NEUTRINO_SPECIES = 3.046;
 
 /**
  * Builds a function that fills the requested derived quantities for one
@@ -44,7 +41,7 @@ export function createDerivedParameters(model: DerivedModel, names: readonly str
       wa: values.wa ?? 0,
       h0KmPerSPerMpc: h0,
       cmbTemperatureK: model.radiation ? CMB_TEMPERATURE_K : 0,
-      effectiveNeutrinoSpecies: EFFECTIVE_NEUTRINO_SPECIES,
+      effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES,
     });
     for (let k = 0; k < names.length; k++) {
       if (!outcome.ok) {

@@ -1,11 +1,12 @@
 import { readFileSync } from 'node:fs';
 import { CandelaError } from '../errors.js';
 import type { Issue } from '../errors.js';
-import { createCosmology } from '../cosmology/index.js';
+import { CMB_TEMPERATURE_K, createCosmology } from '../cosmology/index.js';
 import type { CosmologyParameters, DarkEnergyLaw } from '../cosmology/index.js';
 
 /** CMB temperature used when radiation is switched on without a temperature, K (Fixsen 2009, ApJ 707, 916). */
-export const DEFAULT_CMB_TEMPERATURE_K = 2.7255;
+/** Photon temperature when radiation is on: the cosmology layer's constant (Fixsen 2009). */
+export const DEFAULT_CMB_TEMPERATURE_K = CMB_TEMPERATURE_K;
 
 /** Plain options of a distance table (no configuration file involved). */
 export interface DistanceTableOptions {

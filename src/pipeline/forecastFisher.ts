@@ -9,6 +9,7 @@ import { centralDifferenceHessian } from './forecastHessian.js';
 import { marginalizeFisher } from './forecastMarginals.js';
 import type { FisherMarginals } from './forecastMarginals.js';
 import type { ForecastSetup } from './forecastSetups.js';
+import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES } from '../cosmology/index.js';
 
 /**
  * Pilot step of the finite differences, relative to max(1, |value|): only
@@ -26,9 +27,6 @@ export const PILOT_RELATIVE_STEP = 1e-4;
  * precision is ~1e-9 at these steps); a ten-thousandth starts to show it.
  */
 export const STEP_FRACTION_OF_SIGMA = 1e-3;
-/** Photon temperature and neutrino species when a model includes radiation (as in buildModel). */
-const CMB_TEMPERATURE_K = 2.7255;
-const EFFECTIVE_NEUTRINO_SPECIES = 3.046;
 
 /** The forecast of one model. */
 export interface ModelForecast {
@@ -106,7 +104,7 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFract
     // Exact paths only (the compressed one trades 1e-7 in chi^2 for speed, which finite differences would amplify).
     name: 'forecast', table, covariances, ...(modes ? { systematicModes: modes } : {}), offset: 'sample',
     fastPath: dense ? 'general' : modes ? 'low_rank' : 'diagonal',
-    cosmologyModel: { darkEnergy: setup.darkEnergy, flat: setup.flat, cmbTemperatureK: setup.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: EFFECTIVE_NEUTRINO_SPECIES },
+    cosmologyModel: { darkEnergy: setup.darkEnergy, flat: setup.flat, cmbTemperatureK: setup.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES },
   };
   const shapesOnlyCovariance = (name: string): boolean => parseParameterName(name)?.base === 'sigma_int';
   const meanNames = names.filter((name) => !shapesOnlyCovariance(name));

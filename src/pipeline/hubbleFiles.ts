@@ -1,6 +1,6 @@
 import { writeProbeDiagrams } from './probeDiagramFiles.js';
 import { join } from 'node:path';
-import { createCosmology } from '../cosmology/index.js';
+import { CMB_TEMPERATURE_K, createCosmology } from '../cosmology/index.js';
 import { createRandomStream, deriveSeed, quantileOfSortedDraws } from '../math/index.js';
 import { writeFileAtomic } from '../output/index.js';
 import type { HubbleDiagram } from '../likelihood/index.js';
@@ -13,7 +13,6 @@ import { RUN_FILES } from './runFolder.js';
 const BAND_DRAWS = 200;
 /** Points of the model curve, log-spaced in redshift. */
 const CURVE_POINTS = 120;
-const CMB_TEMPERATURE_K = 2.7255;
 
 function csvNumber(value: number): string {
   return Number.isFinite(value) ? String(value) : '';

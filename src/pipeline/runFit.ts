@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
-import { closestWord, loadConfigFile, resolvedConfigToYaml, type CandelaConfig } from '../config/index.js';
+import { closestWord, loadConfigFile, type CandelaConfig } from '../config/index.js';
 import { CandelaError, type Issue } from '../errors.js';
 import { samplePrior } from '../likelihood/index.js';
 import {
@@ -18,6 +18,7 @@ import { prepareRunFolder, RUN_FILES } from './runFolder.js';
 import { checkConvergence, type ConvergenceCheck, type StopReason } from './samplingLoop.js';
 import { createRunRecord, type RunRecord } from './runRecord.js';
 import { writeHubbleFiles } from './hubbleFiles.js';
+import { writeResolvedConfig } from './writeResolvedConfig.js';
 import { buildRunOutputs } from './buildRunOutputs.js';
 import { workerModelUrl } from './workerModel.js';
 import { fitNestedModel } from './nestedFit.js';
@@ -337,7 +338,7 @@ async function fitOneModel(
       part: { index: part.index, model_index: part.modelIndex, ensemble: part.ensemble, ensembles_total: part.ensembles, part_target_ess: rule.targetEss, steps_target: maxSteps },
     } : stored;
     writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
-    writeFileAtomic(join(runDir, RUN_FILES.resolvedConfig), resolvedConfigToYaml(config));
+    writeResolvedConfig(runDir, config); // paths relative to the run folder, so the copy re-runs as is
     const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
     if (!summarized) {
       say(`model ${model.label}${partNote}: interrupted after ${sampler.stepCount} steps, fewer than the ${MINIMUM_STEPS_FOR_OUTPUTS} the summaries need; wrote the checkpoint, chains.csv and run.json in ${runDir}`);

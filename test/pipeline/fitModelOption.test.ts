@@ -35,6 +35,9 @@ describe('candela fit --model', () => {
     expect(existsSync(join(scratch, 'one', 'flat_lcdm'))).toBe(false);
     const chains = (dir: string) => readFileSync(join(scratch, dir, 'flat_wcdm', 'chains.csv'));
     expect(chains('one').equals(chains('full'))).toBe(true);
+    // The resolved copy of the configuration holds paths relative to the run folder, so it validates from there (regression).
+    const again = await runCommandLine(['check', join(scratch, 'full', 'flat_wcdm', 'config.resolved.yaml')]);
+    expect(again.code, again.stderr).toBe(0);
   });
 
   it('exits 2 for a label the configuration does not have, naming --model and the closest label', async () => {

@@ -2,6 +2,7 @@ import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
 import cliProgress from 'cli-progress';
 import { CandelaError, formatIssue } from '../../errors.js';
+import { closestWord } from '../../config/index.js';
 import { isFitInterrupted, planSlurmArray, runFit, terminalRunReport, type FitOutcome, type FitProgress } from '../../pipeline/index.js';
 
 /** Seconds between status lines when the output is not a terminal. */
@@ -91,7 +92,7 @@ export function registerFitCommand(program: Command): void {
     .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string; model?: string;
       stepsPerPart?: number; clusterAccount?: string; clusterQueue?: string; partMemory?: string; partMinutes?: number; stopWarning?: number; nodeBinary?: string }) => {
       if (options.plan !== undefined) {
-        if (options.plan !== 'slurm') throw new CandelaError({ code: 'fit.unknown_plan', path: '--plan', message: 'this scheduler is not supported', expected: 'slurm', found: options.plan });
+        if (options.plan !== 'slurm') throw new CandelaError({ code: 'fit.unknown_plan', path: '--plan', message: 'this scheduler is not supported', expected: 'slurm', found: options.plan, fix: closestWord(options.plan, ['slurm']) ? 'did you mean "slurm"?' : 'write --plan slurm (the only scheduler candela plans for)' });
         if (options.part !== undefined) throw new CandelaError({ code: 'fit.plan_with_part', path: '--part', message: '--plan writes the scripts of every part; it takes no --part', fix: 'drop --part' });
         const launcher = currentLauncher();
         if (options.nodeBinary !== undefined) launcher[0] = options.nodeBinary;
