@@ -120,7 +120,11 @@ export function applyCuts(table: SupernovaTable, cuts: CutOptions): { table: Sup
     if (sigma) apply(`maxErrors.${field}`, `${field} <= ${max}`, (i) => sigma[i] > max);
   }
   if (problems.length === 0 && remaining === 0) {
-    problems.push({ code: 'cuts.nothing_left', file: table.sourceFile, message: `the cuts removed all ${table.count} supernovae`, fix: 'loosen the cuts; the cut report lists what each removed' });
+    const removedBy = steps.filter((step) => step.removed > 0).map((step) => `keep ${step.description}: ${step.removed} removed`).join('; ');
+    problems.push({
+      code: 'cuts.nothing_left', file: table.sourceFile, message: `the cuts removed all ${table.count} supernovae`,
+      found: removedBy || undefined, fix: 'loosen the cuts; the cut report lists what each removed',
+    });
   }
   if (problems.length > 0) throw new CandelaError(problems);
 

@@ -151,24 +151,27 @@ function cutDataSet(
   multiple: boolean, cutsAt: Pick<Issue, 'file' | 'line' | 'column' | 'path'>,
 ): LoadedPart {
   const cuts = set.cuts;
-  const { table: cut, keptIndices, report } = applyCuts(raw, {
-    redshiftMin: cuts.redshift?.[0],
-    redshiftMax: cuts.redshift?.[1],
-    maxAbsStretch: cuts.maxAbsX1 ?? undefined,
-    maxAbsColor: cuts.maxAbsColor ?? undefined,
-    maxErrors: cuts.maxErrors,
-    keepSamples: cuts.keepSamples ?? undefined,
-    dropIds: cuts.dropIds,
-    exemptCalibratorsFromRedshiftCuts: cuts.keepCalibrators,
-  });
-  if (cut.count === 0) {
-    const removed = report.steps.filter((step) => step.removed > 0).map((step) => `keep ${step.description} removed ${step.removed}`).join('; ');
-    throw new CandelaError({
-      ...cutsAt, code: 'data.all_cut',
-      message: `the cuts removed all ${raw.count} supernovae of data set '${set.label}' (table ${set.table.file.written})`,
-      found: removed || undefined, fix: `loosen the cuts under ${cutsAt.path}, so that some supernovae remain`,
+  let outcome: ReturnType<typeof applyCuts>;
+  try {
+    outcome = applyCuts(raw, {
+      redshiftMin: cuts.redshift?.[0],
+      redshiftMax: cuts.redshift?.[1],
+      maxAbsStretch: cuts.maxAbsX1 ?? undefined,
+      maxAbsColor: cuts.maxAbsColor ?? undefined,
+      maxErrors: cuts.maxErrors,
+      keepSamples: cuts.keepSamples ?? undefined,
+      dropIds: cuts.dropIds,
+      exemptCalibratorsFromRedshiftCuts: cuts.keepCalibrators,
     });
+  } catch (error) {
+    if (!(error instanceof CandelaError)) throw error;
+    // A cut problem is fixed in the configuration: point at its cuts key, name the data set and its table.
+    throw new CandelaError(error.issues.map((issue) => ({
+      ...issue, ...cutsAt, message: `${issue.message} (data set '${set.label}', table ${set.table.file.written})`,
+      fix: issue.code === 'cuts.nothing_left' ? `loosen the cuts under ${cutsAt.path}, so that some supernovae remain` : issue.fix,
+    })));
   }
+  const { table: cut, keptIndices, report } = outcome;
   const relabelled = multiple ? relabelSamples(cut, set.label) : cut;
   const table = set.covariances.some((source) => source.includesStatistical) ? withoutStatisticalErrors(relabelled) : relabelled;
   const covariances = fullCovariances.map((cov) => subsetCovariance(cov, keptIndices));
