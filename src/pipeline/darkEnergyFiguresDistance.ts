@@ -1,4 +1,4 @@
-import { CMB_TEMPERATURE_K, createCosmology, type DarkEnergyLaw } from '../cosmology/index.js';
+import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, cosmologyParametersFromValues, createCosmology, type DarkEnergyLaw } from '../cosmology/index.js';
 import { isCandelaError } from '../errors.js';
 import type { DarkEnergyBand, DarkEnergyBandsInput } from '../output/index.js';
 import type { BuiltModel } from './buildModel.js';
@@ -37,13 +37,9 @@ function magnitudeCurve(model: BuiltModel): MagnitudeCurve {
     }
     const spec = model.cosmologyModel;
     const law: DarkEnergyLaw = flatLambda ? 'lambda' : spec.darkEnergy;
-    const outcome = createCosmology({
-      darkEnergy: law, flat: flatLambda || spec.flat, omegaMatter: values.omega_m,
-      omegaDarkEnergy: flatLambda || spec.flat ? undefined : values.omega_de,
-      w0: law === 'lambda' ? -1 : values.w0, wa: law === 'cpl' ? values.wa : 0,
-      h0KmPerSPerMpc: model.parameterNames.includes('h0') ? values.h0 : (nominalH0 as number),
-      cmbTemperatureK: spec.radiation ? CMB_TEMPERATURE_K : 0,
-    }, { maxRedshift: grid[grid.length - 1] });
+    const family = { darkEnergy: law, flat: flatLambda || spec.flat, cmbTemperatureK: spec.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES };
+    const h0 = model.parameterNames.includes('h0') ? values.h0 : (nominalH0 as number);
+    const outcome = createCosmology(cosmologyParametersFromValues(family, { ...values, h0 }, h0), { maxRedshift: grid[grid.length - 1] });
     if (!outcome.ok || !Number.isFinite(absoluteMagnitude)) return null;
     const out = outcome.cosmology.distanceModuliMag(grid);
     for (let i = 0; i < out.length; i++) out[i] += absoluteMagnitude;

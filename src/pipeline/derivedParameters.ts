@@ -1,4 +1,4 @@
-import { DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, CMB_TEMPERATURE_K, createCosmology } from '../cosmology/index.js';
+import { DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, CMB_TEMPERATURE_K, cosmologyParametersFromValues, createCosmology } from '../cosmology/index.js';
 import type { DarkEnergyLaw } from '../cosmology/index.js';
 import { SPEED_OF_LIGHT_KM_PER_S } from '../math/index.js';
 
@@ -30,19 +30,10 @@ export interface DerivedModel {
  * log-posterior points).
  */
 export function createDerivedParameters(model: DerivedModel, names: readonly string[]) {
+  const family = { darkEnergy: model.darkEnergy, flat: model.flat, cmbTemperatureK: model.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES };
   return function fillDerived(values: Readonly<Record<string, number>>, out: Float64Array, offset: number): void {
     const h0 = values.h0 ?? model.referenceH0KmPerSPerMpc;
-    const outcome = createCosmology({
-      darkEnergy: model.darkEnergy,
-      flat: model.flat,
-      omegaMatter: values.omega_m,
-      omegaDarkEnergy: model.flat ? undefined : values.omega_de,
-      w0: values.w0 ?? -1,
-      wa: values.wa ?? 0,
-      h0KmPerSPerMpc: h0,
-      cmbTemperatureK: model.radiation ? CMB_TEMPERATURE_K : 0,
-      effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES,
-    });
+    const outcome = createCosmology(cosmologyParametersFromValues(family, values, model.referenceH0KmPerSPerMpc));
     for (let k = 0; k < names.length; k++) {
       if (!outcome.ok) {
         out[offset + k] = Number.NaN;

@@ -1,6 +1,6 @@
 import { writeProbeDiagrams } from './probeDiagramFiles.js';
 import { join } from 'node:path';
-import { CMB_TEMPERATURE_K, createCosmology } from '../cosmology/index.js';
+import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, cosmologyParametersFromValues, createCosmology } from '../cosmology/index.js';
 import { createRandomStream, deriveSeed, quantileOfSortedDraws } from '../math/index.js';
 import { writeFileAtomic } from '../output/index.js';
 import type { HubbleDiagram } from '../likelihood/index.js';
@@ -73,12 +73,13 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: E
   const zMin = Math.max(1e-3, zLow * 0.9);
   const zMax = zHigh * 1.05;
   const grid = Float64Array.from({ length: CURVE_POINTS }, (_, i) => zMin * (zMax / zMin) ** (i / (CURVE_POINTS - 1)));
+  const family = {
+    darkEnergy: model.cosmologyModel.darkEnergy, flat: model.cosmologyModel.flat,
+    cmbTemperatureK: model.cosmologyModel.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES,
+  };
   const curve = (values: Record<string, number>, shift: number, out: Float64Array): boolean => {
-    const outcome = createCosmology({
-      darkEnergy: model.cosmologyModel.darkEnergy, flat: model.cosmologyModel.flat, omegaMatter: values.omega_m,
-      omegaDarkEnergy: model.cosmologyModel.flat ? undefined : values.omega_de, w0: values.w0 ?? -1, wa: values.wa ?? 0,
-      h0KmPerSPerMpc: diagram.h0KmPerSPerMpc, cmbTemperatureK: model.cosmologyModel.radiation ? CMB_TEMPERATURE_K : 0,
-    }, { maxRedshift: zMax });
+    // The curve uses the H0 of the Hubble diagram (the likelihood's), whatever h0 the values hold.
+    const outcome = createCosmology(cosmologyParametersFromValues(family, { ...values, h0: diagram.h0KmPerSPerMpc }, diagram.h0KmPerSPerMpc), { maxRedshift: zMax });
     if (!outcome.ok) return false;
     outcome.cosmology.distanceModuliMag(grid, undefined, out);
     for (let i = 0; i < out.length; i++) out[i] += shift;
