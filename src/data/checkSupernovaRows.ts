@@ -1,5 +1,5 @@
 import { checkRepeatedRows } from './checkRepeatedRows.js';
-import { checkValueBounds } from './checkValueBounds.js';
+import { checkValueBounds, MAX_MAGNITUDE_ERROR_MAG } from './checkValueBounds.js';
 import type { IssueList } from './issueList.js';
 import type { DataRow } from './locateTableLayout.js';
 import type { MappedColumn, ParsedCells } from './parseTableCells.js';
@@ -102,7 +102,7 @@ export function checkSupernovaRows(
   for (const field of ['magnitude_err', 'm_b_err'] as const) {
     const sigma = numbers[field];
     if (!sigma) continue;
-    const huge = sigma.filter((value) => value > HUGE_MAGNITUDE_ERROR_MAG).length;
+    const huge = sigma.filter((value) => value > HUGE_MAGNITUDE_ERROR_MAG && value <= MAX_MAGNITUDE_ERROR_MAG).length; // larger ones are errors (checkValueBounds)
     if (huge > 0) {
       issues.add({
         file: displayName, path: columnOf.get(field)?.name, severity: 'warning', code: 'data.huge_uncertainty',

@@ -47,6 +47,7 @@ describe('readSupernovaTable refuses values no supernova can have', () => {
     const issues = problems(() => readSupernovaTable(copyWith('huge-error.csv', spoil(4, 6, '1e200'))));
     const [issue] = issues.filter((i) => i.severity !== 'warning');
     expect(issues.filter((i) => i.severity !== 'warning')).toHaveLength(1);
+    expect(issues.map((i) => i.code)).not.toContain('data.huge_uncertainty'); // counted once, as the error
     expect(issue).toMatchObject({ code: 'data.absurd_value', file: 'huge-error.csv', line: 4, row: 3, path: 'MUERR_FINAL', found: '1e200' });
     expect(issue.severity).toBeUndefined(); // an error, not a warning
   });
