@@ -1,5 +1,5 @@
 import { copyFileSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { PANTHEON_BINNED_FOLDER } from '../support/pantheonBinnedConfig.js';
@@ -97,5 +97,27 @@ describe('check refuses what fit would refuse, and a refused fit writes nothing'
     expect(fitted.code).toBe(2);
     expect(fitted.stderr).toContain('huge-error.txt:4:');
     expect(existsSync(out)).toBe(false);
+  });
+});
+
+describe('check names the probe key of a bad probe file', () => {
+  it('points a missing BAO table at probes.bao.table, with the path it looked for', async () => {
+    // DESI DR2 BAO (DESI Collaboration 2025, ../shared/data-real/desi-dr2-bao): the real covariance, a table that is not there
+    const path = join(scratch, 'missing-bao.yaml');
+    writeFileSync(path, `title: "broken probe"
+probes:
+  bao:
+    table: no-measurements.csv
+    covariance: ${resolve('../shared/data-real/desi-dr2-bao/covariance.txt')}
+    ruler: free
+models:
+  - { label: flat_lcdm, dark_energy: lambda, curvature: flat }
+parameters:
+  omega_m: { prior: uniform, min: 0.1, max: 0.6 }
+  h_ruler: { prior: uniform, min: 80, max: 130 }
+`);
+    const { code, stderr } = await runCommandLine(['check', path]);
+    expect(code).toBe(2);
+    expect(stderr).toContain(`${path}:4:5: error at probes.bao.table: the bao table file 'no-measurements.csv' does not exist (found nothing at ${join(scratch, 'no-measurements.csv')})`);
   });
 });
