@@ -1,6 +1,15 @@
 import type { IssueList } from './issueList.js';
 import { parseNumberCell } from './parseNumberCell.js';
 
+/**
+ * Largest accepted |entry| of a covariance matrix: (10^4)^2, the square of
+ * the largest accepted magnitude error (MAX_MAGNITUDE_ERROR_MAG in
+ * checkValueBounds.ts). No covariance of magnitudes, light-curve parameters
+ * or probe distances comes near it (common practice); larger entries are a
+ * unit or overflow mistake that would wreck the Cholesky factor.
+ */
+export const MAX_ABS_COVARIANCE_ENTRY = 1e8;
+
 /** A square matrix read from text, with the line of each row (flat files: the line of each value). */
 export interface ParsedMatrix {
   size: number;
@@ -16,8 +25,8 @@ export interface ParsedMatrix {
  * values follow it. Cost O(values).
  * @param lines the file's lines (index 0 = line 1).
  * @param displayName file name for messages.
- * @param issues receives non-numeric or non-finite values (with line and
- *   column) and shape problems (count not a square, rows of unequal length,
+ * @param issues receives non-numeric, non-finite or absurd (beyond
+ *   {@link MAX_ABS_COVARIANCE_ENTRY}) values (with line and column) and shape problems (count not a square, rows of unequal length,
  *   dimension line disagreeing with the values).
  * @returns the matrix, or null when it could not be formed.
  * @example parseMatrixText(['2', '1', '0.5', '0.5', '2'], 'c.txt', issues) // { size: 2, values: [1, 0.5, 0.5, 2] }
@@ -30,6 +39,13 @@ export function parseMatrixText(lines: readonly string[], displayName: string, i
     const values: number[] = [];
     for (const match of text.matchAll(/[^\s,]+/g)) {
       const cell = parseNumberCell(match[0]);
+      if (cell.kind === 'number' && Math.abs(cell.value) > MAX_ABS_COVARIANCE_ENTRY) {
+        issues.add({
+          code: 'covariance.absurd_value', file: displayName, line: index + 1, column: (match.index ?? 0) + 1,
+          message: 'covariance entry is beyond any physical value', expected: `|entry| <= ${MAX_ABS_COVARIANCE_ENTRY}`, found: match[0],
+          fix: 'check the units and the file; regenerate the covariance',
+        });
+      }
       if (cell.kind === 'number') {
         values.push(cell.value);
         continue;

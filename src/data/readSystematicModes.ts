@@ -1,4 +1,5 @@
 import { CandelaError } from '../errors.js';
+import { MAX_MAGNITUDE_ERROR_MAG } from './checkValueBounds.js';
 import { createIssueList, type IssueList } from './issueList.js';
 import { parseNumberCell } from './parseNumberCell.js';
 import { readTextLines } from './readTextLines.js';
@@ -117,6 +118,13 @@ function readCell(
   field: Field, row: ModeRow, rowIndex: number, mode: number, names: string[] | null, displayName: string, issues: IssueList,
 ): number {
   const cell = parseNumberCell(field.text);
+  if (cell.kind === 'number' && Math.abs(cell.value) > MAX_MAGNITUDE_ERROR_MAG) {
+    issues.add({
+      code: 'modes.absurd_value', file: displayName, line: row.line, column: field.column, row: rowIndex + 1, path: names ? names[mode] : `mode ${mode + 1}`,
+      message: 'a mode shift is beyond any physical magnitude shift', expected: `|shift| <= ${MAX_MAGNITUDE_ERROR_MAG} mag`, found: field.text,
+      fix: 'check the units and the file; regenerate the modes',
+    });
+  }
   if (cell.kind === 'number') return cell.value;
   const nonFinite = cell.kind === 'non_finite';
   issues.add({

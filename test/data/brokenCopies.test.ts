@@ -1,7 +1,7 @@
 import { readFileSync, writeFileSync, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { readSupernovaTable, readTextLines, readCovarianceMatrix, type TableReadOptions } from '../../src/data/index.js';
+import { readSupernovaTable, readTextLines, readCovarianceMatrix, readSystematicModes, type TableReadOptions } from '../../src/data/index.js';
 import { isCandelaError, type Issue } from '../../src/errors.js';
 import { useScratchFolder } from '../support/scratchFolder.js';
 
@@ -110,5 +110,29 @@ describe('readTextLines names the file and never prints its bytes', () => {
   it('refuses any file with a NUL byte as binary', () => {
     writeFileSync(join(scratch, 'blob.bin'), Buffer.from('1 2 3\n\u0000\u0001\n'));
     expect(problems(() => readTextLines(join(scratch, 'blob.bin'), 'blob.bin'))[0].code).toBe('data.not_text');
+  });
+});
+
+describe('covariance and mode files refuse absurd entries', () => {
+  // A broken copy of the Pantheon 2018 binned systematic matrix (Scolnic et al. 2018,
+  // ../shared/data-real/pantheon2018/Binned_data/sys_DS17f.txt: a line "40", then 1600 values one per line).
+  it('reads the intact copy and refuses one entry of 1e300 with its line', () => {
+    const source = readFileSync('../shared/data-real/pantheon2018/Binned_data/sys_DS17f.txt', 'utf8').split('\n');
+    const read = (name: string, lines: string[]) => {
+      writeFileSync(join(scratch, name), lines.join('\n'));
+      return () => readCovarianceMatrix({ file: join(scratch, name), displayName: name, target: 'magnitudes', expectedSupernovae: 40, scale: 1 });
+    };
+    expect(read('sys-intact.txt', source)().size).toBe(40);
+    const broken = [...source];
+    broken[42] = '1e300'; // line 43: entry (1, 1) of the row-by-row list after the "40" line
+    const issues = problems(read('sys-broken.txt', broken));
+    expect(issues).toHaveLength(1);
+    expect(issues[0]).toMatchObject({ code: 'covariance.absurd_value', file: 'sys-broken.txt', line: 43, found: '1e300' });
+  });
+
+  it('refuses a systematic mode shift of 1e200 mag with its row', () => {
+    writeFileSync(join(scratch, 'modes.csv'), '0.01,0.02\n1e200,0.0\n');
+    const issues = problems(() => readSystematicModes({ file: join(scratch, 'modes.csv'), displayName: 'modes.csv', expectedSupernovae: 2, scale: 1 }));
+    expect(issues[0]).toMatchObject({ code: 'modes.absurd_value', line: 2, row: 2, found: '1e200' }); // common practice: no shift comes near 1e4 mag
   });
 });
