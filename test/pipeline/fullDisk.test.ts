@@ -2,6 +2,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { parse as parseYaml } from 'yaml';
 import { readCheckpoint } from '../../src/pipeline/checkpointFile.js';
 import { pantheonBinnedConfig } from '../support/pantheonBinnedConfig.js';
 import { runCommandLine } from '../support/runCommandLine.js';
@@ -39,8 +40,11 @@ if (mountProblem) console.warn(`full-disk tests skipped: cannot mount a tmpfs he
 
 const config = join(scratch, 'fit.yaml');
 const referenceDir = join(scratch, 'reference');
-/** Files whose bytes depend on the wall clock (run time in seconds); they are checked for being whole, not for their bytes. */
-const TIMED_FILES = new Set(['checkpoint.bin', 'run.json', 'summary.json', 'report.html']);
+/**
+ * Files whose bytes depend on the wall clock (run time in seconds) or on where the run folder is (the resolved
+ * configuration's paths are relative to it); they are checked for being whole, not for their bytes.
+ */
+const TIMED_FILES = new Set(['checkpoint.bin', 'run.json', 'summary.json', 'report.html', 'config.resolved.yaml']);
 
 function filesBelow(dir: string): string[] {
   return readdirSync(dir, { recursive: true }).map(String).filter((name) => statSync(join(dir, name)).isFile()).sort();
@@ -61,6 +65,8 @@ function expectWhole(dir: string, name: string): void {
     expect(() => readCheckpoint(dir), name).not.toThrow();
   } else if (base.endsWith('.json')) {
     expect(() => JSON.parse(bytes.toString('utf8')), name).not.toThrow();
+  } else if (base.endsWith('.yaml')) {
+    expect(parseYaml(bytes.toString('utf8')), name).toMatchObject({ seed: expect.anything() });
   } else {
     expect(bytes.toString('utf8').trimEnd().endsWith('</html>'), name).toBe(true);
   }
