@@ -133,9 +133,13 @@ export function registerFitCommand(program: Command): void {
         if (quiet) return;
         for (const outcome of outcomes) {
           // An interrupted run says where its outputs are instead of reading them back: a signal asks to stop soon.
-          if (outcome.record.run.stop_reason === 'interrupted') process.stdout.write(`== ${outcome.model}: interrupted after ${outcome.record.run.steps} steps; outputs so far in ${outcome.runDir}\n`);
-          else process.stdout.write(`${terminalRunReport(outcome.runDir)}\n`);
-          for (const warning of outcome.warnings) process.stderr.write(`${formatIssue(warning)}\n`);
+          // The run report lists every warning of the run (data, likelihood, diagnostics); an interrupted run, which has no report, prints them here.
+          if (outcome.record.run.stop_reason === 'interrupted') {
+            process.stdout.write(`== ${outcome.model}: interrupted after ${outcome.record.run.steps} steps; outputs so far in ${outcome.runDir}\n`);
+            for (const warning of outcome.warnings) process.stderr.write(`${formatIssue(warning)}\n`);
+          } else {
+            process.stdout.write(`${terminalRunReport(outcome.runDir)}\n`);
+          }
         }
       };
       try {
