@@ -4,6 +4,7 @@ import { integratedAutocorrelationTime } from '../../../src/diagnostics/index.js
 import type { Posterior } from '../../../src/likelihood/index.js';
 import type { RandomStream } from '../../../src/math/index.js';
 import { EnsembleSampler, createInProcessEvaluator, initializeWalkers, type LogProbabilityModel } from '../../../src/sampler/index.js';
+import { checkConvergence } from '../../../src/pipeline/samplingLoop.js';
 
 /**
  * Burn-in in units of the largest autocorrelation time. The walkers start in a
@@ -157,4 +158,53 @@ export function spacedDraws(fit: QuickFit, index: number, count: number, strideS
     out[j] = fit.draws[index][step * fit.walkersTotal + (j % fit.walkersTotal)];
   }
   return out;
+}
+
+/** How to run a fit that stops by candela's own rule (src/pipeline/samplingLoop.ts). */
+export interface RuleFitOptions {
+  walkers: number;
+  ensembles: number;
+  /** Bulk ESS target and largest R-hat (across the ensembles) of the stopping rule. */
+  targetEss: number;
+  maxRhat: number;
+  /** Steps between convergence checks, and the largest step count. */
+  checkEvery: number;
+  maxSteps: number;
+  seed: string;
+}
+
+/**
+ * Samples like quickFit, but stops the way `candela fit` does: every
+ * `checkEvery` steps the pipeline's own checkConvergence (burn-in 2 tau,
+ * R-hat across the ensembles, bulk ESS) decides, and the draws kept are those
+ * after the burn-in it chose. Used to check that the stopping rule keeps the
+ * posterior calibrated.
+ */
+export async function ruleFit(
+  model: LogProbabilityModel, names: readonly string[], sampleStart: (rng: RandomStream, out: Float64Array) => void, options: RuleFitOptions,
+): Promise<QuickFit & { converged: boolean }> {
+  const dimension = model.dimension;
+  const evaluator = createInProcessEvaluator(model);
+  const start = await initializeWalkers({
+    walkers: options.walkers, ensembles: options.ensembles, seed: options.seed, sampleStart, optimizerStarts: 2, optimizerEvaluations: 300 * dimension,
+  }, evaluator);
+  const sampler = await EnsembleSampler.start({ dimension, walkers: options.walkers, ensembles: options.ensembles, seed: options.seed }, evaluator, start.positions);
+  let check = checkConvergence(sampler, { targetEss: options.targetEss, maxRhat: options.maxRhat });
+  while (!check.converged && sampler.stepCount < options.maxSteps) {
+    await sampler.advance(Math.min(options.checkEvery, options.maxSteps - sampler.stepCount));
+    check = checkConvergence(sampler, { targetEss: options.targetEss, maxRhat: options.maxRhat });
+  }
+  const burnInSteps = check.burnInSteps;
+  const kept = walkerSeries(sampler, dimension, burnInSteps);
+  const keptSteps = sampler.stepCount - burnInSteps;
+  const walkersTotal = options.walkers * options.ensembles;
+  const tauSteps = Float64Array.from(kept, (series) => integratedAutocorrelationTime(series).tauSteps);
+  const draws = kept.map((series) => {
+    const values = new Float64Array(keptSteps * walkersTotal);
+    series.forEach((walker, w) => { for (let s = 0; s < keptSteps; s++) values[s * walkersTotal + w] = walker[s]; });
+    return values;
+  });
+  let acceptance = 0;
+  for (let k = 0; k < options.ensembles; k++) acceptance += sampler.acceptanceFractions(k).reduce((sum, value) => sum + value, 0);
+  return { names, steps: sampler.stepCount, burnInSteps, walkersTotal, tauSteps, draws, acceptance: acceptance / walkersTotal, converged: check.converged };
 }
