@@ -16,7 +16,7 @@ import {
   wasmCholeskyAvailable, wasmCholeskyInPlace, type CholeskyFailure, type CholeskySuccess,
 } from '../src/math/index.js';
 import { propagateLightCurveCovariance } from '../src/standardize/index.js';
-import { combineLightCurveCovariance, splitLightCurveCovariance } from './support/lightCurveCovarianceParts.js';
+import { combineLightCurveCovariance, splitLightCurveCovariance } from '../src/standardize/index.js';
 import { benchSurvey, BENCH_TRUTH, denseModeCovariance, modeCountFor } from './support/syntheticSurvey.js';
 import type { BenchSuite } from './suite.js';
 

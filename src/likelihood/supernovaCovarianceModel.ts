@@ -1,6 +1,6 @@
 import { CandelaError } from '../errors.js';
 import type { CovarianceMatrix, SupernovaTable, SystematicModes } from '../data/index.js';
-import { fixedScatterVariance, lightCurveVariance, propagateLightCurveCovariance, type ScatterTerms } from '../standardize/index.js';
+import { combineLightCurveCovariance, fixedScatterVariance, lightCurveVariance, splitLightCurveCovariance, type ScatterTerms } from '../standardize/index.js';
 
 /**
  * The covariance of the standardized magnitudes as a function of
@@ -40,7 +40,11 @@ export interface SupernovaCovarianceModel {
    * to out, so that fillVariances then addCorrelatedVariances gives diag C. O(N K + N).
    */
   addCorrelatedVariances(inputs: Float64Array, out: Float64Array): void;
-  /** Writes the full row-major N x N matrix, mag^2. O(9 N^2) with light-curve matrices, O(N^2) otherwise, + O(N^2 K) with modes. */
+  /**
+   * Writes the lower triangle (diagonal included) of the row-major N x N matrix, mag^2; the strict upper triangle
+   * is left as it was (the Cholesky factorization reads only the lower one). O(3 N^2) with light-curve matrices,
+   * O(N^2 / 2) otherwise; the fixed parts (N x N matrices, U U^T) are summed once, at the first call.
+   */
   fillDense(inputs: Float64Array, out: Float64Array): void;
 }
 
@@ -159,6 +163,25 @@ export function createSupernovaCovarianceModel(
   };
   const diagonalScratch = new Float64Array(n);
   const noDense = magnitudeDense === null && lightCurveDense === null;
+  // Built once (lower triangles): C_mu(alpha, beta) = A C_eta A^T as a fixed quadratic form in (alpha, beta)
+  // (Betoule et al. 2014, eq. 13), and every part of C that does not depend on the inputs (the N x N magnitude
+  // matrices and U U^T when modes are part of a dense C). A call then only combines them.
+  const lightCurveParts = lightCurveDense ? splitLightCurveCovariance(lightCurveDense, n) : null;
+  // Built at the first fillDense call only: a low-rank run of 10^5 supernovae never forms this N x N matrix.
+  let fixedDense: Float64Array | null | undefined;
+  const fixedDenseParts = (): Float64Array | null => {
+    if (fixedDense !== undefined) return fixedDense;
+    if (!magnitudeDense && !modes) return (fixedDense = null);
+    const sums = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) {
+      for (let j = 0; j <= i; j++) {
+        let sum = magnitudeDense ? magnitudeDense[i * n + j] : 0;
+        if (modes) for (let k = 0; k < modeCount; k++) sum += modes[i * modeCount + k] * modes[j * modeCount + k];
+        sums[i * n + j] = sum;
+      }
+    }
+    return (fixedDense = sums);
+  };
   return {
     count: n,
     diagonal: noDense && !modes,
@@ -180,18 +203,17 @@ export function createSupernovaCovarianceModel(
       }
     },
     fillDense(inputs, out) {
-      if (lightCurveDense) propagateLightCurveCovariance(lightCurveDense, n, inputs[0], inputs[1], out);
-      else out.fill(0);
-      if (magnitudeDense) for (let k = 0; k < n * n; k++) out[k] += magnitudeDense[k];
-      if (modes) {
+      // Lower triangle only: the Cholesky factorization that consumes C reads nothing else.
+      if (lightCurveParts) combineLightCurveCovariance(lightCurveParts, inputs[0], inputs[1], out);
+      const fixedDense = fixedDenseParts();
+      if (fixedDense) {
         for (let i = 0; i < n; i++) {
-          for (let j = 0; j <= i; j++) {
-            let sum = 0;
-            for (let k = 0; k < modeCount; k++) sum += modes[i * modeCount + k] * modes[j * modeCount + k];
-            out[i * n + j] += sum;
-            if (j !== i) out[j * n + i] += sum;
-          }
+          const row = i * n;
+          if (lightCurveParts) for (let cell = row; cell <= row + i; cell++) out[cell] += fixedDense[cell];
+          else for (let cell = row; cell <= row + i; cell++) out[cell] = fixedDense[cell];
         }
+      } else if (!lightCurveParts) {
+        out.fill(0);
       }
       fillVariances(inputs, diagonalScratch);
       for (let i = 0; i < n; i++) out[i * n + i] += diagonalScratch[i];

@@ -13,3 +13,6 @@ export { fixedScatterVariance } from './fixedScatterVariance.js';
 export { LENSING_DISPERSION_PER_REDSHIFT } from './fixedScatterVariance.js';
 export type { ScatterTerms } from './fixedScatterVariance.js';
 export { propagateLightCurveCovariance } from './propagateLightCurveCovariance.js';
+export { splitLightCurveCovariance } from './lightCurveCovarianceParts.js';
+export { combineLightCurveCovariance } from './lightCurveCovarianceParts.js';
+export type { LightCurveCovarianceParts } from './lightCurveCovarianceParts.js';
