@@ -128,6 +128,12 @@ function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
   };
 }
 
+/** Which outputs of a run folder to write. */
+export interface RunOutputOptions {
+  /** Figures and report.html (default true); false writes the summaries, tables, marginals and contours only. */
+  figures?: boolean;
+}
+
 /**
  * Writes every output of one run into `outDir` from its folder's chains and
  * records: summary.json, summary.md, table.tex, marginal and contour files,
@@ -144,7 +150,7 @@ function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
  * @throws CandelaError from the analysis or figures; Error from the file system.
  * @example writeRunOutputs(readRunFolder('out/run'), 'out/run')
  */
-export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
+export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutputOptions = {}): RunAnalysis {
   const analysis = analyzeRun(run);
   const settings = figureSettings(run);
   analysis.warnings.push(...settings.warnings);
@@ -162,6 +168,9 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string): RunAnalysis {
     writeFileAtomic(`${stem}.geojson`, contourGeoJson(set));
     writeFileAtomic(`${stem}.paths.csv`, contourPathsCsv(set));
   }
+  // After Ctrl-C only the numbers are written: figures and the report page take seconds at survey scale, and
+  // `candela report` draws them later from the same folder, byte for byte.
+  if (options.figures === false) return analysis;
   const wanted = settings.figures;
   const figures: ReportFigure[] = [];
   if (wanted.includes('triangle')) {
@@ -253,9 +262,9 @@ function refreshModelsIndex(run: RunOnDisk, analysis: RunAnalysis): void {
  * @throws CandelaError for unreadable run folders.
  * @example buildRunOutputs(['out/run'], 'out/run')
  */
-export function buildRunOutputs(runDirs: string[], outDir: string): RunAnalysis[] {
+export function buildRunOutputs(runDirs: string[], outDir: string, options: RunOutputOptions = {}): RunAnalysis[] {
   const runs = runDirs.map(readRunFolder);
-  if (runs.length === 1) return [writeRunOutputs(runs[0], outDir)];
+  if (runs.length === 1) return [writeRunOutputs(runs[0], outDir, options)];
   const analyses = runs.map((run) => analyzeRun(run));
   const settings = figureSettings(runs[0]);
   mkdirSync(outDir, { recursive: true });

@@ -319,7 +319,7 @@ async function fitOneModel(
       }
       request.onProgress?.({ model: model.label, step: sampler.stepCount, maxSteps, elapsedSeconds: previousSeconds + (Date.now() - started) / 1000, check, targetEss: rule.targetEss, maxRhat: rule.maxRhat, acceptance: meanAcceptance(sampler) });
     }
-    if (stopReason === 'interrupted') say(`model ${model.label}${partNote}: stopped at step ${sampler.stepCount} on the signal; writing the checkpoint and the outputs so far`);
+    if (stopReason === 'interrupted') say(`model ${model.label}${partNote}: stopped at step ${sampler.stepCount} on the signal; writing the checkpoint, the chains and the summaries so far`);
     saveCheckpoint();
     const summarized = sampler.stepCount >= MINIMUM_STEPS_FOR_OUTPUTS;
     if (!summarized && stopReason !== 'interrupted') {
@@ -345,7 +345,10 @@ async function fitOneModel(
       return { model: model.label, runDir, record, warnings, summarized: false };
     }
     writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, seed);
-    buildRunOutputs([runDir], runDir);
+    // A signal asks to stop soon: the figures and report.html are left to `candela report` (or to the resumed run).
+    const interrupted = stopReason === 'interrupted';
+    buildRunOutputs([runDir], runDir, { figures: !interrupted });
+    if (interrupted) say(`model ${model.label}${partNote}: figures and report.html of the steps so far: candela report ${runDir}`);
     say(`model ${model.label}${partNote}: ${stopReason} after ${sampler.stepCount} steps in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
     return { model: model.label, runDir, record, warnings, summarized: true };
   } finally {

@@ -88,7 +88,7 @@ export function registerFitCommand(program: Command): void {
     .option('--part-minutes <n>', 'with --plan: time limit of each part in minutes (default sampler.max_minutes x 1.1 + 10)', wholeNumber('--part-minutes'))
     .option('--stop-warning <seconds>', 'with --plan: Slurm sends SIGTERM this long before the time limit; the part writes its checkpoint and stops (default 600)', wholeNumber('--stop-warning'))
     .option('--node-binary <path>', 'with --plan: the node the cluster starts candela with (default: the node running this command)')
-    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n  candela fit configs/demo.yaml --out out/demo --plan slurm --steps-per-part 8000 --cluster-queue short --part-memory 4G\n  candela fit configs/demo.yaml --out out/demo --part 3\n\nCtrl-C writes a checkpoint and the outputs so far; --resume continues the run.\n')
+    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n  candela fit configs/demo.yaml --out out/demo --plan slurm --steps-per-part 8000 --cluster-queue short --part-memory 4G\n  candela fit configs/demo.yaml --out out/demo --part 3\n\nCtrl-C writes a checkpoint, the chains and the summaries so far (candela report draws the figures); --resume continues the run.\n')
     .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string; model?: string;
       stepsPerPart?: number; clusterAccount?: string; clusterQueue?: string; partMemory?: string; partMinutes?: number; stopWarning?: number; nodeBinary?: string }) => {
       if (options.plan !== undefined) {
@@ -110,14 +110,14 @@ export function registerFitCommand(program: Command): void {
       if (planOnly.length > 0) throw new CandelaError({ code: 'fit.option_needs_plan', path: optionName(planOnly[0]), message: `${planOnly.map(optionName).join(', ')} describe${planOnly.length === 1 ? 's' : ''} the jobs of a cluster plan`, fix: 'add --plan slurm, or drop the option' });
       if (options.stepsPerPart !== undefined && options.part === undefined) throw new CandelaError({ code: 'fit.option_needs_part', path: '--steps-per-part', message: '--steps-per-part sets the length of a part; a whole fit stops on sampler.max_steps and its targets', fix: 'add --part I, or set sampler.max_steps' });
       const controller = new AbortController();
-      // First signal: stop sampling, write the checkpoint and the outputs so far. Then the handlers are removed, so a
+      // First signal: stop sampling, write the checkpoint, the chains and the summaries so far. Then the handlers are removed, so a
       // second signal ends the process at once by the system's default action, even in the middle of writing the
       // outputs (no JavaScript runs until they are written). Every file is written to a temporary name and renamed,
       // so that corrupts nothing: the last checkpoint stays, and --resume clears the temporary files left behind.
       const stop = (signal: NodeJS.Signals) => {
         for (const name of STOP_SIGNALS) process.off(name, stop);
         controller.abort();
-        if (!options.quiet) process.stderr.write(`\n${signal}: stopping; writing a checkpoint and the outputs so far (send it again to leave at once)\n`);
+        if (!options.quiet) process.stderr.write(`\n${signal}: stopping; writing a checkpoint, the chains and the summaries so far (send it again to leave at once)\n`);
       };
       for (const name of STOP_SIGNALS) process.on(name, stop);
       const quiet = Boolean(options.quiet);
@@ -127,7 +127,7 @@ export function registerFitCommand(program: Command): void {
       let lastStatus = 0;
       const interruptedMessage = (outcomes: FitOutcome[]) => {
         const short = outcomes.filter((outcome) => outcome.summarized === false).map((outcome) => outcome.model);
-        return `interrupted: the checkpoint and ${short.length ? 'the chains so far' : 'the outputs so far'} are written; continue with --resume${short.length ? ` (too few steps for summaries yet: ${short.join(', ')})` : ''}\n`;
+        return `interrupted: the checkpoint and ${short.length ? 'the chains so far' : 'the chains and summaries so far'} are written (figures and report.html: candela report <run folder>); continue with --resume${short.length ? ` (too few steps for summaries yet: ${short.join(', ')})` : ''}\n`;
       };
       const printOutcomes = (outcomes: FitOutcome[]) => {
         if (quiet) return;
@@ -135,7 +135,7 @@ export function registerFitCommand(program: Command): void {
           // An interrupted run says where its outputs are instead of reading them back: a signal asks to stop soon.
           // The run report lists every warning of the run (data, likelihood, diagnostics); an interrupted run, which has no report, prints them here.
           if (outcome.record.run.stop_reason === 'interrupted') {
-            process.stdout.write(`== ${outcome.model}: interrupted after ${outcome.record.run.steps} steps; outputs so far in ${outcome.runDir}\n`);
+            process.stdout.write(`== ${outcome.model}: interrupted after ${outcome.record.run.steps} steps; chains and summaries so far in ${outcome.runDir}\n`);
             for (const warning of outcome.warnings) process.stderr.write(`${formatIssue(warning)}\n`);
           } else {
             process.stdout.write(`${terminalRunReport(outcome.runDir)}\n`);
