@@ -50,7 +50,7 @@ export function readProbes(reader: ConfigReader, at: Located | undefined, config
 function readSetting(reader: ConfigReader, at: Located | undefined, spec: SettingSpec): string | number | boolean | undefined {
   switch (spec.kind) {
     case 'path':
-    case 'text': return (reader.text(at) as string | undefined) ?? undefined;
+    case 'text': return reader.text(at) as string | undefined;
     case 'number': return reader.number(at, spec.min === undefined ? {} : { min: spec.min });
     case 'boolean': return reader.boolean(at);
     case 'choice': return reader.choice(at, spec.choices ?? []);

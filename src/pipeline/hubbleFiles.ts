@@ -42,7 +42,10 @@ export function hubbleDiagramCsv(diagram: HubbleDiagram, samples: readonly strin
  * - hubble_model.csv: on a log-spaced redshift grid, the best-fit model
  *   distance modulus and the median and 68% band over posterior draws, each
  *   draw shifted by its own absolute magnitude minus the best fit's, so that
- *   curve and data share one frame.
+ *   curve and data share one frame;
+ * and, from the same best fit and a seeded set of draws, each probe term's
+ * data-versus-model numbers (probeDiagramFiles.ts). A run of probes alone
+ * writes only those.
  */
 export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: EnsembleDraws[], burnInSteps: number, seed: string): void {
   const { posterior, supernovae } = model;

@@ -92,12 +92,7 @@ export async function quickFit(
   model: LogProbabilityModel, names: readonly string[], sampleStart: (rng: RandomStream, out: Float64Array) => void, options: QuickFitOptions,
 ): Promise<QuickFit> {
   const dimension = model.dimension;
-  const evaluator = createInProcessEvaluator(model);
-  const start = await initializeWalkers({
-    walkers: options.walkers, ensembles: options.ensembles, seed: options.seed, sampleStart,
-    optimizerStarts: options.optimizerStarts ?? 2, optimizerEvaluations: options.optimizerEvaluations ?? 300 * dimension,
-  }, evaluator);
-  const sampler = await EnsembleSampler.start({ dimension, walkers: options.walkers, ensembles: options.ensembles, seed: options.seed }, evaluator, start.positions);
+  const sampler = await startSampler(model, sampleStart, options);
   await sampler.advance(options.steps);
   let measured = measureChain(sampler, dimension);
   const maxSteps = options.maxSteps ?? 3 * options.steps;
@@ -106,15 +101,34 @@ export async function quickFit(
     await sampler.advance(Math.min(wanted, maxSteps - sampler.stepCount));
     measured = measureChain(sampler, dimension);
   }
-  const { burnInSteps, kept, tauSteps, keptSteps } = measured;
-  const walkersTotal = options.walkers * options.ensembles;
+  return finishedFit(sampler, names, measured.burnInSteps, measured.kept, measured.tauSteps);
+}
+
+/** Walkers placed around the posterior mode (Nelder-Mead searches from `sampleStart` draws) and a sampler started there. */
+async function startSampler(
+  model: LogProbabilityModel, sampleStart: (rng: RandomStream, out: Float64Array) => void,
+  options: { walkers: number; ensembles: number; seed: string; optimizerStarts?: number; optimizerEvaluations?: number },
+): Promise<EnsembleSampler> {
+  const dimension = model.dimension;
+  const evaluator = createInProcessEvaluator(model);
+  const start = await initializeWalkers({
+    walkers: options.walkers, ensembles: options.ensembles, seed: options.seed, sampleStart,
+    optimizerStarts: options.optimizerStarts ?? 2, optimizerEvaluations: options.optimizerEvaluations ?? 300 * dimension,
+  }, evaluator);
+  return EnsembleSampler.start({ dimension, walkers: options.walkers, ensembles: options.ensembles, seed: options.seed }, evaluator, start.positions);
+}
+
+/** The fit's draws after `burnInSteps` (step major: step, then walker of every ensemble) and its mean acceptance. */
+function finishedFit(sampler: EnsembleSampler, names: readonly string[], burnInSteps: number, kept: Float64Array[][], tauSteps: Float64Array): QuickFit {
+  const keptSteps = sampler.stepCount - burnInSteps;
+  const walkersTotal = sampler.options.walkers * sampler.options.ensembles;
   const draws = kept.map((series) => {
     const values = new Float64Array(keptSteps * walkersTotal);
     series.forEach((walker, w) => { for (let s = 0; s < keptSteps; s++) values[s * walkersTotal + w] = walker[s]; });
     return values;
   });
   let acceptance = 0;
-  for (let k = 0; k < options.ensembles; k++) acceptance += sampler.acceptanceFractions(k).reduce((sum, value) => sum + value, 0);
+  for (let k = 0; k < sampler.options.ensembles; k++) acceptance += sampler.acceptanceFractions(k).reduce((sum, value) => sum + value, 0);
   return { names, steps: sampler.stepCount, burnInSteps, walkersTotal, tauSteps, draws, acceptance: acceptance / walkersTotal };
 }
 
@@ -184,27 +198,13 @@ export async function ruleFit(
   model: LogProbabilityModel, names: readonly string[], sampleStart: (rng: RandomStream, out: Float64Array) => void, options: RuleFitOptions,
 ): Promise<QuickFit & { converged: boolean }> {
   const dimension = model.dimension;
-  const evaluator = createInProcessEvaluator(model);
-  const start = await initializeWalkers({
-    walkers: options.walkers, ensembles: options.ensembles, seed: options.seed, sampleStart, optimizerStarts: 2, optimizerEvaluations: 300 * dimension,
-  }, evaluator);
-  const sampler = await EnsembleSampler.start({ dimension, walkers: options.walkers, ensembles: options.ensembles, seed: options.seed }, evaluator, start.positions);
+  const sampler = await startSampler(model, sampleStart, options);
   let check = checkConvergence(sampler, { targetEss: options.targetEss, maxRhat: options.maxRhat });
   while (!check.converged && sampler.stepCount < options.maxSteps) {
     await sampler.advance(Math.min(options.checkEvery, options.maxSteps - sampler.stepCount));
     check = checkConvergence(sampler, { targetEss: options.targetEss, maxRhat: options.maxRhat });
   }
-  const burnInSteps = check.burnInSteps;
-  const kept = walkerSeries(sampler, dimension, burnInSteps);
-  const keptSteps = sampler.stepCount - burnInSteps;
-  const walkersTotal = options.walkers * options.ensembles;
+  const kept = walkerSeries(sampler, dimension, check.burnInSteps);
   const tauSteps = Float64Array.from(kept, (series) => integratedAutocorrelationTime(series).tauSteps);
-  const draws = kept.map((series) => {
-    const values = new Float64Array(keptSteps * walkersTotal);
-    series.forEach((walker, w) => { for (let s = 0; s < keptSteps; s++) values[s * walkersTotal + w] = walker[s]; });
-    return values;
-  });
-  let acceptance = 0;
-  for (let k = 0; k < options.ensembles; k++) acceptance += sampler.acceptanceFractions(k).reduce((sum, value) => sum + value, 0);
-  return { names, steps: sampler.stepCount, burnInSteps, walkersTotal, tauSteps, draws, acceptance: acceptance / walkersTotal, converged: check.converged };
+  return { ...finishedFit(sampler, names, check.burnInSteps, kept, tauSteps), converged: check.converged };
 }
