@@ -24,7 +24,9 @@ function rulerAndCosmology(p: ParameterValues, ruler: BaoRuler, model: ProbeMode
   const outcome = createCosmology(parameters, { maxRedshift });
   if (!outcome.ok) return null;
   const h = parameters.h0KmPerSPerMpc / 100;
-  const rulerMpc = ruler === 'free' ? p.h_ruler / h : dragSoundHorizonFitMpc(p.omega_m * h * h, p.omega_b_h2, 0);
+  const omegaMatterH2 = p.omega_m * h * h;
+  if (ruler === 'computed' && !(p.omega_b_h2 > 0 && p.omega_b_h2 < omegaMatterH2)) return null; // the fit formula would throw
+  const rulerMpc = ruler === 'free' ? p.h_ruler / h : dragSoundHorizonFitMpc(omegaMatterH2, p.omega_b_h2, 0);
   return rulerMpc > 0 ? { rulerMpc, cosmology: outcome.cosmology, h } : null;
 }
 
