@@ -224,6 +224,18 @@ export interface OutputOptions {
   truthFile: ResolvedPath | null;
 }
 
+/**
+ * Blinding (docs/blinding.md): the listed parameters are shown everywhere as
+ * true value + a secret offset drawn uniformly in magnitude between a
+ * quarter of its width and its width, with a random sign, until `candela unblind`.
+ */
+export interface BlindingOptions {
+  /** Parameter names, in the order written (only those a model samples are blinded). */
+  parameters: string[];
+  /** Largest |offset| per listed parameter, in its unit. */
+  offsetWidths: Record<string, number>;
+}
+
 /** The whole validated configuration. */
 export interface CandelaConfig {
   title: string;
@@ -245,6 +257,8 @@ export interface CandelaConfig {
   referenceH0KmPerSPerMpc: number;
   sampler: SamplerOptions;
   output: OutputOptions;
+  /** Blinding of chosen parameters (null: none). */
+  blinding: BlindingOptions | null;
   /** The configuration file and where each key path sits in it (for messages of later stages). */
   source: { file: ResolvedPath; positions: Record<string, SourcePosition> };
 }

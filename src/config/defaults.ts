@@ -139,3 +139,18 @@ export const DEFAULT_OUTPUT: Omit<OutputOptions, 'dir'> & { dir: string } = {
   triangleParameters: 'auto',
   truthFile: null,
 };
+
+/** Parameters blinded when the `blinding` block names none: the dark-energy and expansion parameters a survey's headline is about. */
+export const DEFAULT_BLINDING_PARAMETERS: readonly string[] = ['w0', 'wa', 'omega_m', 'h0'];
+
+/**
+ * Default width of each parameter's secret offset (`blinding.offset_widths`),
+ * in its unit: several posterior standard deviations of a present-day
+ * supernova (+ BAO) fit, so that even the smallest offset (a quarter of the
+ * width) moves a value by one to two standard deviations. Typical standard
+ * deviations, from memory: Omega_m 0.01-0.02, w0 0.05-0.1, wa 0.3-0.5, H0
+ * about 1 km/s/Mpc with calibrators, omega_b h^2 0.0005, h r_d 1 Mpc, M_B 0.03 mag.
+ */
+export const DEFAULT_BLINDING_WIDTHS: Readonly<Record<string, number>> = {
+  omega_m: 0.1, omega_de: 0.1, w0: 0.3, wa: 1, h0: 5, omega_b_h2: 0.003, h_ruler: 5, abs_mag: 0.2,
+};

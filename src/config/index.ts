@@ -19,6 +19,7 @@ export type { DerivedQuantity } from './candelaConfig.js';
 export type { SamplerOptions } from './candelaConfig.js';
 export type { FigureKind } from './candelaConfig.js';
 export type { OutputOptions } from './candelaConfig.js';
+export type { BlindingOptions } from './candelaConfig.js';
 // Reading and validating
 export { loadConfigFile } from './loadConfigFile.js';
 export { readConfigFile } from './readConfigFile.js';
@@ -41,6 +42,9 @@ export { DEFAULT_DERIVED_CURVED } from './defaults.js';
 export { DEFAULT_SAMPLER } from './defaults.js';
 export { DEFAULT_FIGURES } from './defaults.js';
 export { DEFAULT_OUTPUT } from './defaults.js';
+export { DEFAULT_BLINDING_PARAMETERS } from './defaults.js';
+export { DEFAULT_BLINDING_WIDTHS } from './defaults.js';
+export { BLINDING_KEYS } from './readBlinding.js';
 // Parameters of a model
 export { parametersForModel } from './parametersForModel.js';
 export type { ModelParameters } from './parametersForModel.js';

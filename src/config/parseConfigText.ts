@@ -17,12 +17,13 @@ import { readParameters } from './readParameters.js';
 import { readSampler } from './readSampler.js';
 import { readStandardization } from './readStandardization.js';
 import { readSupernovae } from './readSupernovae.js';
+import { readBlinding } from './readBlinding.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
 import { lineOfNestingError, yamlSyntaxFix } from './yamlSyntaxFix.js';
 
 /** The top-level keys, in documentation order. */
 export const TOP_LEVEL_KEYS = [
-  'title', 'seed', 'supernovae', 'standardization', 'probes', 'models', 'parameters', 'derived', 'reference_h0', 'sampler', 'output',
+  'title', 'seed', 'supernovae', 'standardization', 'probes', 'models', 'parameters', 'derived', 'reference_h0', 'sampler', 'output', 'blinding',
 ] as const;
 const DERIVED: readonly DerivedQuantity[] = ['omega_k', 'omega_de', 'q0', 'z_accel', 'age_gyr', 'offset'];
 
@@ -104,6 +105,7 @@ export function parseConfigText(text: string, fileName: string): Checked<Candela
     referenceH0KmPerSPerMpc: reader.number(fields.get('reference_h0'), { min: 0, exclusiveMin: true }) ?? DEFAULT_REFERENCE_H0_KM_PER_S_PER_MPC,
     sampler: readSampler(reader, get('sampler')),
     output: readOutput(reader, get('output')),
+    blinding: readBlinding(reader, fields.get('blinding')),
     source: { file: { written: fileName, resolved: fileName }, positions: reader.positions },
   };
   if (!reader.failedAt('supernovae') && !reader.failedAt('standardization')) checkCrossFieldRules(reader, config, userParameters);
