@@ -1,7 +1,12 @@
 /** Steps preallocated when a chain store is created empty. */
 const INITIAL_CAPACITY_STEPS = 64;
 
-/** A read-only view of one ensemble's stored chain, step major: step, then walker, then parameter. */
+/**
+ * A read-only view of one ensemble's stored chain, step major: step, then
+ * walker, then parameter. It holds the stored steps firstStep ..
+ * firstStep + steps - 1 (firstStep is 0 until the caller releases steps it
+ * has saved elsewhere, see EnsembleSampler.releaseStoredSteps).
+ */
 export interface ChainView {
   /** Positions, steps x walkers x dimension. */
   positions: Float64Array;
@@ -9,7 +14,10 @@ export interface ChainView {
   logProb: Float64Array;
   /** Blobs, steps x walkers x blobCount. */
   blobs: Float64Array;
+  /** Steps in this view. */
   steps: number;
+  /** Index of the first step in this view among all the run's stored steps (steps before it were released). */
+  firstStep: number;
   walkers: number;
   dimension: number;
   blobCount: number;
@@ -20,7 +28,9 @@ export interface ChainView {
  * step, appended in place. Capacity grows by doubling (or to a requested size
  * via {@link ChainStorage.reserve}), so appending is amortized O(state size)
  * and the sampler reserves room before a run of steps: no growth happens
- * inside the step loop.
+ * inside the step loop. Steps the caller has saved elsewhere (a chain record
+ * on disk) can be released ({@link ChainStorage.release}), so that memory
+ * holds only the steps not yet saved, however long the run.
  * @example
  * const store = new ChainStorage(8, 2, 0);
  * store.append(positions, logProb, blobs); store.steps // 1
@@ -30,6 +40,7 @@ export class ChainStorage {
   private logProbData: Float64Array;
   private blobData: Float64Array;
   private stored = 0;
+  private first = 0;
 
   constructor(readonly walkers: number, readonly dimension: number, readonly blobCount: number, capacitySteps = INITIAL_CAPACITY_STEPS) {
     const capacity = Math.max(1, capacitySteps);
@@ -38,9 +49,36 @@ export class ChainStorage {
     this.blobData = new Float64Array(capacity * walkers * blobCount);
   }
 
-  /** Steps stored so far. */
+  /** Steps held now (stored and not released). */
   get steps(): number {
     return this.stored;
+  }
+
+  /** Index of the first step held: the steps released so far. */
+  get firstStep(): number {
+    return this.first;
+  }
+
+  /**
+   * Drops the held steps before step `upTo` (an index among all stored steps,
+   * clamped to those held). The kept steps move to new arrays just large
+   * enough for them (at least the initial capacity), so views taken earlier
+   * stay correct and a long run's early growth is given back. Cost O(kept steps).
+   */
+  release(upTo: number): void {
+    const drop = Math.min(this.stored, Math.max(0, Math.floor(upTo) - this.first));
+    if (drop === 0) return;
+    const capacity = Math.max(INITIAL_CAPACITY_STEPS, this.stored - drop);
+    const keep = (old: Float64Array, perStep: number): Float64Array => {
+      const next = new Float64Array(capacity * perStep);
+      next.set(old.subarray(drop * perStep, this.stored * perStep));
+      return next;
+    };
+    this.positionData = keep(this.positionData, this.walkers * this.dimension);
+    this.logProbData = keep(this.logProbData, this.walkers);
+    this.blobData = keep(this.blobData, this.walkers * this.blobCount);
+    this.stored -= drop;
+    this.first += drop;
   }
 
   /** Steps that fit without growing. */
@@ -48,7 +86,7 @@ export class ChainStorage {
     return this.logProbData.length / this.walkers;
   }
 
-  /** Makes room for `totalSteps` steps (at least doubling), copying what is stored. Cost O(stored data). */
+  /** Makes room for `totalSteps` held steps (at least doubling), copying what is held. Cost O(held data). */
   reserve(totalSteps: number): void {
     if (totalSteps <= this.capacitySteps) return;
     const capacity = Math.max(totalSteps, 2 * this.capacitySteps);
@@ -73,8 +111,8 @@ export class ChainStorage {
   }
 
   /**
-   * Views (not copies) of the stored steps. Stored steps are never rewritten
-   * (growth copies into a new buffer and leaves the old one intact), so a view
+   * Views (not copies) of the held steps. Stored steps are never rewritten
+   * (growth and release copy into new buffers and leave the old ones intact), so a view
    * stays correct forever; it only does not see steps appended later.
    */
   view(): ChainView {
@@ -84,19 +122,21 @@ export class ChainStorage {
       logProb: this.logProbData.subarray(0, steps * this.walkers),
       blobs: this.blobData.subarray(0, steps * this.walkers * this.blobCount),
       steps,
+      firstStep: this.first,
       walkers: this.walkers,
       dimension: this.dimension,
       blobCount: this.blobCount,
     };
   }
 
-  /** Rebuilds a store from saved arrays (lengths must be whole steps; checked by the caller). */
-  static fromArrays(walkers: number, dimension: number, blobCount: number, steps: number, positions: ArrayLike<number>, logProb: ArrayLike<number>, blobs: ArrayLike<number>): ChainStorage {
+  /** Rebuilds a store from saved arrays holding steps firstStep .. firstStep + steps - 1 (lengths must be whole steps; checked by the caller). */
+  static fromArrays(walkers: number, dimension: number, blobCount: number, steps: number, positions: ArrayLike<number>, logProb: ArrayLike<number>, blobs: ArrayLike<number>, firstStep = 0): ChainStorage {
     const store = new ChainStorage(walkers, dimension, blobCount, Math.max(INITIAL_CAPACITY_STEPS, steps));
     store.positionData.set(positions);
     store.logProbData.set(logProb);
     store.blobData.set(blobs);
     store.stored = steps;
+    store.first = firstStep;
     return store;
   }
 }

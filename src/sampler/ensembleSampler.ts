@@ -10,6 +10,8 @@ import { evaluateInitialWalkers } from './evaluateInitialWalkers.js';
 import type { BatchEvaluator } from './logProbabilityModel.js';
 import { checkSnapshotShape, SNAPSHOT_FORMAT, SNAPSHOT_VERSION } from './samplerSnapshot.js';
 import type { SamplerSnapshot } from './samplerSnapshot.js';
+import { ThinnedTrace, traceCapacitySteps } from './thinnedTrace.js';
+import type { TraceView } from './thinnedTrace.js';
 import type { RandomState } from '../math/index.js';
 
 /** One ensemble's live state copied at the start of a step. */
@@ -19,6 +21,29 @@ interface StepStartCopy {
   logProb: Float64Array;
   blobs: Float64Array;
   acceptedCounts: Float64Array;
+}
+
+/** How the sampler keeps its steps in memory (see ThinnedTrace and EnsembleSampler.releaseStoredSteps). */
+export interface SamplerStorageOptions {
+  /** Steps each ensemble's diagnostic trace keeps before it halves (an even integer >= 2; default traceCapacitySteps of the sampler's shape). */
+  traceCapacitySteps?: number;
+}
+
+/** What EnsembleSampler.restore needs besides a snapshot whose chain arrays start after step 0. */
+export interface RestoreStorageOptions extends SamplerStorageOptions {
+  /**
+   * Replays the stored steps the snapshot no longer holds (0 .. chainFirstStep - 1),
+   * in step order, calling `visit(step, ensemble, positions)` for every step
+   * and ensemble with that ensemble's walkers (walkers x dimension), for
+   * example from a chain record on disk. Only the positions are used (they
+   * rebuild the diagnostic traces); nothing is kept.
+   */
+  earlierSteps?: (visit: (step: number, ensemble: number, positions: Float64Array) => void) => void;
+}
+
+/** A snapshot's steps do not cover the run: `sampler.snapshot_invalid` at `chainFirstStep`. */
+function missingEarlierSteps(expected: string, found: string): CandelaError {
+  return new CandelaError({ code: 'sampler.snapshot_invalid', path: 'chainFirstStep', message: 'the steps before the snapshot\'s chain arrays were not given back in order', expected, found, fix: 'pass earlierSteps replaying every stored step before chainFirstStep' });
 }
 
 /*
@@ -105,9 +130,10 @@ export class EnsembleSampler {
    * Throws CandelaError: option problems (see resolveEnsembleOptions) and
    * start problems (see evaluateInitialWalkers).
    */
-  static async start(options: EnsembleRunOptions, evaluator: BatchEvaluator, initialPositions: Float64Array[]): Promise<EnsembleSampler> {
+  static async start(options: EnsembleRunOptions, evaluator: BatchEvaluator, initialPositions: Float64Array[], storage: SamplerStorageOptions = {}): Promise<EnsembleSampler> {
     const settings = resolveEnsembleOptions(options, evaluator.dimension);
     const { walkers, dimension } = settings;
+    const capacity = storage.traceCapacitySteps ?? traceCapacitySteps(walkers, settings.ensembles, dimension);
     const blobCount = evaluator.blobCount;
     const { logProb, blobs } = await evaluateInitialWalkers(settings, evaluator, initialPositions);
     const states = initialPositions.map((positions, k): EnsembleState => ({
@@ -117,6 +143,7 @@ export class EnsembleSampler {
       blobs: blobs.slice(k * walkers * blobCount, (k + 1) * walkers * blobCount),
       acceptedCounts: new Float64Array(walkers),
       chain: new ChainStorage(walkers, dimension, blobCount),
+      trace: new ThinnedTrace(walkers, dimension, capacity),
     }));
     return new EnsembleSampler(settings, evaluator, states, 0);
   }
@@ -124,21 +151,44 @@ export class EnsembleSampler {
   /**
    * Continues a run from {@link EnsembleSampler.snapshot} output (typed or
    * plain number arrays). Advancing the restored sampler gives exactly the
-   * chains of an uninterrupted run. Does not call the evaluator.
-   * Throws CandelaError: option problems, `sampler.snapshot_invalid`.
+   * chains of an uninterrupted run, and its traces (hence its diagnostics)
+   * are those of the uninterrupted run too. When the snapshot holds only the
+   * steps from `chainFirstStep` on, `storage.earlierSteps` must replay the
+   * steps before (they rebuild the traces). Does not call the evaluator.
+   * Memory: the held steps plus the traces; the replayed steps are not kept.
+   * Throws CandelaError: option problems, `sampler.snapshot_invalid` (also
+   * when the replay is missing or gives other steps than 0 .. chainFirstStep - 1 in order).
    */
-  static async restore(snapshot: SamplerSnapshot<ArrayLike<number>>, evaluator: BatchEvaluator): Promise<EnsembleSampler> {
+  static async restore(snapshot: SamplerSnapshot<ArrayLike<number>>, evaluator: BatchEvaluator, storage: RestoreStorageOptions = {}): Promise<EnsembleSampler> {
     const settings = resolveEnsembleOptions(snapshot.options, evaluator.dimension);
     checkSnapshotShape(snapshot, evaluator.blobCount);
     const { walkers, dimension } = settings;
+    const first = snapshot.chainFirstStep ?? 0;
+    const capacity = storage.traceCapacitySteps ?? traceCapacitySteps(walkers, settings.ensembles, dimension);
     const states = snapshot.ensembles.map((saved): EnsembleState => ({
       rng: createRandomStream('', { ...saved.randomState }),
       positions: Float64Array.from(saved.positions),
       logProb: Float64Array.from(saved.logProb),
       blobs: Float64Array.from(saved.blobs),
       acceptedCounts: Float64Array.from(saved.acceptedCounts),
-      chain: ChainStorage.fromArrays(walkers, dimension, evaluator.blobCount, snapshot.stepCount, saved.chainPositions, saved.chainLogProb, saved.chainBlobs),
+      chain: ChainStorage.fromArrays(walkers, dimension, evaluator.blobCount, snapshot.stepCount - first, saved.chainPositions, saved.chainLogProb, saved.chainBlobs, first),
+      trace: new ThinnedTrace(walkers, dimension, capacity),
     }));
+    if (first > 0) {
+      if (!storage.earlierSteps) throw missingEarlierSteps(`a replay of steps 0 to ${first - 1}`, 'none');
+      storage.earlierSteps((step, ensemble, positions) => {
+        const trace = states[ensemble]?.trace;
+        if (!trace || trace.stepsSeen !== step || step >= first) throw missingEarlierSteps(`step ${trace?.stepsSeen ?? '?'} of ensemble 0 to ${states.length - 1}, below ${first}`, `step ${step} of ensemble ${ensemble}`);
+        trace.append(positions);
+      });
+      const short = states.findIndex((state) => state.trace.stepsSeen !== first);
+      if (short >= 0) throw missingEarlierSteps(`${first} steps of ensemble ${short}`, `${states[short].trace.stepsSeen}`);
+    }
+    const size = walkers * dimension;
+    for (const state of states) {
+      const held = state.chain.view();
+      for (let j = 0; j < held.steps; j++) state.trace.append(held.positions.subarray(j * size, (j + 1) * size));
+    }
     return new EnsembleSampler(settings, evaluator, states, snapshot.stepCount);
   }
 
@@ -166,7 +216,7 @@ export class EnsembleSampler {
     if (this.busy) throw new CandelaError({ code: 'sampler.busy', message: 'advance was called while the sampler was still advancing', fix: 'await each advance before the next' });
     this.busy = true;
     try {
-      for (const state of this.states) state.chain.reserve(this.steps + steps);
+      for (const state of this.states) state.chain.reserve(state.chain.steps + steps);
       for (let step = 0; step < steps; step++) {
         this.markStepStart();
         try {
@@ -179,7 +229,10 @@ export class EnsembleSampler {
           this.restoreStepStart();
           throw error;
         }
-        for (const state of this.states) state.chain.append(state.positions, state.logProb, state.blobs);
+        for (const state of this.states) {
+          state.chain.append(state.positions, state.logProb, state.blobs);
+          state.trace.append(state.positions);
+        }
         this.steps += 1;
         if (onStep?.(this.steps) === false) break;
       }
@@ -189,12 +242,35 @@ export class EnsembleSampler {
   }
 
   /**
-   * Views (no copy) of ensemble `ensemble`'s stored chain. Stored steps are
-   * never rewritten, so a view stays correct after later advances; it just
-   * does not include their steps. Throws RangeError for a bad index.
+   * Views (no copy) of ensemble `ensemble`'s stored chain: every step, or
+   * the steps from `firstStep` on once earlier ones were released. Stored
+   * steps are never rewritten, so a view stays correct after later advances;
+   * it just does not include their steps. Throws RangeError for a bad index.
    */
   chain(ensemble: number): ChainView {
     return this.state(ensemble).chain.view();
+  }
+
+  /**
+   * View (valid until the next advance) of ensemble `ensemble`'s diagnostic
+   * trace: the positions of every `stride`-th stored step, at most the trace
+   * capacity of them (see ThinnedTrace). Throws RangeError for a bad index.
+   */
+  trace(ensemble: number): TraceView {
+    return this.state(ensemble).trace.view();
+  }
+
+  /**
+   * Frees the stored steps before step `upTo` (0-based among all stored
+   * steps) in every ensemble, once the caller has saved them (a chain record
+   * on disk): memory then holds only the steps since, and a snapshot holds
+   * them from `chainFirstStep` = upTo on (restore then needs the earlier
+   * steps replayed). The diagnostic traces are untouched. Cost O(steps still held).
+   * Throws CandelaError `sampler.busy` while advancing.
+   */
+  releaseStoredSteps(upTo: number): void {
+    if (this.busy) throw new CandelaError({ code: 'sampler.busy', message: 'stored steps were released while the sampler was advancing', fix: 'await each advance before releasing steps' });
+    for (const state of this.states) state.chain.release(upTo);
   }
 
   /** Accepted fraction of proposals per walker of one ensemble (zeros before the first step). */
@@ -211,8 +287,9 @@ export class EnsembleSampler {
   /**
    * The whole state (see {@link SamplerSnapshot}) for a checkpoint: copies of
    * the current walkers, acceptance counts and random-stream states, and
-   * views (no copy) of the append-only stored chains, which later advances
-   * never modify. Cost O(walkers x ensembles x dimension).
+   * views (no copy) of the append-only stored chains held in memory (from
+   * `chainFirstStep` on), which later advances never modify.
+   * Cost O(walkers x ensembles x dimension).
    */
   snapshot(): SamplerSnapshot {
     return {
@@ -221,6 +298,7 @@ export class EnsembleSampler {
       options: { ...this.options },
       blobCount: this.evaluator.blobCount,
       stepCount: this.steps,
+      chainFirstStep: this.states[0].chain.firstStep,
       ensembles: this.states.map((state) => {
         const view = state.chain.view();
         return {

@@ -1,5 +1,6 @@
 import type { RandomStream } from '../math/index.js';
 import type { ChainStorage } from './chainStorage.js';
+import type { ThinnedTrace } from './thinnedTrace.js';
 import { proposeDifferentialEvolution, proposeStretch } from './ensembleMoves.js';
 import type { ResolvedEnsembleOptions } from './ensembleOptions.js';
 import { invalidLogProbabilityError } from './evaluateBatchChecked.js';
@@ -41,6 +42,8 @@ export interface EnsembleState {
   /** Accepted proposals per walker. */
   acceptedCounts: Float64Array;
   chain: ChainStorage;
+  /** Bounded, thinned copy of the stored positions for the convergence diagnostics. */
+  trace: ThinnedTrace;
 }
 
 /** Reusable buffers of one batch: every ensemble's proposals for one half, ensemble after ensemble. */

@@ -16,6 +16,11 @@ export type { ResolvedEnsembleOptions } from './ensembleOptions.js';
 export { stretchFactor } from './ensembleMoves.js';
 export { ensembleSpanProblem } from './ensembleSpan.js';
 export type { ChainView } from './chainStorage.js';
+export type { SamplerStorageOptions } from './ensembleSampler.js';
+export type { RestoreStorageOptions } from './ensembleSampler.js';
+// bounded diagnostic traces
+export type { TraceView } from './thinnedTrace.js';
+export { traceCapacitySteps } from './thinnedTrace.js';
 // checkpoints
 export { checkSnapshotShape } from './samplerSnapshot.js';
 export type { SamplerSnapshot } from './samplerSnapshot.js';

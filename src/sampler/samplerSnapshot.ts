@@ -20,17 +20,21 @@ export interface EnsembleSnapshot<A extends ArrayLike<number> = Float64Array> {
   blobs: A;
   /** Accepted proposals per walker since the start. */
   acceptedCounts: A;
-  /** Stored chain, steps x walkers x dimension. */
+  /** Stored chain held in memory (steps chainFirstStep .. stepCount - 1), held steps x walkers x dimension. */
   chainPositions: A;
-  /** Stored log posterior, steps x walkers. */
+  /** Stored log posterior held in memory, held steps x walkers. */
   chainLogProb: A;
-  /** Stored blobs, steps x walkers x blobCount. */
+  /** Stored blobs held in memory, held steps x walkers x blobCount. */
   chainBlobs: A;
 }
 
 /**
  * Everything needed to continue a run exactly: resolved options, step count,
- * and per ensemble its random-stream state, current walkers and stored chain.
+ * and per ensemble its random-stream state, current walkers and the stored
+ * steps still held in memory, chainFirstStep .. stepCount - 1 (all of them
+ * unless the caller released steps it had saved, see
+ * EnsembleSampler.releaseStoredSteps; the steps before chainFirstStep are
+ * then given back to EnsembleSampler.restore by the caller).
  * Typed arrays may be written as plain number arrays (JSON); every stored
  * number is finite, so JSON round trips are exact.
  */
@@ -40,6 +44,8 @@ export interface SamplerSnapshot<A extends ArrayLike<number> = Float64Array> {
   options: ResolvedEnsembleOptions;
   blobCount: number;
   stepCount: number;
+  /** Index of the first stored step the chain arrays hold (absent: 0, every step). */
+  chainFirstStep?: number;
   ensembles: Array<EnsembleSnapshot<A>>;
 }
 
@@ -60,6 +66,9 @@ export function checkSnapshotShape(snapshot: SamplerSnapshot<ArrayLike<number>>,
   if (snapshot.blobCount !== blobCount) problem('blobCount', `${blobCount} (the model's blob count)`, snapshot.blobCount);
   const steps = snapshot.stepCount;
   if (!Number.isInteger(steps) || steps < 0) problem('stepCount', 'an integer >= 0', steps);
+  const first = snapshot.chainFirstStep ?? 0;
+  if (!Number.isInteger(first) || first < 0 || first > steps) problem('chainFirstStep', `an integer from 0 to the step count ${steps}`, first);
+  const held = steps - first;
   const { walkers, dimension, ensembles } = snapshot.options;
   if (!Array.isArray(snapshot.ensembles) || snapshot.ensembles.length !== ensembles) {
     problem('ensembles', `${ensembles} ensembles`, snapshot.ensembles?.length);
@@ -78,9 +87,9 @@ export function checkSnapshotShape(snapshot: SamplerSnapshot<ArrayLike<number>>,
     expectLength('logProb', walkers);
     expectLength('blobs', walkers * blobCount);
     expectLength('acceptedCounts', walkers);
-    expectLength('chainPositions', steps * walkers * dimension);
-    expectLength('chainLogProb', steps * walkers);
-    expectLength('chainBlobs', steps * walkers * blobCount);
+    expectLength('chainPositions', held * walkers * dimension);
+    expectLength('chainLogProb', held * walkers);
+    expectLength('chainBlobs', held * walkers * blobCount);
   });
   if (issues.length > 0) throw new CandelaError(issues);
 }
