@@ -2,6 +2,7 @@ import { CandelaError } from '../errors.js';
 import type { ParameterValues } from './likelihoodTerm.js';
 import { createBlockEvaluator, createDenseEvaluator, createHierarchicalEvaluation, type HierarchicalEvaluation } from './hierarchicalEvaluator.js';
 import { hierarchicalHubbleDiagram, latentPosterior } from './hierarchicalLatent.js';
+import { createBlockModesEvaluator } from './hierarchicalModesEvaluator.js';
 import { createHierarchicalModel, type HierarchicalModel } from './hierarchicalModel.js';
 import type { HierarchicalTerm, HierarchicalTermOptions } from './hierarchicalTermOptions.js';
 
@@ -57,8 +58,10 @@ function collectWarnings(model: HierarchicalModel, options: HierarchicalTermOpti
  * conventional term (Goliath et al. 2001; Conley et al. 2011, appendix C):
  * chi^2 at its best fit plus ln(E/2 pi), E = u^T Sigma^-1 u, u = 1 on the m_B entries.
  *
- * Paths: 'blocks' (every covariance per supernova: O(N) per call) or 'dense'
- * (a 3N x 3N or N x N matrix couples supernovae: Cholesky O((3N)^3/3) per
+ * Paths: 'blocks' (every covariance per supernova: O(N) per call; with K
+ * systematic modes on m_B, O(N K^2) through the Woodbury identity, Woodbury
+ * 1950, see hierarchicalModes.ts) or 'dense' (a 3N x 3N or N x N matrix
+ * couples supernovae, modes then added to it: Cholesky O((3N)^3/3) per
  * change of alpha, beta, widths or sigma_int, or once when frozen).
  * Unphysical points (no Big Bang, a width <= 0, a non-finite parameter, a
  * block that is not positive definite) give -Infinity with a reason, never NaN.
@@ -70,7 +73,7 @@ function collectWarnings(model: HierarchicalModel, options: HierarchicalTermOpti
  * color_mean_slope (per unit z). Default priors: hierarchicalPopulationPriors.
  * Cost of construction: O(N log N) plus scans of the matrices.
  * @param options plain options (see HierarchicalTermOptions)
- * @throws CandelaError for a magnitude table, missing or non-finite light-curve values, wrong matrix sizes,
+ * @throws CandelaError for a magnitude table, missing or non-finite light-curve values, wrong matrix or mode sizes, non-finite modes,
  *   a Hubble-flow z <= 0, or a frozen covariance without values
  * @example
  * const term = createHierarchicalSupernovaTerm({ name: 'sn', table, covariances: [], cosmologyModel: { darkEnergy: 'lambda', flat: true, cmbTemperatureK: 0, effectiveNeutrinoSpecies: 3.046 },
@@ -79,7 +82,7 @@ function collectWarnings(model: HierarchicalModel, options: HierarchicalTermOpti
  */
 export function createHierarchicalSupernovaTerm(options: HierarchicalTermOptions): HierarchicalTerm {
   const model = createHierarchicalModel(options);
-  const evaluator = model.data.dense ? createDenseEvaluator(model) : createBlockEvaluator(model);
+  const evaluator = model.data.dense ? createDenseEvaluator(model) : model.data.modes ? createBlockModesEvaluator(model) : createBlockEvaluator(model);
   const warnings = collectWarnings(model, options);
   const record: HierarchicalEvaluation = createHierarchicalEvaluation();
   const n = model.count;
@@ -118,7 +121,7 @@ export function createHierarchicalSupernovaTerm(options: HierarchicalTermOptions
     },
     latentEstimates(p) {
       const result = accepted(p, 'latent estimates');
-      return latentPosterior(model, evaluator.denseFactor, p, offsetAt(p, result));
+      return latentPosterior(model, evaluator.denseFactor, evaluator.modes, p, offsetAt(p, result));
     },
     describe() {
       const samples = options.table.sampleNames.length;

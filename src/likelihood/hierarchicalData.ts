@@ -1,6 +1,7 @@
 import { CandelaError, type Issue } from '../errors.js';
 import type { CovarianceMatrix } from '../data/index.js';
 import { fixedScatterVariance, highMassFraction } from '../standardize/index.js';
+import { checkSystematicModes } from './checkSystematicModes.js';
 import type { HierarchicalTermOptions } from './hierarchicalTermOptions.js';
 
 /**
@@ -23,8 +24,12 @@ export interface HierarchicalData {
   readonly stepFraction: Float64Array;
   /** 1 for calibrators (finite calibratorMu). */
   readonly isCalibrator: Uint8Array;
-  /** Sum of the coupling matrices, 3N x 3N row major, or null when every matrix is per supernova. */
+  /** Sum of the coupling matrices (and U U^T on the m_B entries when modes come with them), 3N x 3N row major, or null when every matrix is per supernova. */
   readonly dense: Float64Array | null;
+  /** Systematic modes U on m_B (N x K row major, mag) left to the Woodbury path, or null (none, or folded into `dense`). */
+  readonly modes: Float64Array | null;
+  /** K of `modes` (0 when null). */
+  readonly modeCount: number;
   /** What the covariance is made of, for describe(). */
   readonly parts: string[];
 }
@@ -38,6 +43,18 @@ function couplesSupernovae(matrix: CovarianceMatrix): boolean {
     for (let c = 0; c < size; c++) if ((c < start || c >= start + block) && matrix.values[r * size + c] !== 0) return true;
   }
   return false;
+}
+
+/** dense[(3i, 3j)] += sum_k U_ik U_jk: the modes on the m_B entries of the 3N x 3N matrix. Cost N^2 K. */
+function addModesToDense(modes: Float64Array, modeCount: number, n: number, dense: Float64Array): void {
+  const size = 3 * n;
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let sum = 0;
+      for (let k = 0; k < modeCount; k++) sum += modes[i * modeCount + k] * modes[j * modeCount + k];
+      dense[3 * i * size + 3 * j] += sum;
+    }
+  }
 }
 
 function checkMatrices(options: HierarchicalTermOptions): void {
@@ -56,12 +73,14 @@ function checkMatrices(options: HierarchicalTermOptions): void {
 }
 
 /**
- * Prepares the observations, measurement blocks and coupling matrix.
+ * Prepares the observations, measurement blocks, coupling matrix and modes.
  * Cost O(N) plus O(size^2) scans of the given matrices; allocates a 3N x 3N
- * buffer when a matrix couples supernovae.
+ * buffer when a matrix couples supernovae (systematic modes are then added to
+ * it, N^2 K; otherwise they are kept as U for the Woodbury path).
  * @param options the term's options (table kind 'light_curves')
  * @throws CandelaError `likelihood.hierarchical_needs_light_curves`, `likelihood.light_curve_column_missing`,
- *   `likelihood.bad_light_curve_value` (with the row), `likelihood.covariance_mismatch`
+ *   `likelihood.bad_light_curve_value` (with the row), `likelihood.covariance_mismatch`,
+ *   `likelihood.modes_mismatch` and `likelihood.low_rank_mode` (systematic modes of the wrong shape or not finite)
  * @example prepareHierarchicalData(options).measurement.length === 6 * options.table.count
  */
 export function prepareHierarchicalData(options: HierarchicalTermOptions): HierarchicalData {
@@ -83,6 +102,7 @@ export function prepareHierarchicalData(options: HierarchicalTermOptions): Hiera
     });
   }
   checkMatrices(options);
+  const allModes = checkSystematicModes(options.systematicModes, n);
   const { peakMag, stretch, color, peakMagErr, stretchErr, colorErr } = columns as Record<keyof typeof columns, Float64Array>;
   const isCalibrator = new Uint8Array(n);
   for (let i = 0; i < n; i++) if (table.calibratorMu && Number.isFinite(table.calibratorMu[i])) isCalibrator[i] = 1;
@@ -137,5 +157,11 @@ export function prepareHierarchicalData(options: HierarchicalTermOptions): Hiera
     }
     parts.push(`${coupling.length} matri${coupling.length > 1 ? 'ces' : 'x'} coupling supernovae (3N x 3N)`);
   }
-  return { count: n, observed, measurement, stepFraction, isCalibrator, dense, parts };
+  const modeCount = allModes ? allModes.length / n : 0;
+  if (allModes && dense) {
+    addModesToDense(allModes, modeCount, n, dense);
+    parts.push(`${modeCount} systematic mode${modeCount === 1 ? '' : 's'} U U^T on m_B, added to the 3N x 3N matrix`);
+  } else if (allModes) parts.push(`${modeCount} systematic mode${modeCount === 1 ? '' : 's'} U U^T on m_B (Woodbury identity, no 3N x 3N matrix)`);
+  const modes = dense ? null : allModes;
+  return { count: n, observed, measurement, stepFraction, isCalibrator, dense, modes, modeCount: modes ? modeCount : 0, parts };
 }

@@ -1,10 +1,12 @@
 import type { ParameterValues } from './likelihoodTerm.js';
-import { choleskyBlock, populationCovarianceBlock, whitenBlock } from './hierarchicalBlock.js';
+import { populationCovarianceBlock } from './hierarchicalBlock.js';
 import type { HierarchicalModel } from './hierarchicalModel.js';
+import type { HierarchicalModes } from './hierarchicalModes.js';
 import type { HierarchicalPath } from './hierarchicalTermOptions.js';
 import { compensatedSumOfShiftedSquares } from './compensatedSquares.js';
 import { createOffsetMarginal, marginalizeOffset } from './marginalizeOffset.js';
 import { createDenseWhitener, type Whitener } from './whitener.js';
+import { createBlockScratch, whitenBlocks } from './whitenHierarchicalBlocks.js';
 
 const LOG_TWO_PI = Math.log(2 * Math.PI);
 
@@ -31,6 +33,8 @@ export interface HierarchicalEvaluator {
   evaluate(p: ParameterValues, out: HierarchicalEvaluation): void;
   /** The dense factor of the last successful evaluate() ('dense' path), else null. */
   readonly denseFactor: Whitener | null;
+  /** The systematic modes' K x K algebra at the last successful evaluate() (block path with modes), else null. */
+  readonly modes: HierarchicalModes | null;
   describe(): string[];
 }
 
@@ -39,7 +43,8 @@ export function createHierarchicalEvaluation(): HierarchicalEvaluation {
   return { logLikelihood: -Infinity, chiSquare: NaN, logDeterminant: NaN, marginalizationTerm: NaN, bestAbsoluteMagnitude: NaN, reason: 'not evaluated' };
 }
 
-function reject(out: HierarchicalEvaluation, reason: string): void {
+/** Marks `out` as rejected with `reason` (private helper of the evaluators). */
+export function reject(out: HierarchicalEvaluation, reason: string): void {
   out.logLikelihood = -Infinity;
   out.chiSquare = NaN;
   out.reason = reason;
@@ -81,37 +86,20 @@ function finish(model: HierarchicalModel, e: Float64Array, w: Float64Array, logD
  */
 export function createBlockEvaluator(model: HierarchicalModel): HierarchicalEvaluator {
   const n = model.count;
-  const { measurement } = model.data;
-  const sampleOfRow = model.options.table.sampleIndex;
-  const samples = model.sampleCount;
   const e = new Float64Array(3 * n);
   const w = new Float64Array(3 * n);
-  const block = new Float64Array(6);
-  const factor = new Float64Array(6);
+  const scratch = createBlockScratch();
   const marginal = createOffsetMarginal();
   return {
     path: 'blocks',
     denseFactor: null,
+    modes: null,
     evaluate(p, out) {
       const unphysical = model.residual(p, e);
       if (unphysical) return reject(out, unphysical);
-      const inputs = model.point.covarianceInputs;
-      let sum = 0;
-      let compensation = 0;
-      for (let i = 0; i < n; i++) {
-        const s = sampleOfRow[i];
-        populationCovarianceBlock(measurement, 6 * i, inputs[0], inputs[1], inputs[2 + s], inputs[2 + samples + s], inputs[2 + 2 * samples + s], block);
-        const term = choleskyBlock(block, factor);
-        if (Number.isNaN(term)) {
-          return reject(out, `the 3 x 3 covariance of supernova ${model.options.table.ids[i]} (row ${i + 1}) is not positive definite (check its light-curve errors and correlations)`);
-        }
-        whitenBlock(factor, e[3 * i], e[3 * i + 1], e[3 * i + 2], e, 3 * i);
-        whitenBlock(factor, 1, 0, 0, w, 3 * i);
-        const next = sum + term;
-        compensation += Math.abs(sum) >= Math.abs(term) ? sum - next + term : term - next + sum;
-        sum = next;
-      }
-      finish(model, e, w, sum + compensation, p, marginal, out);
+      const problem = whitenBlocks(model, e, w, scratch);
+      if (problem) return reject(out, problem);
+      finish(model, e, w, scratch.logDeterminant, p, marginal, out);
     },
     describe: () => [`path: per-supernova 3 x 3 blocks, O(N) per call with N = ${n} (3N = ${3 * n} observations)`],
   };
@@ -165,6 +153,7 @@ export function createDenseEvaluator(model: HierarchicalModel): HierarchicalEval
   };
   return {
     path: 'dense',
+    modes: null,
     get denseFactor() {
       return failure === null && factorizations > 0 ? whitener : null;
     },

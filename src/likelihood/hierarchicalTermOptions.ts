@@ -1,4 +1,4 @@
-import type { CovarianceMatrix, SupernovaTable } from '../data/index.js';
+import type { CovarianceMatrix, SupernovaTable, SystematicModes } from '../data/index.js';
 import type { LikelihoodTerm, ParameterValues } from './likelihoodTerm.js';
 import type { HubbleDiagram, SupernovaTermOptions } from './supernovaTermOptions.js';
 
@@ -38,6 +38,14 @@ export interface HierarchicalTermOptions {
   table: SupernovaTable;
   /** Extra covariance matrices, already scaled: N x N on m_B or 3N x 3N on (m_B, x1, c). */
   covariances: CovarianceMatrix[];
+  /**
+   * Systematic modes U (N x K, mag, already scaled) on m_B: the 3N covariance
+   * gains V V^T, V the 3N x K matrix with U's rows in the m_B slots. Without
+   * a matrix that couples supernovae the 'blocks' path stays O(N K^2) per call
+   * through the Woodbury identity (hierarchicalModes.ts); with one, U U^T is
+   * added to the dense 3N x 3N matrix.
+   */
+  systematicModes?: SystematicModes;
   /** Which FLRW family; its parameters are read by name (omega_m, omega_de, w0, wa, h0). */
   cosmologyModel: SupernovaTermOptions['cosmologyModel'];
   standardization: {

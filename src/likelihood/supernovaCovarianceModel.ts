@@ -1,5 +1,6 @@
 import { CandelaError } from '../errors.js';
 import type { CovarianceMatrix, SupernovaTable, SystematicModes } from '../data/index.js';
+import { checkSystematicModes } from './checkSystematicModes.js';
 import { combineLightCurveCovariance, fixedScatterVariance, lightCurveVariance, splitLightCurveCovariance, type ScatterTerms } from '../standardize/index.js';
 
 /**
@@ -99,7 +100,7 @@ export function createSupernovaCovarianceModel(
   isCalibrator: Uint8Array, systematicModes?: SystematicModes,
 ): SupernovaCovarianceModel {
   const n = table.count;
-  const modes = checkModes(systematicModes, n);
+  const modes = checkSystematicModes(systematicModes, n);
   const modeCount = modes ? modes.length / n : 0;
   const lightCurves = table.kind === 'light_curves';
   matrices.forEach((matrix, index) => {
@@ -219,27 +220,4 @@ export function createSupernovaCovarianceModel(
       for (let i = 0; i < n; i++) out[i * n + i] += diagonalScratch[i];
     },
   };
-}
-
-/** The modes' values after checking their shape and entries (null when absent or K = 0). */
-function checkModes(systematicModes: SystematicModes | undefined, n: number): Float64Array | null {
-  if (!systematicModes || systematicModes.modeCount === 0) return null;
-  const { values, modeCount, count, sourceFile } = systematicModes;
-  if (count !== n || values.length !== n * modeCount) {
-    throw new CandelaError({
-      code: 'likelihood.modes_mismatch', file: sourceFile, path: 'systematicModes',
-      message: `systematic modes do not match the ${n} supernovae of the table`, expected: `${n} rows x K modes`, found: `${count} rows, ${values.length} values for ${modeCount} modes`,
-      fix: 'apply the same cuts to the table and the modes',
-    });
-  }
-  for (let index = 0; index < values.length; index++) {
-    if (!Number.isFinite(values[index])) {
-      const row = Math.floor(index / modeCount);
-      throw new CandelaError({
-        code: 'likelihood.low_rank_mode', file: sourceFile, path: 'systematicModes', row: row + 1,
-        message: `mode ${(index % modeCount) + 1} of supernova ${row + 1} is not a finite number`, expected: 'finite numbers (mag)', found: String(values[index]),
-      });
-    }
-  }
-  return values;
 }
