@@ -56,6 +56,8 @@ export interface TableOptions {
 /** One covariance file added to the statistical covariance. */
 export interface CovarianceSource {
   file: ResolvedPath;
+  /** Name of this systematic in the budget (`name`, or the file's stem), unique in the configuration. */
+  name: string;
   /** `magnitudes`: N x N on the magnitudes; `light_curve_parameters`: 3N x 3N on (m_b, x1, color). */
   appliesTo: 'magnitudes' | 'light_curve_parameters';
   /** Order of the three quantities within one supernova's block (3N only). */
@@ -77,6 +79,10 @@ export interface CovarianceSource {
  */
 export interface SystematicModeSource {
   file: ResolvedPath;
+  /** Name of this systematic in the budget (`name`, or the file's stem), unique in the configuration. */
+  name: string;
+  /** The budget treats each column as a systematic of its own, named `<name>.<column name>` (`<name>.<column number>` without a header). */
+  perColumn: boolean;
   /** Every shift is multiplied by this (dimensionless, > 0); C_sys scales by its square. */
   scale: number;
 }

@@ -95,11 +95,11 @@ function dataSetToPlain(set: SupernovaDataSet, path: (p: ResolvedPath) => string
     columns: { ...set.columns },
     missing_values: Object.fromEntries(Object.entries(set.missingValues).map(([field, values]) => [field, [...values]])),
     covariances: set.covariances.map((c) => ({
-      file: path(c.file), applies_to: c.appliesTo,
+      file: path(c.file), name: c.name, applies_to: c.appliesTo,
       ...(c.appliesTo === 'light_curve_parameters' ? { block_order: [...c.blockOrder], layout: c.layout } : {}),
       scale: c.scale, symmetry_tolerance: c.symmetryTolerance, includes_statistical: c.includesStatistical,
     })),
-    systematic_modes: set.systematicModes.map((m) => ({ file: path(m.file), scale: m.scale })),
+    systematic_modes: set.systematicModes.map((m) => ({ file: path(m.file), name: m.name, scale: m.scale, per_column: m.perColumn })),
     cuts: {
       ...(cuts.redshift ? { redshift: [...cuts.redshift] } : {}),
       keep_calibrators: cuts.keepCalibrators,

@@ -32,7 +32,7 @@ export const DEFAULT_TABLE: Omit<TableOptions, 'file'> = {
 };
 
 /** One covariance entry (`supernovae[].covariances[]`, except the required `file`). */
-export const DEFAULT_COVARIANCE: Omit<CovarianceSource, 'file'> = {
+export const DEFAULT_COVARIANCE: Omit<CovarianceSource, 'file' | 'name'> = {
   appliesTo: 'magnitudes',
   blockOrder: ['m_b', 'x1', 'color'],
   layout: 'interleaved',
@@ -44,8 +44,9 @@ export const DEFAULT_COVARIANCE: Omit<CovarianceSource, 'file'> = {
 };
 
 /** One file of systematic modes (`supernovae[].systematic_modes[]`, except the required `file`): shifts used as written. */
-export const DEFAULT_SYSTEMATIC_MODES: Omit<SystematicModeSource, 'file'> = {
+export const DEFAULT_SYSTEMATIC_MODES: Omit<SystematicModeSource, 'file' | 'name'> = {
   scale: 1,
+  perColumn: false,
 };
 
 /** Cuts (`supernovae[].cuts`): none by default, calibrators kept. */

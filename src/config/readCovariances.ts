@@ -5,8 +5,9 @@ import type { CovarianceSource, LightCurveQuantity, SupernovaKind } from './cand
 import type { ConfigReader, Located } from './configReader.js';
 import { DEFAULT_COVARIANCE } from './defaults.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
+import type { SystematicNames } from './systematicNames.js';
 
-const COVARIANCE_KEYS = ['file', 'applies_to', 'block_order', 'layout', 'scale', 'symmetry_tolerance', 'includes_statistical'] as const;
+const COVARIANCE_KEYS = ['file', 'name', 'applies_to', 'block_order', 'layout', 'scale', 'symmetry_tolerance', 'includes_statistical'] as const;
 const QUANTITIES: readonly LightCurveQuantity[] = ['m_b', 'x1', 'color'];
 
 /**
@@ -16,10 +17,11 @@ const QUANTITIES: readonly LightCurveQuantity[] = ['m_b', 'x1', 'color'];
  * @param reader the document reader.
  * @param at the `covariances` value (absent: none).
  * @param kind the data set's kind (undefined when invalid).
+ * @param names the configuration's register of systematic names (`name`, or the file's stem).
  * @returns the entries that could be read, defaults filled, paths resolved.
  * @example readCovariances(reader, at, 'magnitudes')[0].appliesTo // 'magnitudes'
  */
-export function readCovariances(reader: ConfigReader, at: Located | undefined, kind: SupernovaKind | undefined): CovarianceSource[] {
+export function readCovariances(reader: ConfigReader, at: Located | undefined, kind: SupernovaKind | undefined, names: SystematicNames): CovarianceSource[] {
   const sources: CovarianceSource[] = [];
   for (const item of reader.list(at) ?? []) {
     const fields = reader.mapping(item, COVARIANCE_KEYS, ['file']);
@@ -52,6 +54,7 @@ export function readCovariances(reader: ConfigReader, at: Located | undefined, k
     if (typeof file !== 'string') continue;
     sources.push({
       file: resolveConfigPath(reader.fileName, file),
+      name: names.claim(fields.get('name'), item, file),
       appliesTo,
       blockOrder: blockOrder ?? [...DEFAULT_COVARIANCE.blockOrder],
       layout: layout ?? DEFAULT_COVARIANCE.layout,

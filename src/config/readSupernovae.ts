@@ -10,6 +10,7 @@ import { readCovariances } from './readCovariances.js';
 import { readCuts } from './readCuts.js';
 import { readLabel } from './readLabel.js';
 import { readSystematicModeSources } from './readSystematicModeSources.js';
+import { createSystematicNames } from './systematicNames.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
 
 const DATA_SET_KEYS = ['label', 'kind', 'table', 'columns', 'missing_values', 'covariances', 'systematic_modes', 'cuts', 'max_redshift_mismatch', 'sample_names', 'binned'] as const;
@@ -33,6 +34,7 @@ export function readSupernovae(reader: ConfigReader, at: Located): SupernovaData
   }
   const sets: SupernovaDataSet[] = [];
   const seen = new Set<string>();
+  const systematicNames = createSystematicNames(reader);
   items.forEach((item, index) => {
     const fields = reader.mapping(item, DATA_SET_KEYS, ['kind', 'table', 'columns']);
     if (!fields) return;
@@ -47,8 +49,8 @@ export function readSupernovae(reader: ConfigReader, at: Located): SupernovaData
     const table = readTable(reader, fields.get('table'));
     const columns = readColumns(reader, fields.get('columns') ?? { node: null, path: `${item.path}.columns`, anchor: item.node }, kind);
     const missingValues = fields.has('missing_values') ? readMissingValues(reader, fields.get('missing_values')!, columns) : {};
-    const covariances = readCovariances(reader, fields.get('covariances'), kind);
-    const systematicModes = readSystematicModeSources(reader, fields.get('systematic_modes'));
+    const covariances = readCovariances(reader, fields.get('covariances'), kind, systematicNames);
+    const systematicModes = readSystematicModeSources(reader, fields.get('systematic_modes'), systematicNames);
     const cuts = readCuts(reader, fields.get('cuts') ?? { node: null, path: `${item.path}.cuts`, anchor: item.node }, kind, columns);
     const mismatch = reader.number(fields.get('max_redshift_mismatch'), { min: 0, exclusiveMin: true });
     const sampleNames = readSampleNames(reader, fields.get('sample_names'));

@@ -58,7 +58,8 @@ describe('docs/configuration.md', () => {
       ...Object.entries(standardization.host_mass_step as object), ...Object.entries(standardization.scatter as object),
       ...Object.entries(sections.output).filter(([key]) => key !== 'smoothing' && key !== 'dir'),
       ...Object.entries(set.table).filter(([key]) => key !== 'file'),
-      ...Object.entries((set.covariances as unknown as Array<Record<string, unknown>>)[0]).filter(([key]) => key !== 'file'),
+      // name defaults to the file's stem, stated in words in the docs.
+      ...Object.entries((set.covariances as unknown as Array<Record<string, unknown>>)[0]).filter(([key]) => key !== 'file' && key !== 'name'),
       ['keep_calibrators', set.cuts.keep_calibrators], ['max_redshift_mismatch', set.max_redshift_mismatch],
       ['reference_h0', defaults.reference_h0], ['derived', defaults.derived],
     ];

@@ -40,8 +40,9 @@ describe('parseConfigText: defaults', () => {
     expect(table).toEqual(DEFAULT_TABLE);
     expect(set.cuts).toEqual(DEFAULT_CUTS);
     expect(set.maxRedshiftMismatch).toBe(DEFAULT_MAX_REDSHIFT_MISMATCH);
-    const { file: covarianceFile, ...covariance } = set.covariances[0];
+    const { file: covarianceFile, name: covarianceName, ...covariance } = set.covariances[0];
     expect(covariance).toEqual(DEFAULT_COVARIANCE);
+    expect(covarianceName).toBe('sys'); // named after its file's stem
     expect(file.written).toBe('data/table.txt');
     expect(covarianceFile.written).toBe('../shared/sys.txt');
   });

@@ -20,8 +20,8 @@ describe('supernovae[].systematic_modes', () => {
     const { config, warnings } = configOf(text, join('configs', 'run.yaml'));
     expect(warnings).toEqual([]);
     expect(config.supernovae[0].systematicModes).toEqual([
-      { file: { written: 'modes/calibration.csv', resolved: join('configs', 'modes', 'calibration.csv') }, scale: DEFAULT_SYSTEMATIC_MODES.scale },
-      { file: { written: 'dust.txt', resolved: join('configs', 'dust.txt') }, scale: 2.5 },
+      { file: { written: 'modes/calibration.csv', resolved: join('configs', 'modes', 'calibration.csv') }, name: 'calibration', scale: DEFAULT_SYSTEMATIC_MODES.scale, perColumn: false },
+      { file: { written: 'dust.txt', resolved: join('configs', 'dust.txt') }, name: 'dust', scale: 2.5, perColumn: false },
     ]);
     expect(DEFAULT_SYSTEMATIC_MODES.scale).toBe(1); // docs/configuration.md: scale default 1
   });
