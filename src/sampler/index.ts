@@ -36,8 +36,9 @@ export type { PosteriorMode } from './locatePosteriorMode.js';
 export { curvatureWidths } from './curvatureWidths.js';
 // nested sampling (evidence)
 export { runNestedSampling } from './nested/runNestedSampling.js';
-export { BOUND_REBUILD_SHARE } from './nested/runNestedSampling.js';
-export { MAX_CALLS_PER_REPLACEMENT } from './nested/runNestedSampling.js';
+export { NestedRun } from './nested/nestedRun.js';
+export { BOUND_REBUILD_SHARE } from './nested/nestedRun.js';
+export { MAX_CALLS_PER_REPLACEMENT } from './nested/nestedRun.js';
 export { resolveNestedOptions } from './nested/resolveNestedOptions.js';
 export { DEFAULT_ELLIPSOID_ENLARGEMENT } from './nested/resolveNestedOptions.js';
 export type { ResolvedNestedOptions } from './nested/resolveNestedOptions.js';
