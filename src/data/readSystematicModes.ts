@@ -34,7 +34,8 @@ const FIX_ROWS = 'write one row per supernova of the table, in the table\'s row 
  * Values are separated by commas, tabs or spaces (the first data row
  * decides; a header may use its own separator). Blank lines and lines
  * starting with `#` are skipped; a first line whose every field is a
- * non-numeric word is a header of mode names (used in messages only). Every
+ * non-numeric word is a header of mode names (used in messages and returned
+ * as `columnNames` when it has one name per column). Every
  * entry is multiplied by `scale`, so C_sys scales by scale^2. Every problem
  * is collected before throwing.
  *
@@ -47,7 +48,7 @@ const FIX_ROWS = 'write one row per supernova of the table, in the table\'s row 
  * @example
  * // modes.csv: "# two modes\ncalib,dust\n0.01,0\n0.02,-0.01\n0.03,0.005"
  * readSystematicModes({ file: 'modes.csv', displayName: 'modes.csv', expectedSupernovae: 3, scale: 1 })
- * // { count: 3, modeCount: 2, values: [0.01, 0, 0.02, -0.01, 0.03, 0.005], sourceFile: 'modes.csv' }
+ * // { count: 3, modeCount: 2, values: [0.01, 0, 0.02, -0.01, 0.03, 0.005], sourceFile: 'modes.csv', columnNames: ['calib', 'dust'] }
  */
 export function readSystematicModes(options: SystematicModeReadOptions): SystematicModes {
   const { displayName, scale } = options;
@@ -106,7 +107,7 @@ export function readSystematicModes(options: SystematicModeReadOptions): Systema
     });
   }
   if (issues.hasErrors()) throw new CandelaError(issues.finish());
-  return { count, modeCount, values, sourceFile: displayName };
+  return { count, modeCount, values, sourceFile: displayName, ...(names ? { columnNames: names } : {}) };
 }
 
 /** A header line: every field is a word that is neither a number nor a non-finite word (nan, inf). */

@@ -92,4 +92,6 @@ export interface SystematicModes {
   values: Float64Array;
   /** The file(s) they came from. */
   sourceFile: string;
+  /** The names of the K modes from the file's header line, when it has one (readSystematicModes only; cuts and joins drop them). */
+  columnNames?: string[];
 }

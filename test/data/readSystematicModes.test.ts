@@ -39,6 +39,7 @@ describe('readSystematicModes', () => {
     expect(modes.modeCount).toBe(3);
     expect(Array.from(modes.values)).toEqual([0.01, -0.02, 0, 0.03, 0.04, -0.05]); // the file's numbers, row major
     expect(modes.sourceFile).toBe('header.csv');
+    expect(modes.columnNames).toEqual(['zero_point_g', 'zero_point_r', 'dust']); // the header, for the budget's per-column rows
   });
 
   it('reads the same numbers separated by tabs or by runs of spaces, with Windows line breaks', () => {
@@ -59,6 +60,7 @@ describe('readSystematicModes', () => {
     const modes = readSystematicModes(modesFile('one.txt', '1e-3\n-2.5E-3\n+.5\n', 3));
     expect(modes.modeCount).toBe(1);
     expect(Array.from(modes.values)).toEqual([0.001, -0.0025, 0.5]);
+    expect(modes.columnNames).toBeUndefined();
   });
 
   it('multiplies every shift by the scale (so U U^T scales by its square)', () => {
