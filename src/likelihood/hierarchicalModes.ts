@@ -1,4 +1,5 @@
 import { choleskyInPlace, logDeterminantFromCholesky, solveLowerInPlace, solveUpperTransposedInPlace } from '../math/index.js';
+import { dot } from './lowRankCapacitance.js';
 
 /**
  * Systematic modes on m_B in the hierarchical term's block path (private
@@ -47,8 +48,9 @@ import { choleskyInPlace, logDeterminantFromCholesky, solveLowerInPlace, solveUp
  * (Sigma^-1)_ii = B_i^-1 - (U_i^T S^-1 U_i) B_i^-1 e_1 e_1^T B_i^-1.
  *
  * Cost per change of the covariance inputs: N K (K + 1)/2 multiply-adds for
- * S, K^3/6 for its Cholesky factor; per vector N K + K^2/2. Memory K^2 + 2K
- * (U is not copied). N = 10^4, K = 20: 2.1e6 multiply-adds.
+ * S (as dot products of the columns of P^1/2 U), N K square roots, K^3/6 for
+ * the Cholesky factor of S; per vector N K + K^2/2. Memory (2K + 1) N + K^2
+ * (U^T and P^1/2 U, mode by mode). N = 10^4, K = 20: 2.1e6 multiply-adds.
  */
 export interface HierarchicalModes {
   /** K. */
@@ -71,41 +73,43 @@ export interface HierarchicalModes {
 
 /**
  * The K x K part of the modes' Woodbury algebra (see {@link HierarchicalModes}).
- * Cost of construction O(K^2); allocates K^2 + 2K doubles.
- * @param modes U, N x K row major, mag (checked by checkSystematicModes; not copied, must not change)
+ * Cost of construction O(N K); allocates (2K + 1) N + K^2 + 2K doubles.
+ * @param modes U, N x K row major, mag (checked by checkSystematicModes; must not change)
  * @param count N
  * @param modeCount K (>= 1)
  * @example // one supernova, one mode U = 0.1 mag, p = 100 / mag^2: S = 1 + 100 * 0.01 = 2
  * createHierarchicalModes(Float64Array.of(0.1), 1, 1).prepare(Float64Array.of(100)); // ln 2
  */
 export function createHierarchicalModes(modes: Float64Array, count: number, modeCount: number): HierarchicalModes {
+  // U^T, K x N row major (mode by mode), so that S and U^T v are contiguous dot products.
+  const transposed = new Float64Array(modeCount * count);
+  for (let i = 0; i < count; i++) for (let k = 0; k < modeCount; k++) transposed[k * count + i] = modes[i * modeCount + k];
+  const modeRows = Array.from({ length: modeCount }, (_, k) => transposed.subarray(k * count, (k + 1) * count));
+  // sqrt(p_i) U_ik, mode by mode: S = I + (P^1/2 U)^T (P^1/2 U).
+  const scaled = new Float64Array(modeCount * count);
+  const scaledRows = Array.from({ length: modeCount }, (_, k) => scaled.subarray(k * count, (k + 1) * count));
+  const root = new Float64Array(count);
   const capacitance = new Float64Array(modeCount * modeCount);
   const amplitudes = new Float64Array(modeCount);
   const scratch = new Float64Array(modeCount);
   const project = (v: Float64Array, out: Float64Array): void => {
-    out.fill(0, 0, modeCount);
-    for (let i = 0; i < count; i++) {
-      const value = v[i];
-      const row = i * modeCount;
-      for (let k = 0; k < modeCount; k++) out[k] += modes[row + k] * value;
-    }
+    for (let k = 0; k < modeCount; k++) out[k] = dot(modeRows[k], v, count);
     solveLowerInPlace(capacitance, modeCount, out);
   };
   return {
     modeCount,
     capacitanceFactor: capacitance,
     prepare(precision) {
-      capacitance.fill(0);
-      for (let i = 0; i < count; i++) {
-        const weight = precision[i];
-        const row = i * modeCount;
-        for (let k = 0; k < modeCount; k++) {
-          const scaled = weight * modes[row + k];
-          const target = k * modeCount;
-          for (let l = 0; l <= k; l++) capacitance[target + l] += scaled * modes[row + l];
-        }
+      for (let i = 0; i < count; i++) root[i] = Math.sqrt(precision[i]);
+      for (let k = 0; k < modeCount; k++) {
+        const from = modeRows[k];
+        const to = scaledRows[k];
+        for (let i = 0; i < count; i++) to[i] = from[i] * root[i];
       }
-      for (let k = 0; k < modeCount; k++) capacitance[k * modeCount + k] += 1;
+      for (let k = 0; k < modeCount; k++) {
+        for (let l = 0; l <= k; l++) capacitance[k * modeCount + l] = dot(scaledRows[k], scaledRows[l], count);
+        capacitance[k * modeCount + k] += 1;
+      }
       const factor = choleskyInPlace(capacitance, modeCount);
       return factor.ok ? logDeterminantFromCholesky(capacitance, modeCount) : NaN;
     },

@@ -24,7 +24,7 @@ const LOG_TWO_PI = Math.log(2 * Math.PI);
  * sums of squares; it loses about log10(|e|^2 / chi^2) digits, and E about
  * log10(1 + N s^2 p) when one mode is a common offset of s mag (p the
  * typical m_B precision), e.g. three digits for N = 10^4, s = 0.3/sqrt(p).
- * Allocates its buffers here (4N + 3K + K^2 doubles beyond the 6N of e and w), nothing per call.
+ * Allocates its buffers here (about (2K + 9) N doubles with those of hierarchicalModes.ts), nothing per call.
  * @param model the shared model (model.data.dense must be null, model.data.modes set)
  */
 export function createBlockModesEvaluator(model: HierarchicalModel): HierarchicalEvaluator {
