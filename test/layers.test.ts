@@ -20,18 +20,20 @@ const ALLOWED: Record<string, string[]> = {
   likelihood: ['errors', 'math', 'data', 'standardize', 'cosmology', 'parameters'],
   // probes: likelihood terms beside the supernovae (BAO, compressed CMB), each a folder plus a registry line.
   probes: ['errors', 'math', 'data', 'cosmology', 'likelihood', 'parameters'],
+  // forecast: Fisher-matrix numerics (Hessian of a log-likelihood, marginal errors, the covariance's own information); no Config type.
+  forecast: ['errors', 'math', 'data', 'cosmology', 'likelihood', 'parameters'],
   mock: ['errors', 'math', 'data', 'standardize', 'cosmology', 'parameters'],
   sampler: ['errors', 'math'],
   diagnostics: ['errors', 'math'],
   compare: ['errors', 'math', 'sampler', 'diagnostics', 'parameters'],
   output: ['errors', 'math', 'sampler', 'diagnostics', 'parameters'],
-  pipeline: ['errors', 'math', 'parameters', 'config', 'data', 'standardize', 'cosmology', 'likelihood', 'probes', 'mock', 'sampler', 'diagnostics', 'compare', 'output'],
+  pipeline: ['errors', 'math', 'parameters', 'config', 'data', 'standardize', 'cosmology', 'likelihood', 'probes', 'mock', 'forecast', 'sampler', 'diagnostics', 'compare', 'output'],
   cli: ['errors', 'config', 'pipeline'],
 };
 
 // Layers below the pipeline that must stay free of process, console, clock and Math.random
 // (data/ may read files, output/ may write them, the sampler's worker pool starts threads).
-const PURE_LAYERS = ['parameters', 'math', 'standardize', 'cosmology', 'likelihood', 'mock', 'diagnostics', 'compare'];
+const PURE_LAYERS = ['parameters', 'math', 'standardize', 'cosmology', 'likelihood', 'mock', 'forecast', 'diagnostics', 'compare'];
 
 function listFiles(dir: string): string[] {
   return readdirSync(dir).flatMap((name) => {

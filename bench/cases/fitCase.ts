@@ -19,7 +19,7 @@
  */
 import { samplePrior } from '../../src/likelihood/index.js';
 import { createInProcessEvaluator, createWorkerPoolEvaluator, EnsembleSampler, initializeWalkers, type BatchEvaluator } from '../../src/sampler/index.js';
-import { checkConvergence, type ConvergenceCheck } from '../../src/pipeline/samplingLoop.js';
+import { checkConvergence, type ConvergenceCheck } from '../../src/pipeline/fit/samplingLoop.js';
 import { caseArguments, reportCase, runCaseMain } from '../support/childCase.js';
 import { buildFitModel, FIT_FREE, fitModelUrl, type FitModelInit } from '../support/fitModel.js';
 import { timedEvaluator } from '../support/timedEvaluator.js';

@@ -47,3 +47,7 @@ export { cmbShiftParameter } from './cmbShiftParameter.js';
 export { acousticScale } from './acousticScale.js';
 export { compressedCmbDistances } from './compressedCmbDistances.js';
 export type { CompressedCmbDistances } from './compressedCmbDistances.js';
+// Derived quantities of each sample (t0, q0, ...).
+export { DERIVED_PARAMETER_MEANINGS } from './derivedParameters.js';
+export type { DerivedModel } from './derivedParameters.js';
+export { createDerivedParameters } from './derivedParameters.js';

@@ -26,3 +26,6 @@ export type { AcceptanceSummary } from './acceptanceSummary.js';
 export { chooseBurnIn, BURN_IN_TAU_MULTIPLE, MAXIMUM_BURN_IN_SHARE } from './chooseBurnIn.js';
 export { diagnoseEnsembleChains } from './diagnoseEnsembleChains.js';
 export type { EnsembleTrace, ParameterDiagnostics } from './diagnoseEnsembleChains.js';
+// Burn-in, tau, R-hat and ESS of a run's traces in one call.
+export type { TraceDiagnosis } from './diagnoseTraces.js';
+export { diagnoseTraces } from './diagnoseTraces.js';

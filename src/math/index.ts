@@ -51,3 +51,6 @@ export type { MarginalDensity1D, DensityGrid2D, BandwidthRule, HardBounds, Margi
 // Text
 export { editDistance } from './text/editDistance.js';
 export { closestWord } from './text/closestWord.js';
+// Extent of an array; resampling weighted (nested) draws to equal weights.
+export { arrayExtent } from './arrayExtent.js';
+export { resampleRowsByWeight } from './nestedResampleRows.js';

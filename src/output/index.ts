@@ -99,3 +99,38 @@ export type { ModelsIndexInput } from './report/index.js';
 export type { SummaryCells } from './tables/summaryCells.js';
 export { darkEnergyBandsFigure } from './figures/darkEnergyBandsFigure.js';
 export type { DarkEnergyBand, DarkEnergyBandsInput, DarkEnergyBandsOptions } from './figures/darkEnergyBandsFigure.js';
+// Facts the summaries carry: goodness of fit, prior-edge limits, fixed-parameter notes, mass-step convention, binned residuals.
+export { GOODNESS_OF_FIT_TAIL } from './summaries/goodnessOfFit.js';
+export type { GoodnessOfFit } from './summaries/goodnessOfFit.js';
+export { goodnessOfFit } from './summaries/goodnessOfFit.js';
+export { goodnessOfFitWarning } from './summaries/goodnessOfFit.js';
+export { PRIOR_EDGE_TOUCH_FRACTION } from './summaries/priorEdgeLimits.js';
+export { ONE_SIDED_LIMIT_MASS } from './summaries/priorEdgeLimits.js';
+export type { PriorEdgeInput } from './summaries/priorEdgeLimits.js';
+export { detectPriorEdges } from './summaries/priorEdgeLimits.js';
+export type { FixedParameterFacts } from './summaries/fixedParameterNotes.js';
+export { fixedParameterNotes } from './summaries/fixedParameterNotes.js';
+export { massStepConvention } from './summaries/massStepConvention.js';
+export { binResiduals } from './summaries/binResiduals.js';
+// Run-folder formats: the folder layout, the chains CSV, the binary sampler state, the checkpoint and chain record.
+export { RUN_FILES } from './run/runFolder.js';
+export { prepareRunFolder } from './run/runFolder.js';
+export { encodeBinaryState } from './run/binaryState.js';
+export { decodeBinaryState } from './run/binaryState.js';
+export type { ChainColumns } from './run/chainsFile.js';
+export type { EnsembleDraws } from './run/chainsFile.js';
+export type { ChainTable } from './run/chainsFile.js';
+export { WEIGHT_COLUMN } from './run/chainsFile.js';
+export { chainHeader } from './run/chainsFile.js';
+export { writeChainsFile } from './run/chainsFile.js';
+export { readChainsFile } from './run/readChainsFile.js';
+export type { ChainsCsvOption } from './run/chainsSelection.js';
+export { DEFAULT_CHAINS_CSV } from './run/chainsSelection.js';
+export type { ChainsSelection } from './run/chainsSelection.js';
+export { chainsSelection } from './run/chainsSelection.js';
+export type { CheckpointFacts } from './run/checkpointFile.js';
+export { writeCheckpoint } from './run/checkpointFile.js';
+export { readCheckpoint } from './run/checkpointFile.js';
+export type { ChainRecordShape } from './run/checkpointFile.js';
+export { visitChainRecord } from './run/checkpointFile.js';
+

@@ -1,61 +1,44 @@
-// pipeline layer barrel: one export per line.
+// pipeline layer barrel: the command entry points (one per command of src/cli) and the types their
+// requests and outcomes use, one export per line. Everything else stays inside its feature folder:
+//   run/        what every command shares: loading the data, building the posterior, the run record and run folder reader
+//   fit/        candela fit: the sampling loop, signals, nested sampling
+//   report/     candela report: every output of a run folder, rebuilt from its chains
+//   compare/    candela compare
+//   forecast/   candela simulate --forecast
+//   simulate/   candela simulate
+//   cluster/    candela fit --plan slurm / --part, candela merge
+//   check/, distances/, standardize/   the commands of the same names
 export {};
-export { checkConfiguration } from './checkConfiguration.js';
-export type { ConfigurationCheck } from './checkConfiguration.js';
-export { computeDistanceTable } from './distanceTable.js';
-export { formatDistanceTableText } from './distanceTable.js';
-export { formatDistanceTableJson } from './distanceTable.js';
-export { formatDistanceTableCsv } from './distanceTable.js';
-export { readRedshiftFile } from './distanceTable.js';
-export { DEFAULT_CMB_TEMPERATURE_K } from './distanceTable.js';
-export type { DistanceTable, DistanceTableOptions, DistanceTableRow } from './distanceTable.js';
-export { VERSION } from './version.js';
-export { standardizeTable } from './standardizeTable.js';
-export type { StandardizedTable } from './standardizeTable.js';
-export { runFit, runFolderFor } from './runFit.js';
-export { FitInterrupted, isFitInterrupted } from './runFit.js';
-export { DEFAULT_CHAINS_CSV } from './chainsSelection.js';
-export type { ChainsCsvOption } from './chainsSelection.js';
-export type { FitRequest, FitProgress, FitOutcome } from './runFit.js';
-export { buildRunOutputs } from './buildRunOutputs.js';
-export { terminalRunReport } from './terminalRunReport.js';
-export { simulateSurvey } from './simulateSurvey.js';
-export { loadSurvey } from './simulateSurvey.js';
-export { drawSurvey } from './simulateSurvey.js';
-export type { SimulateRequest } from './simulateSurvey.js';
-export type { SimulateOutcome } from './simulateSurvey.js';
-export { simulateFileContents } from './simulateFileContents.js';
-export { MOCK_TABLE_COLUMNS } from './simulateFileContents.js';
-export type { SimulateFileContents } from './simulateFileContents.js';
-export { mockOptionsFromSurvey } from './simulateMockOptions.js';
-export { forecastSurvey } from './forecastSurvey.js';
-export type { ForecastRequest } from './forecastSurvey.js';
-export type { ForecastResult } from './forecastSurvey.js';
-export { forecastSetups } from './forecastSetups.js';
-export type { ForecastSetup } from './forecastSetups.js';
-export type { ForecastParameter } from './forecastSetups.js';
-export { fisherForecast } from './forecastFisher.js';
-export { PILOT_RELATIVE_STEP } from './forecastFisher.js';
-export { STEP_FRACTION_OF_SIGMA } from './forecastFisher.js';
-export type { ModelForecast } from './forecastFisher.js';
-export { centralDifferenceHessian } from './forecastHessian.js';
-export { marginalizeFisher } from './forecastMarginals.js';
-export type { FisherMarginals } from './forecastMarginals.js';
-export { covarianceInformation } from './forecastCovarianceInformation.js';
-export { formatForecastText } from './forecastReport.js';
-export { formatForecastJson } from './forecastReport.js';
-export { covariancePart } from './forecastCovariancePart.js';
-export { compareRuns } from './compareRuns.js';
-export { COMPARISON_FILES } from './compareRuns.js';
-export type { CompareRequest } from './compareRuns.js';
-export type { CompareOutcome } from './compareRuns.js';
-export { planSlurmArray } from './slurmPlan.js';
-export { SLURM_FILES } from './slurmPlan.js';
-export type { SlurmPlanRequest } from './slurmPlan.js';
-export type { SlurmPlan } from './slurmPlan.js';
-export { locatePart } from './slurmPart.js';
-export { partFolder } from './slurmPart.js';
-export type { FitPart } from './slurmPart.js';
-export { mergeParts } from './mergeParts.js';
-export type { MergeRequest } from './mergeParts.js';
-export type { MergedRunRecord } from './mergeParts.js';
+export { checkConfiguration } from './check/checkConfiguration.js';
+export type { ConfigurationCheck } from './check/checkConfiguration.js';
+export { computeDistanceTable } from './distances/distanceTable.js';
+export { formatDistanceTableText } from './distances/distanceTable.js';
+export { formatDistanceTableJson } from './distances/distanceTable.js';
+export { formatDistanceTableCsv } from './distances/distanceTable.js';
+export { readRedshiftFile } from './distances/distanceTable.js';
+export type { DistanceTable, DistanceTableOptions, DistanceTableRow } from './distances/distanceTable.js';
+export { VERSION } from './run/version.js';
+export { standardizeTable } from './standardize/standardizeTable.js';
+export type { StandardizedTable } from './standardize/standardizeTable.js';
+export { runFit } from './fit/runFit.js';
+export { isFitInterrupted } from './fit/runFit.js';
+export type { FitRequest, FitProgress, FitOutcome } from './fit/runFit.js';
+export { buildRunOutputs } from './report/buildRunOutputs.js';
+export { terminalRunReport } from './report/terminalRunReport.js';
+export { simulateSurvey } from './simulate/simulateSurvey.js';
+export type { SimulateRequest } from './simulate/simulateSurvey.js';
+export type { SimulateOutcome } from './simulate/simulateSurvey.js';
+export { forecastSurvey } from './forecast/forecastSurvey.js';
+export { formatForecastText } from './forecast/forecastReport.js';
+export { formatForecastJson } from './forecast/forecastReport.js';
+export type { ForecastRequest } from './forecast/forecastSurvey.js';
+export type { ForecastResult } from './forecast/forecastSurvey.js';
+export { compareRuns } from './compare/compareRuns.js';
+export type { CompareRequest } from './compare/compareRuns.js';
+export type { CompareOutcome } from './compare/compareRuns.js';
+export { planSlurmArray } from './cluster/slurmPlan.js';
+export type { SlurmPlanRequest } from './cluster/slurmPlan.js';
+export type { SlurmPlan } from './cluster/slurmPlan.js';
+export { mergeParts } from './cluster/mergeParts.js';
+export type { MergeRequest } from './cluster/mergeParts.js';
+export type { MergedRunRecord } from './cluster/mergeParts.js';

@@ -5,9 +5,9 @@ import { createCosmology } from '../../src/cosmology/index.js';
 import { createRandomStream } from '../../src/math/index.js';
 import { compareRuns, runFit } from '../../src/pipeline/index.js';
 import { loadConfigFile } from '../../src/config/index.js';
-import { buildModel } from '../../src/pipeline/buildModel.js';
+import { buildModel } from '../../src/pipeline/run/buildModel.js';
 import { pantheonBinnedConfig } from '../support/pantheonBinnedConfig.js';
-import { loadSupernovae } from '../../src/pipeline/loadSupernovae.js';
+import { loadSupernovae } from '../../src/pipeline/run/loadSupernovae.js';
 
 // The Savage-Dickey density ratio (Dickey 1971; Trotta 2007, MNRAS 378, 72) equals the Bayes
 // factor of nested models when the extended model's other priors match the base's: so on
@@ -123,7 +123,7 @@ describe.skipIf(!process.env.CANDELA_VALIDATE)('Savage-Dickey against evidences 
         output: `{ dir: ${join(folder, 'fit')}, figures: [], png: false }`,
       }));
       if (Number.isNaN(quadrature)) {
-        // Composite Simpson over omega_m in [0, 1] with 4000 intervals, prior density 1 (as in test/pipeline/nestedFit.test.ts).
+        // Composite Simpson over omega_m in [0, 1] with 4000 intervals, prior density 1 (as in test/pipeline/fit/nestedFit.test.ts).
         const config = loadConfigFile(path);
         const model = buildModel(config, 0, loadSupernovae(config));
         const intervals = 4000;

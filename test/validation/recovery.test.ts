@@ -5,8 +5,8 @@ import { createPosterior, createSupernovaTerm, type Prior } from '../../src/like
 import { deriveSeed } from '../../src/math/index.js';
 import { generateMockSurvey, type MockTruth } from '../../src/mock/index.js';
 import { ONE_SIGMA_MASS, TWO_SIGMA_MASS, sampleStatistics } from '../../src/output/index.js';
-import { buildModel } from '../../src/pipeline/buildModel.js';
-import { loadSupernovae } from '../../src/pipeline/loadSupernovae.js';
+import { buildModel } from '../../src/pipeline/run/buildModel.js';
+import { loadSupernovae } from '../../src/pipeline/run/loadSupernovae.js';
 import { binomialBand, FALSE_ALARM_TAIL } from './support/coverageStatistics.js';
 import { keptStepsOverTau, posteriorModel, quickFit, type QuickFit } from './support/quickFit.js';
 import { printComparison, type ComparisonRow } from './support/sideBySide.js';

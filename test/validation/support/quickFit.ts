@@ -4,7 +4,7 @@ import { integratedAutocorrelationTime } from '../../../src/diagnostics/index.js
 import type { Posterior } from '../../../src/likelihood/index.js';
 import type { RandomStream } from '../../../src/math/index.js';
 import { EnsembleSampler, createInProcessEvaluator, initializeWalkers, type LogProbabilityModel } from '../../../src/sampler/index.js';
-import { checkConvergence } from '../../../src/pipeline/samplingLoop.js';
+import { checkConvergence } from '../../../src/pipeline/fit/samplingLoop.js';
 
 /**
  * Burn-in in units of the largest autocorrelation time. The walkers start in a
@@ -174,7 +174,7 @@ export function spacedDraws(fit: QuickFit, index: number, count: number, strideS
   return out;
 }
 
-/** How to run a fit that stops by candela's own rule (src/pipeline/samplingLoop.ts). */
+/** How to run a fit that stops by candela's own rule (src/pipeline/fit/samplingLoop.ts). */
 export interface RuleFitOptions {
   walkers: number;
   ensembles: number;

@@ -1,0 +1,129 @@
+import { CandelaError } from '../../errors.js';
+import { writeFileAtomicBy } from '../writeFileAtomic.js';
+
+export { readChainsFile } from './readChainsFile.js';
+
+/**
+ * chains.csv: one row per stored sample, ensemble-major then step then walker.
+ * Columns: ensemble, walker, step, every sampled parameter, every derived
+ * quantity, log_prior, log_likelihood, log_posterior, [weight,] burn_in (1 for
+ * steps inside the burn-in, else 0). Numbers are written as the shortest
+ * decimal that reads back as the same double (ECMAScript Number#toString), so
+ * the file is exact and identical on every machine; a derived quantity that
+ * does not exist for a sample (no acceleration epoch) is an empty cell.
+ *
+ * The `weight` column exists only for weighted samples (nested sampling: one
+ * row per dead or final live point, ensemble 0, walker 0, step = iteration,
+ * weight = normalized posterior weight, the weights summing to 1, burn_in 0).
+ * Ensemble-sampler chains are equally weighted and have no weight column, so
+ * their files are unchanged by this option.
+ */
+export interface ChainColumns {
+  /** Sampled parameter names, in theta order. */
+  parameters: readonly string[];
+  /** Derived quantity names, in blob order after log prior and log likelihood. */
+  derived: readonly string[];
+}
+
+/** The stored draws of one ensemble, as the sampler keeps them. */
+export interface EnsembleDraws {
+  steps: number;
+  walkers: number;
+  dimension: number;
+  /** steps x walkers x dimension */
+  positions: Float64Array;
+  /** steps x walkers */
+  logProb: Float64Array;
+  /** steps x walkers x blobCount: [log prior, log likelihood, derived...] */
+  blobs: Float64Array;
+  blobCount: number;
+}
+
+/** Chains read back from chains.csv, column-major per variable. */
+export interface ChainTable {
+  header: string[];
+  ensemble: Int32Array;
+  walker: Int32Array;
+  step: Int32Array;
+  burnIn: Uint8Array;
+  /** Column values by name (NaN for empty cells). */
+  columns: Record<string, Float64Array>;
+  /** Posterior weight per row (the `weight` column of a nested-sampling run), or null for equally weighted chains. */
+  weights: Float64Array | null;
+  rows: number;
+}
+
+/** Rows buffered before each write. */
+const ROWS_PER_WRITE = 4096;
+
+function cell(value: number): string {
+  return Number.isFinite(value) ? String(value) : value === -Infinity ? '-inf' : '';
+}
+
+/** Name of the optional posterior-weight column (nested-sampling runs). */
+export const WEIGHT_COLUMN = 'weight';
+
+/**
+ * Header names of chains.csv for these columns (with the weight column when `weighted`).
+ * Cost: O(columns).
+ * @param columns sampled and derived names.
+ * @param weighted whether a weight column is written.
+ * @returns the header fields in file order.
+ * @throws nothing.
+ * @example chainHeader({ parameters: ['omega_m'], derived: [] }) // ['ensemble', 'walker', 'step', 'omega_m', 'log_prior', 'log_likelihood', 'log_posterior', 'burn_in']
+ */
+export function chainHeader(columns: ChainColumns, weighted = false): string[] {
+  return ['ensemble', 'walker', 'step', ...columns.parameters, ...columns.derived, 'log_prior', 'log_likelihood', 'log_posterior', ...(weighted ? [WEIGHT_COLUMN] : []), 'burn_in'];
+}
+
+/**
+ * Writes chains.csv atomically (writeFileAtomicBy: temporary file in the
+ * same folder, fsync, rename), streaming rows so memory stays O(rows per
+ * write); a failed write (full disk) leaves no temporary file and the
+ * previous chains.csv, if any, untouched.
+ * @param path the file to write.
+ * @param columns sampled and derived names.
+ * @param ensembles the draws, one entry per ensemble.
+ * @param burnInSteps steps flagged as burn-in (0 for nested sampling).
+ * @param weights optional posterior weight per row, in file order (all ensembles' rows
+ *   concatenated); when given, a `weight` column is written before `burn_in`.
+ * @param selection the steps written (see chainsSelection; default every step); rows keep their true step numbers.
+ * @throws CandelaError `output.write_failed` when the file system refuses (full disk, read-only), after removing the
+ *   temporary file; `run.bad_weights` when the weight count differs from the row count.
+ * @example writeChainsFile('out/chains.csv', { parameters: ['omega_m'], derived: [] }, [draws], 0, weights)
+ */
+export function writeChainsFile(path: string, columns: ChainColumns, ensembles: EnsembleDraws[], burnInSteps: number, weights?: Float64Array, selection?: { first_step: number; every_steps: number; steps: number }): void {
+  const rowCount = ensembles.reduce((sum, draws) => sum + (selection ? selection.steps : draws.steps) * draws.walkers, 0);
+  if (weights && weights.length !== rowCount) {
+    throw new CandelaError({ code: 'run.bad_weights', file: path, message: 'one posterior weight per stored sample is needed', expected: `${rowCount} weights`, found: String(weights.length) });
+  }
+  let rowIndex = 0;
+  writeFileAtomicBy(path, (write) => {
+    write(`${chainHeader(columns, weights !== undefined).join(',')}\n`);
+    const derivedCount = columns.derived.length;
+    let buffer: string[] = [];
+    ensembles.forEach((draws, ensembleIndex) => {
+      const { walkers, dimension, blobCount } = draws;
+      const { first_step: first, every_steps: every, steps: count } = selection ?? { first_step: 0, every_steps: 1, steps: draws.steps };
+      for (let step = first; step < first + count * every; step += every) {
+        for (let walker = 0; walker < walkers; walker++) {
+          const row = step * walkers + walker;
+          const parts: string[] = [String(ensembleIndex), String(walker), String(step)];
+          for (let d = 0; d < dimension; d++) parts.push(cell(draws.positions[row * dimension + d]));
+          const blobBase = row * blobCount;
+          for (let k = 0; k < derivedCount; k++) parts.push(cell(draws.blobs[blobBase + 2 + k]));
+          parts.push(cell(draws.blobs[blobBase]), cell(draws.blobs[blobBase + 1]), cell(draws.logProb[row]));
+          if (weights) parts.push(cell(weights[rowIndex]));
+          parts.push(step < burnInSteps ? '1' : '0');
+          rowIndex++;
+          buffer.push(parts.join(','));
+          if (buffer.length >= ROWS_PER_WRITE) {
+            write(`${buffer.join('\n')}\n`);
+            buffer = [];
+          }
+        }
+      }
+    });
+    if (buffer.length) write(`${buffer.join('\n')}\n`);
+  });
+}

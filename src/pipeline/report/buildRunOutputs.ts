@@ -1,0 +1,306 @@
+import { mkdirSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
+import {
+  contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, densityGridCsv, hubbleFigure,
+  marginalDensityCsv, measurementRatioFigure, reportHtml, sampleWalkerTraces, summaryCells, summaryLatex, summaryMarkdown, svgToPdf, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
+  type BinnedResidual, type ContourSet2D, type ReportFigure, type ReportRunFacts, type TraceParameterPanel,
+} from '../../output/index.js';
+import { figureSettings, TRUTH_LABEL, type FigureSettings } from './figureSettings.js';
+import { reportInputFiles } from './reportInputFiles.js';
+import { modelColumn, siblingModelFolders, writeModelsIndex } from './modelsIndex.js';
+import { RELIABLE_STEPS_PER_TAU } from '../../diagnostics/index.js';
+import { densityGrid2D } from '../../math/index.js';
+import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
+import { readRunFolder, type RunOnDisk } from '../run/runFiles.js';
+import { readProbeDiagrams } from './probeDiagramFiles.js';
+import { RUN_FILES } from '../../output/index.js';
+import { summaryDocument } from './summaryDocument.js';
+import { nestedReportFacts } from './nestedReportFacts.js';
+import { binResiduals } from '../../output/index.js';
+import { residualsFigureOfRun } from './residualsFigureOfRun.js';
+import { autocorrelationFigureOfRun } from './autocorrelationFigureOfRun.js';
+import { stringify } from 'yaml';
+import { PARAMETERS, parameterRank, parseParameterName } from '../../parameters/index.js';
+
+/** Width of PNG renderings, px (print quality for a figure of ~640 px design width). */
+const PNG_WIDTH_PX = 1600;
+/** The triangle figure shows every sampled parameter up to this many, else the cosmological ones. */
+const TRIANGLE_MAX_PARAMETERS = 7;
+/** Redshift bins of the binned Hubble residuals (equal in log z). */
+const RESIDUAL_BINS = 12;
+
+/** The PNG of a figure: at the configured dots per inch, else {@link PNG_WIDTH_PX} wide. */
+function pngOf(svg: string, settings: FigureSettings): Buffer {
+  return svgToPng(svg, settings.pngDpi === null ? PNG_WIDTH_PX : { dotsPerInch: settings.pngDpi });
+}
+
+/** The truth values of the shown parameters, for the triangle figure's reference marks (none without a truth file). */
+function truthOptions(settings: FigureSettings, parameters: readonly string[]): { reference?: Record<string, number>; referenceLabel?: string } {
+  if (!settings.truth) return {};
+  const shown = Object.fromEntries(parameters.filter((name) => settings.truth![name] !== undefined).map((name) => [name, settings.truth![name]]));
+  return Object.keys(shown).length > 0 ? { reference: shown, referenceLabel: TRUTH_LABEL } : {};
+}
+
+function trianglePairs(parameters: string[]): Array<[string, string]> {
+  const pairs: Array<[string, string]> = [];
+  for (let i = 0; i < parameters.length; i++) for (let j = i + 1; j < parameters.length; j++) pairs.push([parameters[i], parameters[j]]);
+  return pairs;
+}
+
+function triangleParameters(analysis: RunAnalysis, settings: FigureSettings): string[] {
+  if (settings.triangleParameters !== 'auto') {
+    const chosen = settings.triangleParameters.filter((name) => analysis.sampled.includes(name));
+    if (chosen.length > 0) return chosen;
+  }
+  if (analysis.sampled.length <= TRIANGLE_MAX_PARAMETERS) return analysis.sampled;
+  const cosmological = analysis.sampled.filter((name) => ['omega_m', 'omega_de', 'w0', 'wa', 'h0'].includes(name));
+  return cosmological.length ? cosmological : analysis.sampled.slice(0, TRIANGLE_MAX_PARAMETERS);
+}
+
+/**
+ * Credible contours for every pair of `parameters` shown in a triangle
+ * figure: the configured pairs already computed are reused, the others are
+ * estimated from the kept draws (weighted for nested runs) with reflection at
+ * hard prior edges.
+ * Cost: one 2-D density grid per missing pair.
+ * @param run the run folder read back.
+ * @param analysis its analysis.
+ * @param parameters the triangle's parameters, in order.
+ * @returns one contour set per pair (i < j).
+ * @throws CandelaError from the density estimate (e.g. a parameter without spread).
+ * @example contoursForTriangle(run, analysis, ['omega_m', 'w0']).length // 1
+ */
+export function contoursForTriangle(run: RunOnDisk, analysis: RunAnalysis, parameters: string[]): ContourSet2D[] {
+  const kept = analysis.keptRows;
+  const column = (name: string) => Float64Array.from(kept, (r) => run.chains.columns[name][r]);
+  const weights = analysis.keptWeights ? { weights: analysis.keptWeights } : {};
+  return trianglePairs(parameters).map(([x, y]) => {
+    const existing = analysis.contours.find((set) => set.grid.xParameter === x && set.grid.yParameter === y);
+    return existing ?? credibleContours(densityGrid2D(x, column(x), y, column(y), { ...weights, xBounds: priorBounds(run, x), yBounds: priorBounds(run, y) }));
+  });
+}
+
+export { binResiduals };
+
+function hubbleSvg(run: RunOnDisk, settings: FigureSettings): string | null {
+  if (!run.hubble || !run.hubbleModel) return null;
+  const columns = run.hubble.columns;
+  const z = Float64Array.from(columns.z, Number);
+  const muObs = Float64Array.from(columns.mu_obs, Number);
+  const muErr = Float64Array.from(columns.sigma_mu, Number);
+  const muModel = Float64Array.from(columns.mu_model, Number);
+  const residual = Float64Array.from(columns.residual, Number);
+  const model = run.hubbleModel;
+  return hubbleFigure({
+    redshift: z, muObsMag: muObs, muErrMag: muErr, sample: columns.sample, bestFitMuMag: muModel,
+    modelCurve: { z: model.z, median: model.mu_median, low68: model.mu_low68, high68: model.mu_high68 },
+    // Already-binned data are not binned again: the points are the bins.
+    ...(settings.dataAreBinned ? {} : { binnedResiduals: binResiduals(z, residual, muErr, RESIDUAL_BINS) }),
+  }, {
+    modelLabel: `${run.record.model.label} (best fit)`, width: settings.width, fontFace: settings.fontFace,
+    sampleNames: settings.sampleNames, dataAreBinned: settings.dataAreBinned,
+  });
+}
+
+function traceSvg(run: RunOnDisk, analysis: RunAnalysis, settings: FigureSettings): string {
+  const { steps, walkers, ensembles } = analysis;
+  // Individual walkers, not their mean: a stuck walker shows as a flat line, and the acceptance summary's stuck walkers are always drawn.
+  const panels: TraceParameterPanel[] = analysis.sampled.map((name) => ({
+    parameter: name,
+    ensembles: sampleWalkerTraces(run.chains.columns[name], { steps, walkers, ensembles }, { stuckWalkers: analysis.stuckWalkersByEnsemble }),
+  }));
+  return traceStackFigure(panels, analysis.burnInSteps, { width: settings.width, fontFace: settings.fontFace });
+}
+
+function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
+  const { record } = run;
+  if (analysis.method === 'nested') return nestedReportFacts(record, analysis);
+  return {
+    seed: record.run.seed, steps: record.run.steps, walkers: record.run.walkers, ensembles: record.run.ensembles,
+    stopReason: record.run.stop_reason, wallTimeSeconds: record.run.wall_seconds, version: record.tool.version, model: record.model.label,
+    extra: [
+      { label: 'supernovae', value: String(record.data.supernovae) },
+      { label: 'chi-square at best fit', value: record.best_fit.chi_square === null ? 'n/a' : `${record.best_fit.chi_square.toFixed(2)} for ${record.best_fit.degrees_of_freedom} degrees of freedom` },
+      ...(analysis.goodness ? [{ label: 'chi-square per degree of freedom', value: `${analysis.goodness.reducedChiSquare.toFixed(3)} (p-value ${analysis.goodness.pValue.toPrecision(3)})` }] : []),
+      ...termRows(record),
+      { label: 'likelihood evaluations', value: String(record.run.evaluations) },
+    ],
+  };
+}
+
+/** Which outputs of a run folder to write. */
+export interface RunOutputOptions {
+  /** Figures and report.html (default true); false writes the summaries, tables, marginals and contours only. */
+  figures?: boolean;
+}
+
+/**
+ * Writes every output of one run into `outDir` from its folder's chains and
+ * records: summary.json, summary.md, table.tex, marginal and contour files,
+ * figures (SVG and PNG) and report.html. Pure function of the run folder's
+ * files, so `candela report` reproduces what `candela fit` wrote, byte for byte.
+ * Nested runs use their posterior weights everywhere, have no trace figure,
+ * and their report page states that the Markov-chain convergence checks do
+ * not apply, giving ln Z and the Kish effective sample size instead.
+ *
+ * Cost: the analysis (analyzeRun) plus rendering the figures.
+ * @param run the run folder read back.
+ * @param outDir where to write (created when missing).
+ * @returns the analysis.
+ * @throws CandelaError from the analysis or figures; Error from the file system.
+ * @example writeRunOutputs(readRunFolder('out/run'), 'out/run')
+ */
+export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutputOptions = {}): RunAnalysis {
+  const analysis = analyzeRun(run);
+  const settings = figureSettings(run);
+  analysis.warnings.push(...settings.warnings);
+  mkdirSync(join(outDir, 'marginals'), { recursive: true });
+  mkdirSync(join(outDir, 'contours'), { recursive: true });
+  mkdirSync(join(outDir, 'figures'), { recursive: true });
+  writeFileAtomic(join(outDir, RUN_FILES.summaryJson), `${JSON.stringify(summaryDocument(run, analysis), null, 2)}\n`);
+  writeFileAtomic(join(outDir, RUN_FILES.summaryMarkdown), summaryMarkdown(analysis.summary));
+  writeFileAtomic(join(outDir, RUN_FILES.tableLatex), summaryLatex(analysis.summary));
+  for (const marginal of analysis.marginals) writeFileAtomic(join(outDir, 'marginals', `${marginal.parameter}.csv`), marginalDensityCsv(marginal));
+  for (const set of analysis.contours) {
+    const stem = join(outDir, 'contours', `${set.grid.xParameter}__${set.grid.yParameter}`);
+    writeFileAtomic(`${stem}.grid.csv`, densityGridCsv(set.grid));
+    writeFileAtomic(`${stem}.levels.json`, contourThresholdsJson(set));
+    writeFileAtomic(`${stem}.geojson`, contourGeoJson(set));
+    writeFileAtomic(`${stem}.paths.csv`, contourPathsCsv(set));
+  }
+  // After Ctrl-C only the numbers are written: figures and the report page take seconds at survey scale, and
+  // `candela report` draws them later from the same folder, byte for byte.
+  if (options.figures === false) return analysis;
+  const wanted = settings.figures;
+  const figures: ReportFigure[] = [];
+  if (wanted.includes('triangle')) {
+    const parameters = triangleParameters(analysis, settings);
+    const svg = triangleFigure([{ label: run.record.model.label, marginals: analysis.marginals.filter((m) => parameters.includes(m.parameter)), contours: contoursForTriangle(run, analysis, parameters) }], parameters, {
+      width: settings.width, fontFace: settings.fontFace, ...truthOptions(settings, parameters),
+    });
+    figures.push({ title: 'Posterior: 1-D marginals and 68% / 95% credible regions', svg, fileName: 'triangle' });
+  }
+  if (wanted.includes('hubble')) {
+    const svg = hubbleSvg(run, settings);
+    if (svg) figures.push({ title: 'Hubble diagram and residuals at the best fit', svg, fileName: 'hubble' });
+  }
+  // Each probe term with a diagram (ProbeDefinition.diagram) draws its data against the fit, one figure per term.
+  for (const { key, diagram } of readProbeDiagrams(run.dir)) {
+    figures.push({ title: diagram.title, svg: measurementRatioFigure(diagram), fileName: `probe-${key}` });
+  }
+  // Traces show Markov chains; nested samples are not a chain, so nested runs have no trace figure.
+  if (wanted.includes('trace') && analysis.method === 'ensemble') figures.push({ title: 'Traces of a few walkers per ensemble (stuck walkers highlighted); shaded: burn-in', svg: traceSvg(run, analysis, settings), fileName: 'trace' });
+  // Residuals on their own (the Hubble figure's lower panel, full size) and the autocorrelation functions with tau marked.
+  const residuals = wanted.includes('residuals') ? residualsFigureOfRun(run, settings) : null;
+  if (residuals) figures.push({ title: 'Hubble residuals at the best fit, with binned means', svg: residuals, fileName: 'residuals' });
+  const autocorrelation = wanted.includes('autocorrelation') ? autocorrelationFigureOfRun(run, analysis, settings) : null;
+  if (autocorrelation) figures.push({ title: 'Normalized autocorrelation per parameter; markers: integrated autocorrelation time', svg: autocorrelation, fileName: 'autocorrelation' });
+  for (const figure of figures) {
+    writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.svg`), figure.svg);
+    if (settings.png) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.png`), pngOf(figure.svg, settings));
+    if (settings.pdf) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.pdf`), svgToPdf(figure.svg));
+  }
+  writeFileAtomic(join(outDir, RUN_FILES.report), reportHtml({
+    title: `${run.record.title} — ${run.record.model.label}`,
+    facts: reportFacts(run, analysis),
+    summary: {
+      columns: ['Mean ± sd', 'Median, 68.27% errors', '95.45% interval', '68.27% HDI', 'MAP'],
+      rows: analysis.summary.parameters.map((parameter) => {
+        const cells = summaryCells(parameter, 'plain');
+        const note = [...(parameter.derived ? ['derived'] : []), ...(parameter.note ? [parameter.note] : [])].join('; ');
+        return { parameter: parameter.name, cells: [cells.meanSd, cells.median68, cells.interval95, cells.hdi68, cells.map], ...(note ? { note } : {}) };
+      }),
+      ...summaryNote(analysis),
+    },
+    diagnostics: {
+      rows: analysis.sampled.filter((name) => analysis.diagnostics[name]).map((name) => {
+        const d = analysis.diagnostics[name];
+        return { parameter: name, rHat: d.rhat ?? Number.NaN, ess: d.essBulk ?? 0, autocorrelationTimeSteps: d.tau ?? Number.NaN };
+      }),
+      chainLengthSteps: analysis.steps, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess, tauMultiple: RELIABLE_STEPS_PER_TAU,
+      ...(analysis.acceptanceMean !== null ? { acceptanceFraction: analysis.acceptanceMean } : {}),
+      ...(analysis.method === 'nested' ? { notApplicable: `Nested sampling draws independent weighted samples: R-hat and autocorrelation times do not apply. Kish effective sample size of the weights: ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}.` } : {}),
+    },
+    figures,
+    configurationYaml: stringify(run.record.configuration),
+    inputFiles: reportInputFiles(run),
+    warnings: analysis.warnings,
+  }));
+  if (resolve(outDir) === resolve(run.dir)) refreshModelsIndex(run, analysis);
+  return analysis;
+}
+
+/**
+ * After a model of a multi-model configuration is written in place, rewrites
+ * the index page and models table beside the models' folders from every
+ * model finished so far (a model whose folder cannot be analysed yet, e.g. an
+ * interrupted one, is left out until it is).
+ */
+function refreshModelsIndex(run: RunOnDisk, analysis: RunAnalysis): void {
+  const folders = siblingModelFolders(run);
+  if (folders.length < 2) return;
+  const indexDir = dirname(resolve(run.dir));
+  const columns = folders.flatMap((folder) => {
+    if (resolve(folder) === resolve(run.dir)) return [modelColumn(run, analysis, indexDir)];
+    try {
+      const sibling = readRunFolder(folder);
+      return [modelColumn(sibling, analyzeRun(sibling), indexDir)];
+    } catch {
+      return [];
+    }
+  });
+  if (columns.length >= 2) writeModelsIndex(columns, indexDir, run.record.title, run.record.tool.version);
+}
+
+/**
+ * `candela report`: rebuilds the outputs of one run folder in place (or in
+ * `outDir`), or, for several folders, overlays their posteriors in one
+ * triangle figure in `outDir`.
+ * @param runDirs run folders written by `candela fit`.
+ * @param outDir output folder.
+ * @returns one analysis per run.
+ * @throws CandelaError for unreadable run folders.
+ * @example buildRunOutputs(['out/run'], 'out/run')
+ */
+export function buildRunOutputs(runDirs: string[], outDir: string, options: RunOutputOptions = {}): RunAnalysis[] {
+  const runs = runDirs.map(readRunFolder);
+  if (runs.length === 1) return [writeRunOutputs(runs[0], outDir, options)];
+  const analyses = runs.map((run) => analyzeRun(run));
+  const settings = figureSettings(runs[0]);
+  mkdirSync(outDir, { recursive: true });
+  // The union of the runs' physical parameters (cosmology, early universe, probe: the registry's roles), in registry
+  // order, so that supernovae alone, + BAO and + CMB share one figure; a run draws only the panels it has.
+  const physical = (name: string) => ['cosmology', 'early_universe', 'probe'].includes(PARAMETERS[parseParameterName(name)?.base ?? '']?.role ?? '');
+  const union = [...new Set(analyses.flatMap((a) => a.sampled))].sort((a, b) => parameterRank(a) - parameterRank(b));
+  const parameters = union.some(physical) ? union.filter(physical) : union;
+  const svg = triangleFigure(runs.map((run, k) => ({
+    label: run.record.model.label,
+    marginals: analyses[k].marginals.filter((m) => parameters.includes(m.parameter)),
+    contours: contoursForTriangle(run, analyses[k], parameters.filter((name) => analyses[k].sampled.includes(name))),
+  })), parameters, { width: settings.width, fontFace: settings.fontFace });
+  writeFileAtomic(join(outDir, 'overlay_triangle.svg'), svg);
+  if (settings.png) writeFileAtomic(join(outDir, 'overlay_triangle.png'), pngOf(svg, settings));
+  if (settings.pdf) writeFileAtomic(join(outDir, 'overlay_triangle.pdf'), svgToPdf(svg));
+  writeFileAtomic(join(outDir, 'overlay_summary.md'), runs.map((run, k) => `## ${run.record.model.label}\n\n${summaryMarkdown(analyses[k].summary)}`).join('\n'));
+  writeModelsIndex(runs.map((run, k) => modelColumn(run, analyses[k], resolve(outDir))), outDir, runs[0].record.title, runs[0].record.tool.version);
+  return analyses;
+}
+
+/** One report row per likelihood term when the posterior has more than one: its chi-square and degrees of freedom. */
+function termRows(record: RunOnDisk['record']): Array<{ label: string; value: string }> {
+  const terms = record.best_fit.terms ?? [];
+  if (terms.length < 2) return [];
+  return terms.map((term) => ({
+    label: `chi-square of ${term.name}`,
+    value: term.chi_square === null ? 'n/a' : `${term.chi_square.toFixed(2)} for ${term.n_data} data points, ${term.degrees_of_freedom} degrees of freedom`,
+  }));
+}
+
+/** The sentence under the report's parameter table: weighted samples, one-sided limits. */
+function summaryNote(analysis: RunAnalysis): { note?: string } {
+  const sentences = [
+    ...(analysis.method === 'nested' ? [`Weighted nested-sampling samples (Kish effective sample size ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}).`] : []),
+    ...(analysis.summary.parameters.some((p) => p.oneSidedLimit) ? ['A marginal cut by a hard prior edge is quoted as a one-sided 95% limit instead of mean ± sd (see the warnings).'] : []),
+  ];
+  return sentences.length ? { note: sentences.join(' ') } : {};
+}

@@ -1,0 +1,111 @@
+import { writeProbeDiagrams } from './probeDiagramFiles.js';
+import { join } from 'node:path';
+import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, cosmologyParametersFromValues, createCosmology } from '../../cosmology/index.js';
+import { createRandomStream, deriveSeed, quantileOfSortedDraws } from '../../math/index.js';
+import { writeFileAtomic } from '../../output/index.js';
+import type { HubbleDiagram } from '../../likelihood/index.js';
+import type { BuiltModel } from '../run/buildModel.js';
+import type { EnsembleDraws } from '../../output/index.js';
+import { arrayExtent } from '../../math/index.js';
+import { RUN_FILES } from '../../output/index.js';
+
+/** Posterior draws used for the model band of the Hubble diagram. */
+const BAND_DRAWS = 200;
+/** Points of the model curve, log-spaced in redshift. */
+const CURVE_POINTS = 120;
+
+function csvNumber(value: number): string {
+  return Number.isFinite(value) ? String(value) : '';
+}
+
+/**
+ * The Hubble-diagram table as CSV: id, sample, z, mu_obs, sigma_mu, mu_model,
+ * residual, calibrator (1 for supernovae with an external distance), in mag.
+ */
+export function hubbleDiagramCsv(diagram: HubbleDiagram, samples: readonly string[]): string {
+  const lines = ['id,sample,z,mu_obs,sigma_mu,mu_model,residual,calibrator'];
+  for (let i = 0; i < diagram.ids.length; i++) {
+    lines.push([
+      diagram.ids[i], samples[i], csvNumber(diagram.redshift[i]), csvNumber(diagram.distanceModulusMag[i]),
+      csvNumber(diagram.distanceModulusErrorMag[i]), csvNumber(diagram.modelDistanceModulusMag[i]), csvNumber(diagram.residualMag[i]),
+      diagram.isCalibrator[i] ? '1' : '0',
+    ].join(','));
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+/**
+ * Writes the two Hubble-diagram files of a run:
+ * - hubble_diagram.csv: per supernova at the best-fit sample (id, sample, z,
+ *   mu_obs, sigma_mu, mu_model, residual, calibrator), with mu_obs = standardized
+ *   magnitude minus the best-fit absolute magnitude;
+ * - hubble_model.csv: on a log-spaced redshift grid, the best-fit model
+ *   distance modulus and the median and 68% band over posterior draws, each
+ *   draw shifted by its own absolute magnitude minus the best fit's, so that
+ *   curve and data share one frame;
+ * and, from the same best fit and a seeded set of draws, each probe term's
+ * data-versus-model numbers (probeDiagramFiles.ts). A run of probes alone
+ * writes only those.
+ */
+export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: EnsembleDraws[], burnInSteps: number, seed: string): void {
+  const { posterior, supernovae } = model;
+  const dimension = posterior.dimension;
+  const rows: Array<{ ensemble: number; row: number }> = [];
+  let best = { ensemble: 0, row: burnInSteps * ensembles[0].walkers, logProb: -Infinity };
+  ensembles.forEach((draws, k) => {
+    for (let row = burnInSteps * draws.walkers; row < draws.steps * draws.walkers; row++) {
+      rows.push({ ensemble: k, row });
+      if (draws.logProb[row] > best.logProb) best = { ensemble: k, row, logProb: draws.logProb[row] };
+    }
+  });
+  const pointOf = (ensemble: number, row: number) => ensembles[ensemble].positions.slice(row * dimension, (row + 1) * dimension);
+  const bestValues = posterior.values(pointOf(best.ensemble, best.row));
+  if (model.probes.length > 0) {
+    const probeRandom = createRandomStream(deriveSeed(seed, 'probe-band'));
+    const probeDraws = Array.from({ length: Math.min(BAND_DRAWS, rows.length) }, () => {
+      const pick = rows[probeRandom.integer(rows.length)];
+      return posterior.values(pointOf(pick.ensemble, pick.row));
+    });
+    writeProbeDiagrams(runDir, model, bestValues, probeDraws);
+  }
+  if (!supernovae) return; // a run of probes alone has no Hubble diagram
+  const diagram = supernovae.hubbleDiagram(bestValues);
+  writeFileAtomic(join(runDir, RUN_FILES.hubbleData), hubbleDiagramCsv(diagram, model.samples));
+
+  const [zLow, zHigh] = arrayExtent(diagram.redshift);
+  const zMin = Math.max(1e-3, zLow * 0.9);
+  const zMax = zHigh * 1.05;
+  const grid = Float64Array.from({ length: CURVE_POINTS }, (_, i) => zMin * (zMax / zMin) ** (i / (CURVE_POINTS - 1)));
+  const family = {
+    darkEnergy: model.cosmologyModel.darkEnergy, flat: model.cosmologyModel.flat,
+    cmbTemperatureK: model.cosmologyModel.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES,
+  };
+  const curve = (values: Record<string, number>, shift: number, out: Float64Array): boolean => {
+    // The curve uses the H0 of the Hubble diagram (the likelihood's), whatever h0 the values hold.
+    const outcome = createCosmology(cosmologyParametersFromValues(family, { ...values, h0: diagram.h0KmPerSPerMpc }, diagram.h0KmPerSPerMpc), { maxRedshift: zMax });
+    if (!outcome.ok) return false;
+    outcome.cosmology.distanceModuliMag(grid, undefined, out);
+    for (let i = 0; i < out.length; i++) out[i] += shift;
+    return true;
+  };
+  const bestCurve = new Float64Array(CURVE_POINTS);
+  curve({ ...bestValues }, 0, bestCurve);
+  const random = createRandomStream(deriveSeed(seed, 'hubble-band'));
+  const draws = Math.min(BAND_DRAWS, rows.length);
+  const curves: Float64Array[] = [];
+  for (let d = 0; d < draws; d++) {
+    const pick = rows[random.integer(rows.length)];
+    const values = { ...posterior.values(pointOf(pick.ensemble, pick.row)) };
+    const absMag = values.abs_mag ?? supernovae.bestFitOffset(values);
+    const out = new Float64Array(CURVE_POINTS);
+    if (Number.isFinite(absMag) && curve(values, absMag - diagram.absoluteMagnitudeMag, out)) curves.push(out);
+  }
+  const column = new Float64Array(curves.length);
+  const modelLines = ['z,mu_best,mu_median,mu_low68,mu_high68'];
+  for (let i = 0; i < CURVE_POINTS; i++) {
+    curves.forEach((c, k) => { column[k] = c[i]; });
+    column.sort();
+    modelLines.push([grid[i], bestCurve[i], quantileOfSortedDraws(column, 0.5), quantileOfSortedDraws(column, 0.158655), quantileOfSortedDraws(column, 0.841345)].map(csvNumber).join(','));
+  }
+  writeFileAtomic(join(runDir, RUN_FILES.hubbleModel), `${modelLines.join('\n')}\n`);
+}
