@@ -134,3 +134,15 @@ export { readCheckpoint } from './run/checkpointFile.js';
 export type { ChainRecordShape } from './run/checkpointFile.js';
 export { visitChainRecord } from './run/checkpointFile.js';
 
+// Blinding: secret offsets, the sealed key, and the marks every page of a blinded run carries.
+export { drawBlindingOffsets } from './blinding/drawBlindingOffsets.js';
+export { MINIMUM_OFFSET_FRACTION } from './blinding/drawBlindingOffsets.js';
+export { blindColumns } from './blinding/blindColumns.js';
+export { blindValues } from './blinding/blindColumns.js';
+export { sealBlindingKey } from './blinding/sealedKey.js';
+export { unsealBlindingKey } from './blinding/sealedKey.js';
+export { blindingRunIdentity } from './blinding/sealedKey.js';
+export type { BlindingKey } from './blinding/sealedKey.js';
+export { BLINDED_MARK } from './blinding/blindingNotice.js';
+export { blindingNotice } from './blinding/blindingNotice.js';
+export { markSvgBlinded } from './blinding/markSvgBlinded.js';
