@@ -87,6 +87,8 @@ export { DEFAULT_SURVEY_SCATTER } from './surveyDefaults.js';
 export { DEFAULT_SURVEY_TRUTH } from './surveyDefaults.js';
 export { DEFAULT_SURVEY_SAMPLE } from './surveyDefaults.js';
 export { DEFAULT_SURVEY_OUTPUT } from './surveyDefaults.js';
+export { DEFAULT_ANALYSIS_SYSTEMATICS } from './surveyDefaults.js';
+export type { SurveyAnalysisSystematics } from './surveyDescription.js';
 export type { SystematicModeSource } from './candelaConfig.js';
 export { DEFAULT_SYSTEMATIC_MODES } from './defaults.js';
 export { SYSTEMATIC_MODE_KEYS } from './readSystematicModeSources.js';

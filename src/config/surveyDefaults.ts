@@ -44,4 +44,12 @@ export const DEFAULT_SURVEY_OUTPUT = {
   modesFile: 'systematic_modes.csv',
   truth: 'truth.json',
   systematicsForm: 'matrix',
+  namedModes: null,
+} as const;
+
+/** Systematics of the analysis: none by default; a coherent velocity moves z < 0.1 (the local volume, common practice). */
+export const DEFAULT_ANALYSIS_SYSTEMATICS = {
+  hostMassSplitDex: 0,
+  coherentVelocityKmPerS: 0,
+  coherentVelocityMaxRedshift: 0.1,
 } as const;

@@ -75,6 +75,22 @@ export interface SurveyOutput {
    * (no size limit).
    */
   systematicsForm: 'matrix' | 'modes';
+  /**
+   * A CSV of every systematic as a named mode (header line of names, one
+   * column per mode: the drawn calibration and drift modes, then the analysis
+   * systematics), for the systematic budget; null: not written.
+   */
+  namedModes: string | null;
+}
+
+/** Systematics of the analysis, written as modes but not drawn into the data (their truth is zero). */
+export interface SurveyAnalysisSystematics {
+  /** Standard deviation of the host-mass split, dex (0 = none). */
+  hostMassSplitDex: number;
+  /** Standard deviation of one coherent line-of-sight velocity of the local volume, km/s (0 = none). */
+  coherentVelocityKmPerS: number;
+  /** That velocity moves supernovae below this redshift only. */
+  coherentVelocityMaxRedshift: number;
 }
 
 /** The whole validated survey description. */
@@ -89,6 +105,7 @@ export interface SurveyDescription {
   peculiarVelocityKmPerS: number;
   /** Standard deviation of the magnitude drift coefficient (drift = eps z), mag per unit redshift. */
   redshiftDriftMag: number;
+  analysisSystematics: SurveyAnalysisSystematics;
   samples: SurveySample[];
   output: SurveyOutput;
   /** The survey file as given to the loader. */

@@ -10,17 +10,18 @@ import type { Located } from './configReader.js';
 import { DEFAULT_SEED } from './defaults.js';
 import { LABEL_PATTERN } from './readLabel.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
-import type { SurveyDescription, SurveyOutput } from './surveyDescription.js';
-import { DEFAULT_SURVEY_OUTPUT, DEFAULT_SURVEY_SCATTER, DEFAULT_SURVEY_TITLE } from './surveyDefaults.js';
+import type { SurveyAnalysisSystematics, SurveyDescription, SurveyOutput } from './surveyDescription.js';
+import { DEFAULT_ANALYSIS_SYSTEMATICS, DEFAULT_SURVEY_OUTPUT, DEFAULT_SURVEY_SCATTER, DEFAULT_SURVEY_TITLE } from './surveyDefaults.js';
 import { surveyMissingKey } from './surveyMissingKey.js';
 import { readSurveySamples } from './surveySampleReader.js';
 import { readSurveyTruth } from './surveyTruthReader.js';
 
 /** The top-level keys of a survey description, in documentation order. */
 export const SURVEY_TOP_LEVEL_KEYS = [
-  'title', 'seed', 'truth', 'lensing_per_redshift', 'peculiar_velocity_km_s', 'redshift_drift_mag', 'samples', 'output',
+  'title', 'seed', 'truth', 'lensing_per_redshift', 'peculiar_velocity_km_s', 'redshift_drift_mag', 'analysis_systematics', 'samples', 'output',
 ] as const;
-const OUTPUT_KEYS = ['dir', 'table', 'covariance', 'truth', 'systematics_form'] as const;
+const OUTPUT_KEYS = ['dir', 'table', 'covariance', 'truth', 'systematics_form', 'named_modes'] as const;
+const ANALYSIS_KEYS = ['host_mass_split_dex', 'coherent_velocity_km_s', 'coherent_velocity_max_redshift'] as const;
 /** Values of output.systematics_form. */
 const SYSTEMATICS_FORMS = ['matrix', 'modes'] as const;
 
@@ -67,6 +68,7 @@ export function surveyFromText(text: string, fileName: string): Checked<SurveyDe
     peculiarVelocityKmPerS: reader.number(get('peculiar_velocity_km_s'), { min: 0, max: 3000, fix: 'give the velocity dispersion in km/s, e.g. 250' })
       ?? DEFAULT_SURVEY_SCATTER.peculiarVelocityKmPerS,
     redshiftDriftMag: reader.number(get('redshift_drift_mag'), { min: 0 }) ?? DEFAULT_SURVEY_SCATTER.redshiftDriftMag,
+    analysisSystematics: readAnalysisSystematics(reader, get('analysis_systematics')),
     output: readOutput(reader, get('output')),
     sourceFile: fileName,
   };
@@ -100,11 +102,11 @@ function readOutput(reader: ConfigReader, at: Located | undefined): SurveyOutput
   const fields = reader.mapping(at, OUTPUT_KEYS);
   const systematicsForm = reader.choice(fields?.get('systematics_form'), SYSTEMATICS_FORMS) ?? DEFAULT_SURVEY_OUTPUT.systematicsForm;
   const defaults = { ...DEFAULT_SURVEY_OUTPUT, covariance: systematicsForm === 'modes' ? DEFAULT_SURVEY_OUTPUT.modesFile : DEFAULT_SURVEY_OUTPUT.covariance };
-  const name = (key: 'table' | 'covariance' | 'truth'): string => {
-    const value = reader.text(fields?.get(key));
+  const name = <K extends 'table' | 'covariance' | 'truth' | 'namedModes'>(key: K, yamlKey: string = key): (typeof defaults)[K] | string => {
+    const value = reader.text(fields?.get(yamlKey));
     if (typeof value !== 'string') return defaults[key];
     if (!LABEL_PATTERN.test(value)) {
-      reader.report(fields!.get(key)!, 'config.bad_file_name', `"${value}" is not a plain file name`, {
+      reader.report(fields!.get(yamlKey)!, 'config.bad_file_name', `"${value}" is not a plain file name`, {
         expected: 'a file name of letters, digits, "_", "." or "-" (the folder goes in output.dir)', found: `"${value}"`,
         fix: 'put the folder in output.dir and only the file name here',
       });
@@ -114,13 +116,25 @@ function readOutput(reader: ConfigReader, at: Located | undefined): SurveyOutput
   };
   const output: SurveyOutput = {
     dir: resolveConfigPath(reader.fileName, reader.text(fields?.get('dir')) ?? DEFAULT_SURVEY_OUTPUT.dir),
-    table: name('table'), covariance: name('covariance'), truth: name('truth'), systematicsForm,
+    table: name('table'), covariance: name('covariance'), truth: name('truth'), systematicsForm, namedModes: name('namedModes', 'named_modes'),
   };
-  const names = [output.table, output.covariance, output.truth];
+  const names = [output.table, output.covariance, output.truth, ...(output.namedModes === null ? [] : [output.namedModes])];
   if (new Set(names).size < names.length) {
     reader.report(at ?? { node: null, path: 'output', anchor: null }, 'config.duplicate_file_name', 'two output files have the same name', {
-      expected: 'three different file names', found: names.join(', '), fix: 'give the table, the covariance and the truth file different names',
+      expected: 'different file names', found: names.join(', '), fix: 'give the table, the covariance, the truth and the named-modes file different names',
     });
   }
   return output;
+}
+
+/** `analysis_systematics`: standard deviations of the host-mass split (dex) and of a coherent velocity (km/s), and its redshift limit. */
+function readAnalysisSystematics(reader: ConfigReader, at: Located | undefined): SurveyAnalysisSystematics {
+  const fields = reader.mapping(at, ANALYSIS_KEYS);
+  return {
+    hostMassSplitDex: reader.number(fields?.get('host_mass_split_dex'), { min: 0, max: 2 }) ?? DEFAULT_ANALYSIS_SYSTEMATICS.hostMassSplitDex,
+    coherentVelocityKmPerS: reader.number(fields?.get('coherent_velocity_km_s'), { min: 0, max: 3000, fix: 'give the velocity in km/s, e.g. 100' })
+      ?? DEFAULT_ANALYSIS_SYSTEMATICS.coherentVelocityKmPerS,
+    coherentVelocityMaxRedshift: reader.number(fields?.get('coherent_velocity_max_redshift'), { min: 0, exclusiveMin: true, max: 10 })
+      ?? DEFAULT_ANALYSIS_SYSTEMATICS.coherentVelocityMaxRedshift,
+  };
 }

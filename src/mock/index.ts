@@ -21,3 +21,9 @@ export { systematicModes } from './systematicModes.js';
 export { systematicModeNames } from './systematicModes.js';
 export { REDSHIFT_DRIFT_MODE } from './systematicModes.js';
 export { CALIBRATION_MODE_PREFIX } from './systematicModes.js';
+// systematics of the analysis (written as modes, not drawn into the data)
+export { analysisSystematicModes } from './analysisSystematicModes.js';
+export { HOST_MASS_SPLIT_MODE } from './analysisSystematicModes.js';
+export { COHERENT_VELOCITY_MODE } from './analysisSystematicModes.js';
+export type { AnalysisSystematics } from './analysisSystematicModes.js';
+export type { AnalysisModeInput } from './analysisSystematicModes.js';
