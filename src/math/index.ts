@@ -54,3 +54,14 @@ export { closestWord } from './text/closestWord.js';
 // Extent of an array; resampling weighted (nested) draws to equal weights.
 export { arrayExtent } from './arrayExtent.js';
 export { resampleRowsByWeight } from './nestedResampleRows.js';
+
+// Importance reweighting of one set of draws, and the systematic budget built on it.
+export { importanceWeights } from './reweighting/importanceWeights.js';
+export type { ImportanceWeights } from './reweighting/importanceWeights.js';
+export { reweightedShift } from './reweighting/reweightedShift.js';
+export type { ReweightedShift } from './reweighting/reweightedShift.js';
+export { quadratureDifference } from './reweighting/quadratureDifference.js';
+export { gaussianLinearResponse } from './reweighting/gaussianLinearResponse.js';
+export type { LinearResponse } from './reweighting/gaussianLinearResponse.js';
+export { systematicBudget } from './reweighting/systematicBudget.js';
+export type { SystematicBudget, SystematicBudgetEntry, SystematicBudgetInput, SystematicVariantLikelihoods, BudgetVariant, VariantParameterEstimate } from './reweighting/systematicBudget.js';

@@ -146,3 +146,11 @@ export type { BlindingKey } from './blinding/sealedKey.js';
 export { BLINDED_MARK } from './blinding/blindingNotice.js';
 export { blindingNotice } from './blinding/blindingNotice.js';
 export { markSvgBlinded } from './blinding/markSvgBlinded.js';
+
+// Systematic budget: tables (Markdown, LaTeX, JSON) and the bar figure.
+export { budgetMarkdown } from './budget/budgetMarkdown.js';
+export { budgetLatex } from './budget/budgetLatex.js';
+export { budgetJson } from './budget/budgetJson.js';
+export { budgetFigure } from './budget/budgetFigure.js';
+export type { BudgetFigureOptions } from './budget/budgetFigure.js';
+export type { BudgetTable, BudgetTableRow } from './budget/budgetTable.js';
