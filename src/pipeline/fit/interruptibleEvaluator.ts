@@ -21,7 +21,8 @@ export function isRunInterrupted(error: unknown): error is RunInterrupted {
   return error instanceof Error && error.name === 'RunInterrupted';
 }
 
-const turnOfEventLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
+/** Lets the event loop turn once (signal handlers, timers, I/O callbacks run), then resolves. Cost: microseconds. */
+export const turnOfEventLoop = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
 /**
  * Wraps an evaluator so that a long run lets the event loop turn at least

@@ -2,7 +2,7 @@ import { join } from 'node:path';
 import type { CandelaConfig } from '../../config/index.js';
 import type { Issue } from '../../errors.js';
 import { deriveSeed } from '../../math/index.js';
-import { DEFAULT_ELLIPSOID_ENLARGEMENT, runNestedSampling, type NestedResult } from '../../sampler/index.js';
+import { DEFAULT_ELLIPSOID_ENLARGEMENT, type NestedResult } from '../../sampler/index.js';
 import { writeFileAtomic } from '../../output/index.js';
 import type { BuiltModel } from '../run/buildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
@@ -11,7 +11,9 @@ import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import type { LoadedSupernovae } from '../run/loadSupernovae.js';
 import { resampleRowsByWeight } from '../../math/index.js';
 import { createNestedRunRecord, type NestedBestSample } from '../run/nestedRunRecord.js';
-import type { FitOutcome, FitRequest } from './runFit.js';
+import { FitInterrupted, type FitOutcome, type FitRequest } from './runFit.js';
+import { isRunInterrupted } from './interruptibleEvaluator.js';
+import { runNestedInSlices } from './runNestedInSlices.js';
 import { RUN_FILES } from '../../output/index.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
 
@@ -81,8 +83,11 @@ function equallyWeighted(draws: EnsembleDraws, weights: Float64Array, bestRow: n
  * `evidence`; the resolved configuration; the Hubble-diagram files from an
  * equally weighted resample; then every output (buildRunOutputs).
  *
- * Runs in the calling thread and cannot be interrupted part-way; there is no
- * checkpoint, so `--resume` does not apply to nested runs.
+ * Runs in the calling thread in slices of about EVENT_LOOP_SLICE_MS
+ * (runNestedInSlices), so a signal (`request.signal`) stops it within about
+ * a slice; there is no checkpoint, so an interrupted nested run writes
+ * nothing and cannot be resumed (it rejects with FitInterrupted saying so),
+ * and `--resume` does not apply to nested runs.
  * Cost: the nested run, about N (H + ln(1 / max_unexplored_ln_z)) iterations of a few
  * likelihood calls each, then one posterior evaluation per stored sample.
  * @param config the validated configuration.
@@ -90,9 +95,10 @@ function equallyWeighted(draws: EnsembleDraws, weights: Float64Array, bestRow: n
  * @param model the built model.
  * @param data the loaded supernovae.
  * @param runDir the prepared run folder.
- * @param request the fit request (only `onLine` is used).
+ * @param request the fit request (`onLine` and `signal` are used).
  * @returns the run's outcome, as for an ensemble run.
- * @throws CandelaError from the nested sampler (bad options, a NaN likelihood, zero evidence, a stalled replacement) or from writing outputs.
+ * @throws CandelaError from the nested sampler (bad options, a NaN likelihood, zero evidence, a stalled replacement) or from writing outputs;
+ *   FitInterrupted when the signal came during the sampling (nothing written).
  * @example await fitNestedModel(config, 0, model, data, 'out/run', { configPath: 'run.yaml' })
  */
 export async function fitNestedModel(config: CandelaConfig, index: number, model: BuiltModel, data: LoadedSupernovae, runDir: string, request: FitRequest): Promise<FitOutcome> {
@@ -103,10 +109,19 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   say(`model ${model.label}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; nested sampling with ${settings.livePoints} live points, until at most ${settings.maxUnexploredLnZ} of ln Z is unexplored`);
   for (const line of [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)]) say(`  ${line}`);
   const posterior = model.posterior;
-  const result = runNestedSampling(
-    { dimension: posterior.dimension, priorTransform: posterior.priorTransform, logLikelihood: posterior.logLikelihood },
-    { livePoints: settings.livePoints, maxUnexploredLnZ: settings.maxUnexploredLnZ, maxIterations: settings.maxIterations, seed, enlargement: DEFAULT_ELLIPSOID_ENLARGEMENT },
-  );
+  let result: NestedResult;
+  try {
+    result = await runNestedInSlices(
+      { dimension: posterior.dimension, priorTransform: posterior.priorTransform, logLikelihood: posterior.logLikelihood },
+      { livePoints: settings.livePoints, maxUnexploredLnZ: settings.maxUnexploredLnZ, maxIterations: settings.maxIterations, seed, enlargement: DEFAULT_ELLIPSOID_ENLARGEMENT },
+      request.signal,
+    );
+  } catch (error) {
+    if (!isRunInterrupted(error)) throw error;
+    // Nothing has been written to the run folder yet: no file can pass for a finished run.
+    say(`model ${model.label}: nested sampling stopped on the signal after ${((Date.now() - started) / 1000).toFixed(1)} s`);
+    throw new FitInterrupted(`interrupted during the nested sampling of ${model.label}: nested sampling keeps no checkpoint and cannot resume, so nothing of it was written to ${runDir}; run the same command again (without --resume) to start it over`, []);
+  }
   const weights = Float64Array.from(result.logWeights, Math.exp);
   const draws = storedDraws(model, result);
   const best = bestSample(draws, weights);
