@@ -11,7 +11,9 @@ export function registerReportCommand(program: Command): void {
     .addHelpText('after', '\nExamples:\n  candela report out/demo\n  candela report out/models/flat_lcdm out/models/flat_w0wa --out out/models/overlay\n')
     .action((runDirs: string[], options: { out?: string }) => {
       const outDir = options.out ?? (runDirs.length === 1 ? runDirs[0] : `${runDirs[0]}-overlay`);
-      buildRunOutputs(runDirs, outDir);
+      const analyses = buildRunOutputs(runDirs, outDir);
+      // A blinded run stays blinded here (only candela unblind shows the truth): say so.
+      for (const warning of analyses.flatMap((analysis) => analysis.warnings).filter((w) => w.code === 'blinded')) process.stdout.write(`${warning.message}\n`);
       process.stdout.write(`wrote the outputs of ${runDirs.join(', ')} into ${outDir}\n`);
     });
 }

@@ -10,6 +10,8 @@ import { massStepConvention } from '../../output/index.js';
 import { detectPriorEdges } from '../../output/index.js';
 import { arrayExtent } from '../../math/index.js';
 import { samplerMethodOf, type RunOnDisk } from '../run/runFiles.js';
+import { blindedParametersOf } from '../blinding/runBlinding.js';
+import { blindingNotice } from '../../output/index.js';
 
 /** Sampled parameters that describe the expansion history (the default contour pairs). */
 export const COSMOLOGICAL_PARAMETERS = ['omega_m', 'omega_de', 'w0', 'wa', 'h0'];
@@ -185,7 +187,10 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
   const weightOption = keptWeights ? { weights: keptWeights } : {};
   const keptColumn = (name: string) => Float64Array.from(kept, (r) => chains.columns[name][r]);
 
+  const blinded = blindedParametersOf(record);
   const warnings: RunWarning[] = [
+    // A blinded run says so first, wherever its warnings are shown (terminal, summary.json, report.html).
+    ...(blinded.length ? [runWarning('blinded', null, blindingNotice(blinded))] : []),
     ...(record.data.warnings ?? []).map((message) => runWarning('data', null, message)),
     ...((record.likelihood as { warnings?: string[] }).warnings ?? []).map((message) => runWarning('likelihood_approximation', null, message)),
   ];

@@ -15,6 +15,7 @@ import { readRunFolder, type RunOnDisk } from '../run/runFiles.js';
 import { readProbeDiagrams } from './probeDiagramFiles.js';
 import { RUN_FILES } from '../../output/index.js';
 import { summaryDocument } from './summaryDocument.js';
+import { blindingMarks } from '../blinding/blindingMarks.js';
 import { nestedReportFacts } from './nestedReportFacts.js';
 import { binResiduals } from '../../output/index.js';
 import { residualsFigureOfRun } from './residualsFigureOfRun.js';
@@ -157,9 +158,10 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutp
   mkdirSync(join(outDir, 'marginals'), { recursive: true });
   mkdirSync(join(outDir, 'contours'), { recursive: true });
   mkdirSync(join(outDir, 'figures'), { recursive: true });
-  writeFileAtomic(join(outDir, RUN_FILES.summaryJson), `${JSON.stringify(summaryDocument(run, analysis), null, 2)}\n`);
-  writeFileAtomic(join(outDir, RUN_FILES.summaryMarkdown), summaryMarkdown(analysis.summary));
-  writeFileAtomic(join(outDir, RUN_FILES.tableLatex), summaryLatex(analysis.summary));
+  const marks = blindingMarks(run.record);
+  writeFileAtomic(join(outDir, RUN_FILES.summaryJson), `${JSON.stringify(marks.summaryJson(summaryDocument(run, analysis)), null, 2)}\n`);
+  writeFileAtomic(join(outDir, RUN_FILES.summaryMarkdown), marks.markdown(summaryMarkdown(analysis.summary)));
+  writeFileAtomic(join(outDir, RUN_FILES.tableLatex), marks.latex(summaryLatex(analysis.summary)));
   for (const marginal of analysis.marginals) writeFileAtomic(join(outDir, 'marginals', `${marginal.parameter}.csv`), marginalDensityCsv(marginal));
   for (const set of analysis.contours) {
     const stem = join(outDir, 'contours', `${set.grid.xParameter}__${set.grid.yParameter}`);
@@ -196,12 +198,13 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutp
   const autocorrelation = wanted.includes('autocorrelation') ? autocorrelationFigureOfRun(run, analysis, settings) : null;
   if (autocorrelation) figures.push({ title: 'Normalized autocorrelation per parameter; markers: integrated autocorrelation time', svg: autocorrelation, fileName: 'autocorrelation' });
   for (const figure of figures) {
+    figure.svg = marks.svg(figure.svg);
     writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.svg`), figure.svg);
     if (settings.png) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.png`), pngOf(figure.svg, settings));
     if (settings.pdf) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.pdf`), svgToPdf(figure.svg));
   }
   writeFileAtomic(join(outDir, RUN_FILES.report), reportHtml({
-    title: `${run.record.title} — ${run.record.model.label}`,
+    title: marks.title(`${run.record.title} — ${run.record.model.label}`),
     facts: reportFacts(run, analysis),
     summary: {
       columns: ['Mean ± sd', 'Median, 68.27% errors', '95.45% interval', '68.27% HDI', 'MAP'],

@@ -45,9 +45,10 @@ export function hubbleDiagramCsv(diagram: HubbleDiagram, samples: readonly strin
  *   curve and data share one frame;
  * and, from the same best fit and a seeded set of draws, each probe term's
  * data-versus-model numbers (probeDiagramFiles.ts). A run of probes alone
- * writes only those.
+ * writes only those. `blinded`: only hubble_diagram.csv, with mu_obs and
+ * mu_model left empty (docs/blinding.md).
  */
-export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: EnsembleDraws[], burnInSteps: number, seed: string): void {
+export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: EnsembleDraws[], burnInSteps: number, seed: string, options: { blinded?: boolean } = {}): void {
   const { posterior, supernovae } = model;
   const dimension = posterior.dimension;
   const rows: Array<{ ensemble: number; row: number }> = [];
@@ -60,7 +61,7 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: E
   });
   const pointOf = (ensemble: number, row: number) => ensembles[ensemble].positions.slice(row * dimension, (row + 1) * dimension);
   const bestValues = posterior.values(pointOf(best.ensemble, best.row));
-  if (model.probes.length > 0) {
+  if (model.probes.length > 0 && !options.blinded) {
     const probeRandom = createRandomStream(deriveSeed(seed, 'probe-band'));
     const probeDraws = Array.from({ length: Math.min(BAND_DRAWS, rows.length) }, () => {
       const pick = rows[probeRandom.integer(rows.length)];
@@ -70,7 +71,10 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: E
   }
   if (!supernovae) return; // a run of probes alone has no Hubble diagram
   const diagram = supernovae.hubbleDiagram(bestValues);
-  writeFileAtomic(join(runDir, RUN_FILES.hubbleData), hubbleDiagramCsv(diagram, model.samples));
+  // Blinded (docs/blinding.md): the residuals stay; mu_obs and mu_model (whose difference they are) and the model curve would show the true best fit.
+  const hidden = new Float64Array(diagram.ids.length).fill(Number.NaN);
+  writeFileAtomic(join(runDir, RUN_FILES.hubbleData), hubbleDiagramCsv(options.blinded ? { ...diagram, distanceModulusMag: hidden, modelDistanceModulusMag: hidden } : diagram, model.samples));
+  if (options.blinded) return;
 
   const [zLow, zHigh] = arrayExtent(diagram.redshift);
   const zMin = Math.max(1e-3, zLow * 0.9);

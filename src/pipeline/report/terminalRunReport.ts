@@ -1,5 +1,6 @@
-import { summaryTerminal, terminalMarginals } from '../../output/index.js';
+import { blindingNotice, summaryTerminal, terminalMarginals } from '../../output/index.js';
 import { analyzeRun } from './analyzeRun.js';
+import { blindedParametersOf } from '../blinding/runBlinding.js';
 import { readRunFolder } from '../run/runFiles.js';
 
 /** Terminal width the after-fit display is laid out for (columns). */
@@ -13,7 +14,9 @@ const TERMINAL_COLUMNS = 80;
 export function terminalRunReport(runDir: string): string {
   const run = readRunFolder(runDir);
   const analysis = analyzeRun(run);
+  const blinded = blindedParametersOf(run.record);
   const lines = [
+    ...(blinded.length ? [`== ${blindingNotice(blinded)}`] : []),
     `== ${run.record.model.label}: ${run.record.run.stop_reason} after ${run.record.run.steps} steps (burn-in ${analysis.burnInSteps}), ${analysis.keptSamples} samples kept`,
     summaryTerminal(analysis.summary, { width: TERMINAL_COLUMNS, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess }),
     terminalMarginals(analysis.marginals, { width: TERMINAL_COLUMNS - 20, height: 4 }),

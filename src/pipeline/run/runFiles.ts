@@ -7,13 +7,15 @@ import type { ChainsSelection } from '../../output/index.js';
 import { RUN_FILES } from '../../output/index.js';
 import type { NestedRunFacts } from './nestedRunRecord.js';
 import type { RunRecord } from './runRecord.js';
+import { blindedParametersOf, type BlindableRecord } from '../blinding/runBlinding.js';
+import { blindedChainTable, blindedRecordView } from '../blinding/blindedRunView.js';
 
 /**
  * run.json as read back: the ensemble sampler's record, or a nested-sampling
  * record, which adds `sampler` (method and settings) and `evidence`. Records
  * without `sampler` come from the ensemble sampler.
  */
-export type StoredRunRecord = RunRecord & Partial<NestedRunFacts> & {
+export type StoredRunRecord = RunRecord & Partial<NestedRunFacts> & BlindableRecord & {
   /** The steps chains.csv holds (absent: every step, as runs before this field wrote). */
   chains_csv?: ChainsSelection;
 };
@@ -60,8 +62,12 @@ function readCsvColumns(path: string): Record<string, string[]> | null {
  * Reads run.json, chains.csv and the Hubble-diagram files of a run folder
  * (ensemble or nested-sampling run).
  * @param dir the run folder.
+ * A blinded run (run.json `blinding.state: blinded`) is read as its outputs
+ * show it: blinded chains from the chain record, no derived quantity, no
+ * Hubble model curve (docs/blinding.md), so no command unblinds it silently.
  * @returns the record, the chains (with weights for nested runs) and the Hubble files (null when absent).
- * @throws CandelaError `run.no_record` without a readable run.json; the errors of readChainsFile and checkChainLayout.
+ * @throws CandelaError `run.no_record` without a readable run.json; the errors of readChainsFile and checkChainLayout;
+ *   for a blinded run those of blindedChainTable (a missing or damaged key).
  * @example readRunFolder('out/pantheon/flat_lcdm').record.model.label // 'flat_lcdm'
  */
 export function readRunFolder(dir: string): RunOnDisk {
@@ -71,11 +77,13 @@ export function readRunFolder(dir: string): RunOnDisk {
   } catch {
     throw new CandelaError({ code: 'run.no_record', file: join(dir, RUN_FILES.run), message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
   }
-  const chains = readRunChains(dir, record);
+  // A blinded run is shown blinded to every command (docs/blinding.md): chains from the chain record plus the offsets.
+  const blinded = blindedParametersOf(record).length > 0;
+  const chains = blinded ? blindedChainTable(dir, record) : readRunChains(dir, record);
   const hubble = readCsvColumns(join(dir, RUN_FILES.hubbleData));
-  const model = readCsvColumns(join(dir, RUN_FILES.hubbleModel));
+  const model = blinded ? null : readCsvColumns(join(dir, RUN_FILES.hubbleModel));
   const hubbleModel = model ? Object.fromEntries(Object.entries(model).map(([name, values]) => [name, Float64Array.from(values, Number)])) : null;
-  return { dir, record, chains, hubble: hubble ? { columns: hubble } : null, hubbleModel };
+  return { dir, record: blinded ? blindedRecordView(record) : record, chains, hubble: hubble ? { columns: hubble } : null, hubbleModel };
 }
 
 /**

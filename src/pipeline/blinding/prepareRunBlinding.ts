@@ -1,0 +1,57 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { CandelaConfig } from '../../config/index.js';
+import { createRandomStream, deriveSeed } from '../../math/index.js';
+import { blindingRunIdentity, drawBlindingOffsets, sealBlindingKey, unsealBlindingKey, writeFileAtomic } from '../../output/index.js';
+import { BLINDING_KEY_FILE } from './runBlinding.js';
+
+/** The blinding of one model's run: which parameters, their secret offsets and widths. */
+export interface RunBlinding {
+  parameters: string[];
+  offsets: Record<string, number>;
+  widths: Record<string, number>;
+}
+
+/** Bytes of the random salt (128 bits: no one guesses it, so the offsets cannot be recomputed from seed and configuration). */
+const SALT_BYTES = 16;
+
+/**
+ * Decides what one model's run blinds and holds its secret offsets: the
+ * parameters of `blinding.parameters` that the model samples (a fixed one
+ * is not blinded: its value is in the configuration). The offsets come from
+ * the seeded stream deriveSeed(seed, 'blinding', label, salt), the salt
+ * being 128 random bits, so that nobody can recompute them from the
+ * configuration; they are sealed into the run folder's key file. A run that
+ * is resumed keeps the key it has.
+ * Cost: one small file read or write.
+ * @param config the configuration (its `blinding` block).
+ * @param modelLabel the model's label.
+ * @param sampled the model's sampled parameter names, in theta order.
+ * @param runDir the run folder (the key goes there).
+ * @param salt the salt (hex) instead of 128 random bits: only for tests, where a known salt makes the offsets repeatable.
+ * @returns the blinding (null when nothing is blinded) and lines to print (never a value).
+ * @throws CandelaError from unsealBlindingKey when an existing key is damaged or belongs to another run.
+ * @example prepareRunBlinding(config, 'flat_w0wa', ['omega_m', 'w0', 'wa', 'abs_mag'], 'out/demo-blinded').blinding?.parameters // ['omega_m', 'w0', 'wa']
+ */
+export function prepareRunBlinding(config: CandelaConfig, modelLabel: string, sampled: readonly string[], runDir: string, salt?: string): { blinding: RunBlinding | null; lines: string[] } {
+  if (!config.blinding) return { blinding: null, lines: [] };
+  const listed = config.blinding.parameters;
+  const parameters = sampled.filter((name) => listed.includes(name));
+  const notSampled = listed.filter((name) => !sampled.includes(name));
+  const lines = notSampled.length ? [`blinding: ${notSampled.join(', ')} ${notSampled.length === 1 ? 'is' : 'are'} not sampled by model ${modelLabel}: not blinded (a fixed value is in the configuration)`] : [];
+  if (parameters.length === 0) return { blinding: null, lines: [...lines, `blinding: model ${modelLabel} samples none of ${listed.join(', ')}: its outputs are not blinded`] };
+  const widths = Object.fromEntries(parameters.map((name) => [name, config.blinding!.offsetWidths[name]]));
+  const identity = blindingRunIdentity(String(config.seed), modelLabel, parameters);
+  const keyPath = join(runDir, BLINDING_KEY_FILE);
+  if (existsSync(keyPath)) {
+    const key = unsealBlindingKey(readFileSync(keyPath, 'utf8'), keyPath, identity);
+    lines.push(`blinding: ${parameters.join(', ')} shown as true value + the secret offsets of ${keyPath}`);
+    return { blinding: { parameters, offsets: key.offsets, widths: key.widths }, lines };
+  }
+  const secret = salt ?? randomBytes(SALT_BYTES).toString('hex');
+  const offsets = drawBlindingOffsets(widths, createRandomStream(deriveSeed(config.seed, 'blinding', modelLabel, secret)));
+  writeFileAtomic(keyPath, sealBlindingKey({ identity, offsets, widths, salt: secret }));
+  lines.push(`blinding: ${parameters.join(', ')} shown as true value + secret offsets, sealed in ${keyPath}; candela unblind ${runDir} shows the true values`);
+  return { blinding: { parameters, offsets, widths }, lines };
+}
