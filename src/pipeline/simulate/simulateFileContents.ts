@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { SurveyDescription, SurveySample } from '../../config/index.js';
-import { systematicModeNames } from '../../mock/index.js';
+import { analysisSystematicModes, systematicModeNames } from '../../mock/index.js';
 import type { MockSurvey } from '../../mock/index.js';
 import type { SystematicModes } from '../../data/index.js';
 import { mockOptionsFromSurvey } from './simulateMockOptions.js';
@@ -28,6 +28,8 @@ export interface SimulateFileContents {
   /** The systematics file in the survey's output.systematics_form (matrix or modes); null when the survey has no systematic mode. */
   covariance: string | null;
   truth: string;
+  /** Every systematic as a named mode (output.named_modes); null when not asked for or when there is no mode. */
+  namedModes: string | null;
 }
 
 /**
@@ -38,7 +40,10 @@ export interface SimulateFileContents {
  * header of mode names, systematicModeNames, then one row of K values per
  * supernova, the form readSystematicModes reads) -- and truth.json (the
  * truth, the survey settings, the drawn systematic offsets, the seed, and
- * the name, size and SHA-256 checksum of the other two files). Pure: the
+ * the name, size and SHA-256 checksum of the other files) and, with
+ * output.named_modes, every systematic as a named mode: the drawn modes,
+ * then the analysis systematics (analysisSystematicModes, on the table's
+ * host masses as written). Pure: the
  * same inputs give the same bytes. Cost O(N^2) for the matrix text, O(N K)
  * for the modes.
  * @param survey the survey description (truth and settings, output file names).
@@ -53,7 +58,10 @@ export function simulateFileContents(survey: SurveyDescription, mock: MockSurvey
   const covariance = modes
     ? (mock.systematicModes ? modesText(mock.systematicModes, modeNames) : null)
     : (mock.systematicCovariance ? matrixText(mock.systematicCovariance, mock.table.count) : null);
+  const named = survey.output.namedModes === null ? null : namedModesText(survey, mock, String(seed));
   const sha256 = (text: string): string => createHash('sha256').update(text, 'utf8').digest('hex');
+  const analysis = survey.analysisSystematics;
+  const analysisOn = analysis.hostMassSplitDex > 0 || analysis.coherentVelocityKmPerS > 0;
   const record = {
     about: 'truth of a candela mock supernova survey (see docs/simulate.md)',
     generator: { program: 'candela simulate', version: VERSION },
@@ -66,6 +74,12 @@ export function simulateFileContents(survey: SurveyDescription, mock: MockSurvey
       peculiar_velocity_km_s: survey.peculiarVelocityKmPerS,
       redshift_drift_mag: survey.redshiftDriftMag,
     },
+    ...(analysisOn ? {
+      analysis_systematics: {
+        host_mass_split_dex: analysis.hostMassSplitDex, coherent_velocity_km_s: analysis.coherentVelocityKmPerS,
+        coherent_velocity_max_redshift: analysis.coherentVelocityMaxRedshift,
+      },
+    } : {}),
     samples: survey.samples.map(sampleRecord),
     drawn_systematics: {
       calibration_offset_mag: mock.systematicDraws.calibrationOffsetMag,
@@ -76,9 +90,12 @@ export function simulateFileContents(survey: SurveyDescription, mock: MockSurvey
       covariance: covariance === null ? null : modes
         ? { name: survey.output.covariance, form: 'modes', size: [mock.table.count, modeNames.length], columns: modeNames, sha256: sha256(covariance) }
         : { name: survey.output.covariance, size: mock.table.count, sha256: sha256(covariance) },
+      ...(named === null ? {} : {
+        named_modes: { name: survey.output.namedModes, form: 'modes', size: [mock.table.count, named.names.length], columns: named.names, sha256: sha256(named.text) },
+      }),
     },
   };
-  return { table, covariance, truth: `${JSON.stringify(record, null, 2)}\n` };
+  return { table, covariance, truth: `${JSON.stringify(record, null, 2)}\n`, namedModes: named?.text ?? null };
 }
 
 function fixed(value: number, decimals = DECIMALS): string {
@@ -115,6 +132,31 @@ function matrixText(values: Float64Array, n: number): string {
     lines.push(row.join(' '));
   }
   return `${lines.join('\n')}\n`;
+}
+
+/**
+ * The drawn modes and the analysis modes side by side, as modes CSV; null
+ * when there is none. Host masses are taken at the precision the table
+ * writes them, so the file classifies hosts as a fit of the table does.
+ */
+function namedModesText(survey: SurveyDescription, mock: MockSurvey, seed: string): { text: string; names: string[] } | null {
+  const drawnNames = systematicModeNames(mockOptionsFromSurvey(survey, seed, false));
+  const t = mock.table;
+  const hostLogMass = Float64Array.from(t.hostLogMass ?? new Float64Array(t.count), (mass) => Number(fixed(mass, MASS_DECIMALS)));
+  const analysis = analysisSystematicModes(
+    { redshift: t.redshift, hostLogMass, massStepMag: survey.truth.massStepMag, splitLogMass: survey.truth.splitLogMass }, survey.analysisSystematics,
+  );
+  const drawn = mock.systematicModes;
+  const drawnCount = drawn ? drawn.modeCount : 0;
+  const width = drawnCount + analysis.names.length;
+  if (width === 0) return null;
+  const values = new Float64Array(t.count * width);
+  for (let i = 0; i < t.count; i++) {
+    for (let j = 0; j < drawnCount; j++) values[i * width + j] = drawn!.values[i * drawnCount + j];
+    for (let j = 0; j < analysis.names.length; j++) values[i * width + drawnCount + j] = analysis.values[i * analysis.names.length + j];
+  }
+  const names = [...(drawn ? drawnNames : []), ...analysis.names];
+  return { text: modesText({ count: t.count, modeCount: width, values, sourceFile: 'named modes' }, names), names };
 }
 
 /** U as CSV: a header of mode names, then one row of K shifts (mag) per supernova. */

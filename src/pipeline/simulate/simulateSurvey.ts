@@ -76,6 +76,7 @@ export function simulateSurvey(request: SimulateRequest): SimulateOutcome {
     { path: join(dir, names.table), text: contents.table },
     { path: join(dir, names.covariance), text: contents.covariance },
     { path: join(dir, names.truth), text: contents.truth },
+    ...(names.namedModes === null ? [] : [{ path: join(dir, names.namedModes), text: contents.namedModes }]),
   ];
   const existing = planned.filter((file) => existsSync(file.path));
   const notFiles = existing.filter((file) => !statSync(file.path).isFile());

@@ -103,7 +103,7 @@ describe('the bundled demo data', () => {
   it('are what "candela simulate configs/demo-survey.yaml" draws (byte for byte)', async () => {
     const dir = join(scratch, 'demo');
     expect((await run('simulate', 'configs/demo-survey.yaml', '--out', dir)).code).toBe(0);
-    for (const name of ['kestrel-supernovae.csv', 'kestrel-systematics.txt']) {
+    for (const name of ['kestrel-supernovae.csv', 'kestrel-systematics.txt', 'kestrel-modes.csv']) {
       expect(read(dir, name).equals(read('data-demo', name)), name).toBe(true);
     }
     const fresh = JSON.parse(read(dir, 'truth.json').toString());
