@@ -86,16 +86,6 @@ export function checkCrossFieldRules(reader: ConfigReader, config: CandelaConfig
         expected: 'a data set of kind light_curves', found: 'only kind magnitudes', fix: 'set method: conventional',
       });
   }
-  if (config.standardization.method === 'hierarchical') {
-    config.supernovae.forEach((set, i) => {
-      if (set.systematicModes.length === 0) return;
-      reader.reportAtPath(`supernovae[${i}].systematic_modes`, 'config.modes_not_hierarchical',
-        'systematic modes cannot be used with the hierarchical method: its latent-variable likelihood takes no modes', {
-          expected: 'systematic_modes with method conventional', found: 'systematic_modes with standardization.method: hierarchical',
-          fix: 'set standardization.method: conventional, or remove systematic_modes (an N x N file under covariances is accepted)',
-        });
-    });
-  }
   checkWalkers(reader, config);
   checkContourPairs(reader, config);
 }

@@ -57,12 +57,12 @@ describe('supernovae[].systematic_modes', () => {
     ]);
   });
 
-  it('rejects systematic modes with the hierarchical method, at the systematic_modes key', () => {
+  it('accepts systematic modes with the hierarchical method (they act on m_b through the Woodbury identity)', () => {
     const base = VALID_LIGHT_CURVES.replace('models:', 'standardization:\n  method: hierarchical\nmodels:');
-    const text = withModes('      - file: m.csv', base);
-    const issue = only(errorsOf(text), 'config.modes_not_hierarchical');
-    expectLocated(issue, text, 'systematic_modes:', 'supernovae[0].systematic_modes');
-    expect(issue.fix).toContain('method: conventional');
+    const { config, warnings } = configOf(withModes('      - file: m.csv', base));
+    expect(warnings).toEqual([]);
+    expect(config.standardization.method).toBe('hierarchical');
+    expect(config.supernovae[0].systematicModes).toHaveLength(1);
   });
 
   it('accepts systematic modes with the conventional method on light curves', () => {
