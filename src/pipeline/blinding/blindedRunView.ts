@@ -6,9 +6,6 @@ import { chainRecordTable } from '../run/chainRecordTable.js';
 import type { StoredRunRecord } from '../run/runFiles.js';
 import { blindedParametersOf, type BlindableRecord } from './runBlinding.js';
 
-/** Prior kind a blinded run's view gives its blinded parameters: no hard edge is reflected or reported (the edges would show the offsets). */
-const WITHHELD_PRIOR = { kind: 'withheld_while_blinded' };
-
 /**
  * The chains every command reads from a blinded run folder: every step from
  * the chain record (true values, chain-record.bin), each blinded parameter
@@ -45,8 +42,10 @@ export function blindedChainTable(dir: string, record: StoredRunRecord & Blindab
 
 /**
  * The run record every output of a blinded run is built from: no derived
- * quantity, and the blinded parameters' priors withheld (a hard prior edge
- * drawn or reported at the shown values would give the offset away).
+ * quantity (their columns are not in the blinded chains). The priors stay
+ * (they are the configuration's); priorBounds ignores them for blinded
+ * parameters, since an edge drawn or reported at the shown values would give
+ * the offset away.
  * Cost: O(parameters).
  * @param record run.json of a blinded run.
  * @returns a copy for the outputs.
@@ -54,13 +53,5 @@ export function blindedChainTable(dir: string, record: StoredRunRecord & Blindab
  * @example blindedRecordView(record).parameters.derived // []
  */
 export function blindedRecordView<T extends StoredRunRecord & BlindableRecord>(record: T): T {
-  const blinded = blindedParametersOf(record);
-  return {
-    ...record,
-    parameters: {
-      ...record.parameters,
-      sampled: record.parameters.sampled.map((entry) => (blinded.includes(entry.name) ? { name: entry.name, prior: { ...WITHHELD_PRIOR } } : entry)),
-      derived: [],
-    },
-  };
+  return { ...record, parameters: { ...record.parameters, derived: [] } };
 }

@@ -2,6 +2,7 @@ import type { ModelFitRecord } from '../../compare/index.js';
 import { compensatedSum } from '../../math/index.js';
 import type { AnalyzedRun } from './compareInputs.js';
 import type { RebuiltRunModel } from './compareRebuildModel.js';
+import { blindedParametersOf } from '../blinding/runBlinding.js';
 
 /**
  * The rebuilt likelihood must reproduce the fit's ln L at the recorded best
@@ -69,8 +70,11 @@ export function comparedModel(analyzed: AnalyzedRun, rebuilt: RebuiltRunModel | 
     fit.logZ = record.evidence.log_z;
     fit.logZError = record.evidence.log_z_error;
   }
-  if (!rebuilt) {
-    const reason = 'the model could not be rebuilt from its run folder, and the DIC needs the likelihood at the posterior mean';
+  const blinded = blindedParametersOf(record);
+  if (!rebuilt || blinded.length > 0) {
+    const reason = blinded.length > 0
+      ? `withheld while the run is blinded (${blinded.join(', ')}): the DIC needs the likelihood at the true posterior mean`
+      : 'the model could not be rebuilt from its run folder, and the DIC needs the likelihood at the posterior mean';
     warnings.push(`${label}: DIC missing: ${reason}`);
     return { record: fit, posteriorMean, devianceDraws: rows.length, warnings, dicMissing: reason };
   }

@@ -9,10 +9,12 @@ import { checkComparisonFolder, clearComparisonFolder } from './compareOutputFol
 import { readComparedRuns } from './compareInputs.js';
 import { comparisonMarkdownDetails, dicMissingNotice } from './compareMarkdownDetails.js';
 import { comparedModel } from './compareModelRecord.js';
-import { detectNestedPairs, savageDickeyForPair } from './compareNestedPairs.js';
+import { detectNestedPairs, savageDickeyForPair, type DetectedNestedPair, type PairSavageDickey } from './compareNestedPairs.js';
 import { rebuildRunModel, type RebuiltRunModel } from './compareRebuildModel.js';
 import { writeDarkEnergyFigures } from './darkEnergyFigures.js';
 import { storedConfiguration } from '../run/storedConfiguration.js';
+import { blindedParametersOf } from '../blinding/runBlinding.js';
+import { comparisonBlindingMarks } from '../blinding/comparisonBlindingMarks.js';
 
 /** File names `candela compare` writes. */
 export const COMPARISON_FILES = { json: 'comparison.json', markdown: 'comparison.md', latex: 'comparison.tex' } as const;
@@ -100,7 +102,12 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
     return rebuildFailures[k] === null ? model : { ...model, dicMissing: `${model.dicMissing}: ${rebuildFailures[k]}` };
   });
   for (const model of models) warnings.push(...model.warnings);
-  const pairs = detectNestedPairs(runs).map((pair) => ({ pair, savageDickey: savageDickeyForPair(pair, `${seed}/savage-dickey/${pair.extended.run.record.model.label}`) }));
+  // Blinded runs (docs/blinding.md): a density at the nested value (w0 = -1) of shifted draws is no Bayes factor, so it is withheld.
+  const withheld = (pair: DetectedNestedPair): PairSavageDickey | null => {
+    const blinded = blindedParametersOf(pair.extended.run.record).filter((name) => pair.extra.some((entry) => entry.name === name));
+    return blinded.length ? { ok: false, reason: `withheld while ${pair.extended.run.record.model.label} is blinded: the density of the shifted ${blinded.join(', ')} at the nested value is not the Savage-Dickey ratio` } : null;
+  };
+  const pairs = detectNestedPairs(runs).map((pair) => ({ pair, savageDickey: withheld(pair) ?? savageDickeyForPair(pair, `${seed}/savage-dickey/${pair.extended.run.record.model.label}`) }));
   const nestedPairs: NestedModelPair[] = pairs.map(({ pair, savageDickey }) => ({
     base: pair.base.run.record.model.label,
     extended: pair.extended.run.record.model.label,
@@ -111,14 +118,18 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
   mkdirSync(request.outDir, { recursive: true });
   const baseConfiguration = storedConfiguration(runs[baseIndex].run);
   const png = baseConfiguration.ok ? baseConfiguration.value.output.png : true;
-  const figures = writeDarkEnergyFigures(runs, rebuilt, baseIndex, request.outDir, { png, seed });
+  const blindedRuns = runs.filter(({ run }) => blindedParametersOf(run.record).length > 0).map(({ run }) => run.record.model.label);
+  const figures = blindedRuns.length
+    ? { written: [], skipped: [`${blindedRuns.join(', ')} ${blindedRuns.length === 1 ? 'is' : 'are'} blinded: the dark-energy figures would draw bands of shifted draws through a model of the true data (candela unblind first)`] }
+    : writeDarkEnergyFigures(runs, rebuilt, baseIndex, request.outDir, { png, seed });
   warnings.push(...figures.skipped.map((reason) => `figure not drawn: ${reason}`));
-  const document = comparisonDocument({
+  const marks = comparisonBlindingMarks(runs.map(({ run }) => run.record));
+  const document = marks.document(comparisonDocument({
     runs, models, pairs, comparison: report.comparison, changedInputs, warnings,
     figures: figures.written.flatMap((stem) => (png ? [`${stem}.svg`, `${stem}.png`] : [`${stem}.svg`])),
-  });
+  }));
   writeFileAtomic(join(request.outDir, COMPARISON_FILES.json), `${JSON.stringify(document, null, 2)}\n`);
-  writeFileAtomic(join(request.outDir, COMPARISON_FILES.markdown), dicMissingNotice(document) + report.markdown + comparisonMarkdownDetails(document));
-  writeFileAtomic(join(request.outDir, COMPARISON_FILES.latex), report.latex);
+  writeFileAtomic(join(request.outDir, COMPARISON_FILES.markdown), marks.markdown(dicMissingNotice(document) + report.markdown + comparisonMarkdownDetails(document)));
+  writeFileAtomic(join(request.outDir, COMPARISON_FILES.latex), marks.latex(report.latex));
   return { outDir: request.outDir, document, files: [COMPARISON_FILES.json, COMPARISON_FILES.markdown, COMPARISON_FILES.latex, ...document.figures], warnings };
 }

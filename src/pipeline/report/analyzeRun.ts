@@ -66,8 +66,10 @@ export interface RunAnalysis {
   converged: boolean;
 }
 
-/** Hard prior edges of a sampled parameter (for reflection at boundaries). */
+/** Hard prior edges of a sampled parameter (for reflection at boundaries); none for a blinded parameter (docs/blinding.md). */
 export function priorBounds(run: RunOnDisk, name: string): HardBounds {
+  // A blinded parameter's values are shifted: its prior edges are neither reflected at nor reported (they would show the offset).
+  if (blindedParametersOf(run.record).includes(name)) return {};
   const entry = run.record.parameters.sampled.find((p) => p.name === name);
   const prior = entry?.prior as { kind?: string; min?: number; max?: number } | undefined;
   if (!prior || prior.kind === 'gaussian') return {};
