@@ -6,6 +6,7 @@ import { createInProcessEvaluator, locatePosteriorMode } from '../../sampler/ind
 import { buildModel } from '../run/buildModel.js';
 import { hubbleDiagramCsv } from '../report/hubbleFiles.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
+import { checkStandardizeBlinding } from '../blinding/checkStandardizeBlinding.js';
 
 /** Starting points of the best-fit search when some parameters are not given. */
 const SEARCH_STARTS = 6;
@@ -50,6 +51,7 @@ export async function standardizeTable(configPath: string, given: Record<string,
     }
   }
   if (issues.length) throw new CandelaError(issues);
+  checkStandardizeBlinding(config, names, Object.keys(given));
   const fittedIndices = names.map((_, i) => i).filter((i) => !(names[i] in given));
   const theta = Float64Array.from(names, (name) => given[name] ?? Number.NaN);
   if (fittedIndices.length > 0) {
