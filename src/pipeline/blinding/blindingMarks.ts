@@ -48,3 +48,19 @@ function latexRow(text: string, parameters: readonly string[]): string {
   const row = `\\multicolumn{${columns}}{l}{\\footnotesize \\textbf{${BLINDED_MARK}}: ${escapeLatexText(parameters.join(', '))} shown as true value + a secret offset} \\\\\n`;
   return `${text.slice(0, end)}${row}${text.slice(end)}`;
 }
+
+/**
+ * The marks of a page that shows several runs (the models index, the overlay
+ * of `candela report` with several folders): blinded when any of them is,
+ * listing every parameter blinded in one of them.
+ * Cost: O(runs x parameters).
+ * @param records the runs' records, as read back.
+ * @returns the marks (unchanged texts when no run is blinded).
+ * @throws nothing.
+ * @example blindingMarksOfRuns([lcdm, wcdm]).title('Models') // 'Models (BLINDED)' when wcdm is blinded
+ */
+export function blindingMarksOfRuns(records: ReadonlyArray<{ blinding?: RunBlindingSection }>): BlindingMarks {
+  const parameters = [...new Set(records.flatMap((record) => blindedParametersOf(record)))];
+  const first = records.find((record) => blindedParametersOf(record).length > 0)?.blinding;
+  return blindingMarks(first ? { blinding: { ...first, parameters } } : {});
+}

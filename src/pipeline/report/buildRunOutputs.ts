@@ -15,7 +15,7 @@ import { readRunFolder, type RunOnDisk } from '../run/runFiles.js';
 import { readProbeDiagrams } from './probeDiagramFiles.js';
 import { RUN_FILES } from '../../output/index.js';
 import { summaryDocument } from './summaryDocument.js';
-import { blindingMarks } from '../blinding/blindingMarks.js';
+import { blindingMarks, blindingMarksOfRuns } from '../blinding/blindingMarks.js';
 import { nestedReportFacts } from './nestedReportFacts.js';
 import { binResiduals } from '../../output/index.js';
 import { residualsFigureOfRun } from './residualsFigureOfRun.js';
@@ -243,16 +243,21 @@ function refreshModelsIndex(run: RunOnDisk, analysis: RunAnalysis): void {
   const folders = siblingModelFolders(run);
   if (folders.length < 2) return;
   const indexDir = dirname(resolve(run.dir));
+  const records: Array<RunOnDisk['record']> = [];
   const columns = folders.flatMap((folder) => {
-    if (resolve(folder) === resolve(run.dir)) return [modelColumn(run, analysis, indexDir)];
+    if (resolve(folder) === resolve(run.dir)) {
+      records.push(run.record);
+      return [modelColumn(run, analysis, indexDir)];
+    }
     try {
       const sibling = readRunFolder(folder);
+      records.push(sibling.record);
       return [modelColumn(sibling, analyzeRun(sibling), indexDir)];
     } catch {
       return [];
     }
   });
-  if (columns.length >= 2) writeModelsIndex(columns, indexDir, run.record.title, run.record.tool.version);
+  if (columns.length >= 2) writeModelsIndex(columns, indexDir, blindingMarksOfRuns(records).title(run.record.title), run.record.tool.version);
 }
 
 /**
@@ -276,16 +281,18 @@ export function buildRunOutputs(runDirs: string[], outDir: string, options: RunO
   const physical = (name: string) => ['cosmology', 'early_universe', 'probe'].includes(PARAMETERS[parseParameterName(name)?.base ?? '']?.role ?? '');
   const union = [...new Set(analyses.flatMap((a) => a.sampled))].sort((a, b) => parameterRank(a) - parameterRank(b));
   const parameters = union.some(physical) ? union.filter(physical) : union;
-  const svg = triangleFigure(runs.map((run, k) => ({
+  const overlay = triangleFigure(runs.map((run, k) => ({
     label: run.record.model.label,
     marginals: analyses[k].marginals.filter((m) => parameters.includes(m.parameter)),
     contours: contoursForTriangle(run, analyses[k], parameters.filter((name) => analyses[k].sampled.includes(name))),
   })), parameters, { width: settings.width, fontFace: settings.fontFace });
+  const marks = blindingMarksOfRuns(runs.map((run) => run.record));
+  const svg = marks.svg(overlay);
   writeFileAtomic(join(outDir, 'overlay_triangle.svg'), svg);
   if (settings.png) writeFileAtomic(join(outDir, 'overlay_triangle.png'), pngOf(svg, settings));
   if (settings.pdf) writeFileAtomic(join(outDir, 'overlay_triangle.pdf'), svgToPdf(svg));
-  writeFileAtomic(join(outDir, 'overlay_summary.md'), runs.map((run, k) => `## ${run.record.model.label}\n\n${summaryMarkdown(analyses[k].summary)}`).join('\n'));
-  writeModelsIndex(runs.map((run, k) => modelColumn(run, analyses[k], resolve(outDir))), outDir, runs[0].record.title, runs[0].record.tool.version);
+  writeFileAtomic(join(outDir, 'overlay_summary.md'), marks.markdown(runs.map((run, k) => `## ${run.record.model.label}\n\n${summaryMarkdown(analyses[k].summary)}`).join('\n')));
+  writeModelsIndex(runs.map((run, k) => modelColumn(run, analyses[k], resolve(outDir))), outDir, marks.title(runs[0].record.title), runs[0].record.tool.version);
   return analyses;
 }
 

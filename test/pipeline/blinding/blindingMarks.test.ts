@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { blindingMarks } from '../../../src/pipeline/blinding/blindingMarks.js';
+import { blindingMarks, blindingMarksOfRuns } from '../../../src/pipeline/blinding/blindingMarks.js';
 import type { RunBlindingSection } from '../../../src/pipeline/blinding/runBlinding.js';
 
 const section = (state: RunBlindingSection['state']): RunBlindingSection => ({
@@ -30,5 +30,14 @@ describe('blindingMarks', () => {
       expect(marks.svg('<svg/>')).toBe('<svg/>');
       expect(marks.title('t')).toBe('t');
     }
+  });
+});
+
+describe('blindingMarksOfRuns', () => {
+  it('marks a page of several runs when any is blinded, listing every blinded parameter once', () => {
+    const one = { blinding: { ...section('blinded'), parameters: ['omega_m'] } };
+    const two = { blinding: section('blinded') };
+    expect(blindingMarksOfRuns([{}, one, two]).markdown('x')).toMatch(/^> BLINDED: omega_m, w0 are shown/);
+    expect(blindingMarksOfRuns([{}, { blinding: section('unblinded') }]).title('Models')).toBe('Models');
   });
 });
