@@ -64,4 +64,5 @@ export { quadratureDifference } from './reweighting/quadratureDifference.js';
 export { gaussianLinearResponse } from './reweighting/gaussianLinearResponse.js';
 export type { LinearResponse } from './reweighting/gaussianLinearResponse.js';
 export { systematicBudget } from './reweighting/systematicBudget.js';
-export type { SystematicBudget, SystematicBudgetEntry, SystematicBudgetInput, SystematicVariantLikelihoods, BudgetVariant, VariantParameterEstimate } from './reweighting/systematicBudget.js';
+export type { SystematicBudget, SystematicBudgetEntry, SystematicBudgetInput, SystematicVariantLikelihoods, BudgetVariant, VariantParameterEstimate, ContributionEstimate } from './reweighting/systematicBudget.js';
+export { varianceDifferenceError, contributionError } from './reweighting/varianceDifferenceError.js';

@@ -3,6 +3,7 @@ import { gaussianLinearResponse, type LinearResponse } from './gaussianLinearRes
 import { importanceWeights } from './importanceWeights.js';
 import { quadratureDifference } from './quadratureDifference.js';
 import { reweightedShift } from './reweightedShift.js';
+import { contributionError, varianceDifferenceError } from './varianceDifferenceError.js';
 
 /** The log likelihoods of one systematic's two variants at every draw. */
 export interface SystematicVariantLikelihoods {
@@ -55,6 +56,14 @@ export interface BudgetVariant {
   parameters: VariantParameterEstimate[];
 }
 
+/** One contribution in quadrature: reweighted with its Monte Carlo error, and by the linear response (null when it failed). */
+export interface ContributionEstimate {
+  reweighted: number;
+  /** Delta-method error of the reweighted value (varianceDifferenceError, contributionError). */
+  mcError: number;
+  linear: number | null;
+}
+
 /** One systematic's line of the budget. */
 export interface SystematicBudgetEntry {
   name: string;
@@ -63,9 +72,9 @@ export interface SystematicBudgetEntry {
   /** Stat + this one only. */
   alone: BudgetVariant;
   /** Per parameter: sqrt(sd_all^2 - sd_without^2) (signed), reweighted and linear (null when it failed). */
-  contribution: Array<{ reweighted: number; linear: number | null }>;
+  contribution: ContributionEstimate[];
   /** Per parameter: sqrt(sd_stat+k^2 - sd_stat^2) (signed), reweighted and linear. */
-  aloneContribution: Array<{ reweighted: number; linear: number | null }>;
+  aloneContribution: ContributionEstimate[];
 }
 
 /** The whole budget: the all-systematics posterior, the statistical-only variant and one entry per systematic. */
@@ -78,7 +87,7 @@ export interface SystematicBudget {
   /** Stat only, reweighted. */
   statistical: BudgetVariant;
   /** Per parameter: sqrt(sd_all^2 - sd_stat^2) (signed), reweighted and linear. */
-  totalSystematic: Array<{ reweighted: number; linear: number | null }>;
+  totalSystematic: ContributionEstimate[];
   systematics: SystematicBudgetEntry[];
 }
 
@@ -113,6 +122,8 @@ export function systematicBudget(input: SystematicBudgetInput): SystematicBudget
     checkLength(entry.aloneLogLikelihood.length, n, `${entry.name} (alone)`, `${n} draws`);
   }
   const columns = Array.from({ length: p }, (_, j) => Float64Array.from({ length: n }, (_, i) => input.draws[i * p + j]));
+  const weightsOf = new Map<BudgetVariant, Float64Array>();
+  const uniform = new Float64Array(n).fill(1 / n);
   const variant = (logLikelihood: ArrayLike<number>): BudgetVariant => {
     const logRatio = Float64Array.from({ length: n }, (_, i) => logLikelihood[i] - input.allLogLikelihood[i]);
     const { weights, effectiveCount } = importanceWeights(logRatio);
@@ -124,7 +135,9 @@ export function systematicBudget(input: SystematicBudgetInput): SystematicBudget
         linearShift: linear.ok ? linear.shift[j] : null, linearSd: linear.ok ? linear.sd[j] : null,
       };
     });
-    return { effectiveCount, reliable: effectiveCount >= input.minEffectiveCount, linearFailure: linear.ok ? null : linear.reason, parameters };
+    const result = { effectiveCount, reliable: effectiveCount >= input.minEffectiveCount, linearFailure: linear.ok ? null : linear.reason, parameters };
+    weightsOf.set(result, weights);
+    return result;
   };
   const allMean: number[] = [];
   const allSd: number[] = [];
@@ -134,14 +147,17 @@ export function systematicBudget(input: SystematicBudgetInput): SystematicBudget
     allSd.push(base.baseSd);
   }
   const statistical = variant(input.statisticalLogLikelihood);
-  const contributions = (larger: (j: number) => [number, number | null], smaller: (j: number) => [number, number | null]) =>
+  type Side = { sd: (j: number) => [number, number | null]; weights: Float64Array };
+  const contributions = (larger: Side, smaller: Side): ContributionEstimate[] =>
     allSd.map((_, j) => {
-      const [a, aLinear] = larger(j);
-      const [b, bLinear] = smaller(j);
-      return { reweighted: quadratureDifference(a, b), linear: aLinear === null || bLinear === null ? null : quadratureDifference(aLinear, bLinear) };
+      const [a, aLinear] = larger.sd(j);
+      const [b, bLinear] = smaller.sd(j);
+      const reweighted = quadratureDifference(a, b);
+      const mcError = contributionError(reweighted, varianceDifferenceError(columns[j], larger.weights, smaller.weights));
+      return { reweighted, mcError, linear: aLinear === null || bLinear === null ? null : quadratureDifference(aLinear, bLinear) };
     });
-  const sdOf = (v: BudgetVariant) => (j: number): [number, number | null] => [v.parameters[j].sd, v.parameters[j].linearSd];
-  const allOf = (j: number): [number, number | null] => [allSd[j], allSd[j]];
+  const sdOf = (v: BudgetVariant): Side => ({ sd: (j) => [v.parameters[j].sd, v.parameters[j].linearSd], weights: weightsOf.get(v)! });
+  const allOf: Side = { sd: (j) => [allSd[j], allSd[j]], weights: uniform };
   const systematics = input.systematics.map((entry): SystematicBudgetEntry => {
     const without = variant(entry.withoutLogLikelihood);
     const alone = variant(entry.aloneLogLikelihood);

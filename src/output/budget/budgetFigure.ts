@@ -39,7 +39,7 @@ const X_PADDING_FRACTION = 0.08;
  * (docs/style.md): two framed panels sharing one row per systematic. Left,
  * the shift of each parameter's mean when the systematic is removed, with
  * its Monte Carlo error bar; right, its error contribution in quadrature
- * (sqrt(sd_all^2 - sd_without^2)). Both are in units of the parameter's
+ * (sqrt(sd_all^2 - sd_without^2)), with its Monte Carlo error bar. Both are in units of the parameter's
  * total posterior standard deviation, so parameters share an axis; one bar
  * per parameter in the lantern series colours, zero as an ink hairline, the
  * legend strip below naming the parameters. A dagger marks a systematic
@@ -71,7 +71,7 @@ export function budgetFigure(table: BudgetTable, options: BudgetFigureOptions = 
   }));
   const relative = (values: readonly number[], j: number) => values[j] / table.allSd[j];
   const shiftBars = table.rows.map((row) => row.shift.map((_, j) => ({ value: relative(row.shift, j), error: relative(row.shiftMcError, j) })));
-  const contributionBars = table.rows.map((row) => row.contribution.map((_, j) => ({ value: relative(row.contribution, j), error: 0 })));
+  const contributionBars = table.rows.map((row) => row.contribution.map((_, j) => ({ value: relative(row.contribution, j), error: relative(row.contributionMcError, j) })));
   const yScale = createAxisScale('linear', [table.rows.length, 0], [TOP_MARGIN_PX + panelHeight, TOP_MARGIN_PX]);
   const body: string[] = [];
   const panels: Array<[PlotFrame, typeof shiftBars, string]> = [

@@ -8,8 +8,8 @@ function finite(value: number | null): number | null {
 /**
  * The systematic budget as JSON (the content of `budget.json`), snake_case
  * keys, every number at full precision, per systematic and per parameter:
- * shift_when_removed with shift_mc_error, contribution_removed,
- * contribution_alone, the linear-response linear_shift and
+ * shift_when_removed with shift_mc_error, contribution_removed and
+ * contribution_alone with their *_mc_error, the linear-response linear_shift and
  * linear_contribution, and full_fit_shift / full_fit_contribution when
  * full fits were run (null otherwise). Non-finite numbers are null.
  *
@@ -40,7 +40,9 @@ export function budgetJson(table: BudgetTable): string {
         shift_when_removed: finite(row.shift[j]),
         shift_mc_error: finite(row.shiftMcError[j]),
         contribution_removed: finite(row.contribution[j]),
+        contribution_removed_mc_error: finite(row.contributionMcError[j]),
         contribution_alone: finite(row.aloneContribution[j]),
+        contribution_alone_mc_error: finite(row.aloneContributionMcError[j]),
         linear_shift: finite(row.linearShift[j]),
         linear_contribution: finite(row.linearContribution[j]),
         full_fit_shift: row.fullShift ? finite(row.fullShift[j]) : null,

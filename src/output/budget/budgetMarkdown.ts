@@ -1,5 +1,5 @@
 import { parameterSymbol } from '../tables/parameterSymbols.js';
-import { budgetPlace, formatBudgetNumber, type BudgetTable, type BudgetTableRow } from './budgetTable.js';
+import { budgetPlace, formatBudgetNumber, placeWithError, type BudgetTable, type BudgetTableRow } from './budgetTable.js';
 
 /**
  * The systematic budget as Markdown (the content of `budget.md`): the
@@ -25,6 +25,10 @@ export function budgetMarkdown(table: BudgetTable): string {
   ];
   const flag = (row: BudgetTableRow) => (row.reliable ? row.name : `${row.name} †`);
   const cells = (values: Array<number | null>, signed = false) => values.map((value, j) => formatBudgetNumber(value, places[j], signed));
+  const withErrors = (values: number[], errors: number[], signed = false) => values.map((value, j) => {
+    const place = placeWithError(places[j], errors[j]);
+    return `${formatBudgetNumber(value, place, signed)} ± ${formatBudgetNumber(errors[j], place)}`;
+  });
   const lines = [
     `# Systematic budget: ${table.title} (${table.model})`,
     '',
@@ -38,14 +42,15 @@ export function budgetMarkdown(table: BudgetTable): string {
     '',
     ...header(['systematic', 'effective draws'], (head) => `Δ${head}`),
     ...table.rows.map((row) => `| ${[flag(row), String(Math.round(row.effectiveCountWithout)),
-      ...row.shift.map((shift, j) => `${formatBudgetNumber(shift, places[j], true)} ± ${formatBudgetNumber(row.shiftMcError[j], places[j])}`)].join(' | ')} |`),
+      ...withErrors(row.shift, row.shiftMcError, true)].join(' | ')} |`),
     '',
     '## Error contribution in quadrature',
     '',
-    'Removed: sqrt(σ_all² − σ_without²); alone: sqrt(σ_stat+k² − σ_stat²). A negative entry is Monte Carlo noise (the sign is kept).',
+    'Removed: sqrt(σ_all² − σ_without²); alone: sqrt(σ_stat+k² − σ_stat²); ± the Monte Carlo error. A negative entry is Monte Carlo noise (the sign is kept).',
     '',
     ...header(['systematic', 'removed / alone'], (head) => `σ(${head})`),
-    ...table.rows.map((row) => `| ${[flag(row), 'removed', ...cells(row.contribution)].join(' | ')} |\n| ${[flag(row), 'alone', ...cells(row.aloneContribution)].join(' | ')} |`),
+    ...table.rows.map((row) => `| ${[flag(row), 'removed', ...withErrors(row.contribution, row.contributionMcError)].join(' | ')} |\n` +
+      `| ${[flag(row), 'alone', ...withErrors(row.aloneContribution, row.aloneContributionMcError)].join(' | ')} |`),
     `| all systematics | removed | ${cells(table.totalSystematic).join(' | ')} |`,
     `| statistical only${table.statisticalReliable ? '' : ' †'} | σ | ${cells(table.statisticalSd).join(' | ')} |`,
     `| statistical + systematic | σ | ${cells(table.allSd).join(' | ')} |`,

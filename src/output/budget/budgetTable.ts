@@ -12,10 +12,12 @@ export interface BudgetTableRow {
   /** Mean without it minus mean with all (unit of the parameter), and its Monte Carlo error. */
   shift: number[];
   shiftMcError: number[];
-  /** sqrt(sd_all^2 - sd_without^2), signed. */
+  /** sqrt(sd_all^2 - sd_without^2), signed, and its Monte Carlo error. */
   contribution: number[];
-  /** sqrt(sd_stat+k^2 - sd_stat^2), signed. */
+  contributionMcError: number[];
+  /** sqrt(sd_stat+k^2 - sd_stat^2), signed, and its Monte Carlo error. */
   aloneContribution: number[];
+  aloneContributionMcError: number[];
   /** The same shift and contribution from the Gaussian linear response (null where it failed). */
   linearShift: Array<number | null>;
   linearContribution: Array<number | null>;
@@ -62,6 +64,15 @@ const DIGITS_BELOW_SD = 2;
  */
 export function budgetPlace(sd: number): number {
   return sd > 0 && Number.isFinite(sd) ? Math.floor(Math.log10(sd)) - DIGITS_BELOW_SD : -3;
+}
+
+/**
+ * The place of a number printed with its Monte Carlo error: the parameter's
+ * place, or finer when the error needs it (one significant digit of the error).
+ * @example placeWithError(-3, 0.0004) // -4
+ */
+export function placeWithError(place: number, error: number): number {
+  return error > 0 && Number.isFinite(error) ? Math.min(place, Math.floor(Math.log10(error))) : place;
 }
 
 /**

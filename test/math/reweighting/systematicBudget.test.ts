@@ -95,6 +95,17 @@ describe('systematicBudget on a linear Gaussian mock', () => {
     });
   });
 
+  it('reports a Monte Carlo error on each contribution within which the closed form lies (4 errors)', () => {
+    names.forEach((name, k) => {
+      const without = exact(names.filter((other) => other !== name));
+      for (let j = 0; j < 2; j++) {
+        const entry = budget.systematics[k].contribution[j];
+        const truth = quadratureDifference(sd(all, j), sd(without, j));
+        expect(Math.abs(entry.reweighted - truth), `${name} parameter ${j}`).toBeLessThan(4 * entry.mcError);
+      }
+    });
+  });
+
   it('predicts the same shifts by the Gaussian linear response, within the Monte Carlo error of the draws\' mean', () => {
     names.forEach((name, k) => {
       const without = exact(names.filter((other) => other !== name));

@@ -12,8 +12,8 @@ describe('budgetFigure', () => {
     expect(svg).toContain(`fill="${SERIES_COLORS[1]}"`);
   });
 
-  it('draws a Monte Carlo error bar on each shift only', () => {
-    expect(svg.match(/class="budget-error"/g)).toHaveLength(6);
+  it('draws a Monte Carlo error bar on each shift and each contribution', () => {
+    expect(svg.match(/class="budget-error"/g)).toHaveLength(12);
   });
 
   it('labels the rows by name, the flagged one with a dagger', () => {

@@ -9,6 +9,7 @@ describe('budgetJson', () => {
     expect(document.min_effective_draws).toBe(200);
     expect(document.systematics[0].parameters.w0.shift_when_removed).toBe(0.0123);
     expect(document.systematics[0].parameters.wa.full_fit_contribution).toBe(0.31);
+    expect(document.systematics[0].parameters.w0.contribution_removed_mc_error).toBe(0.004);
     expect(document.parameters.w0).toEqual({ mean: -0.95, sd: 0.17, statistical_sd: 0.15, systematic_sd: 0.08 });
   });
 

@@ -19,7 +19,7 @@ describe('budgetMarkdown', () => {
   });
 
   it('keeps the sign of a negative contribution and prints n/a where the linear response failed', () => {
-    expect(text).toContain('| host_mass | removed | -0.003 |');
+    expect(text).toContain('| host_mass | removed | -0.003 ± 0.010 |');
     expect(text).toContain('| host_mass | shift | n/a | n/a |');
   });
 
