@@ -13,6 +13,13 @@ import { BENCH_TRUTH, type BenchSurvey } from './syntheticSurvey.js';
 /** The nuisance values held fixed when the covariance is constant. */
 export const FIXED_NUISANCE = { alpha: BENCH_TRUTH.alpha, beta: BENCH_TRUTH.beta, mass_step: BENCH_TRUTH.massStep } as const;
 
+/** The cosmology family, host-mass step and scatter terms shared by the benchmark terms (this file and benchHierarchicalTerm.ts). */
+export const BENCH_TERM_SETTINGS = {
+  cosmologyModel: { darkEnergy: 'cpl', flat: true, cmbTemperatureK: 0, effectiveNeutrinoSpecies: 3.046 },
+  massStep: { enabled: true, splitLogMass: 10, shape: 'sharp', widthDex: 0 },
+  scatter: { lensingPerRedshift: 0.055, peculiarVelocityKmPerS: 250, includeRedshiftErrors: false },
+} as const;
+
 /** How to build a benchmark term. */
 export interface BenchTermOptions {
   path: SupernovaPath;
@@ -30,10 +37,10 @@ export function benchTerm(survey: BenchSurvey, options: BenchTermOptions): Super
     table: survey.table,
     covariances: options.covariances,
     systematicModes: options.systematicModes,
-    cosmologyModel: { darkEnergy: 'cpl', flat: true, cmbTemperatureK: 0, effectiveNeutrinoSpecies: 3.046 },
+    cosmologyModel: { ...BENCH_TERM_SETTINGS.cosmologyModel },
     standardization: {
-      massStep: { enabled: true, splitLogMass: 10, shape: 'sharp', widthDex: 0 },
-      scatter: { lensingPerRedshift: 0.055, peculiarVelocityKmPerS: 250, includeRedshiftErrors: false },
+      massStep: { ...BENCH_TERM_SETTINGS.massStep },
+      scatter: { ...BENCH_TERM_SETTINGS.scatter },
       intrinsicScatter: 'off',
       alphaBetaCovariance: 'exact',
     },
