@@ -1,4 +1,5 @@
 import { escapeXml } from '../figures/index.js';
+import { budgetSection } from './budgetSection.js';
 import { convergenceSection } from './convergenceSection.js';
 import { convergenceVerdicts } from './convergenceVerdicts.js';
 import { figuresSection } from './figuresSection.js';
@@ -78,6 +79,7 @@ export function reportHtml(input: ReportInput): string {
     '\n',
     figuresSection(input.figures),
     '\n',
+    ...(input.budget ? [budgetSection(input.budget, symbols), '\n'] : []),
     provenanceSection(input.configurationYaml, input.inputFiles),
     '\n',
     footer,

@@ -1,4 +1,5 @@
 import type { ParameterSymbol } from '../figures/index.js';
+import type { ReportBudget } from './budgetSection.js';
 
 /** Facts about the run shown at the top of the report. */
 export interface ReportRunFacts {
@@ -110,4 +111,6 @@ export interface ReportInput {
   warnings?: readonly (string | ReportWarning)[];
   /** Parameter symbols for table headings, replacing the output layer's parameterSymbols table. */
   symbols?: Readonly<Record<string, ParameterSymbol>>;
+  /** The run's systematic budget (candela budget), shown after the figures when present. */
+  budget?: ReportBudget;
 }
