@@ -25,7 +25,9 @@ function etaSeconds(progress: FitProgress): number | null {
   const kept = Math.max(1, progress.step - check.burnInSteps);
   const forEss = (progress.targetEss / check.minEssBulk) * kept;
   const forRhat = check.maxRhat !== null && check.maxRhat > progress.maxRhat ? ((check.maxRhat - 1) / (progress.maxRhat - 1)) * kept : 0;
-  const needed = Math.max(forEss, forRhat) + check.burnInSteps;
+  // The chain must also reach 50 autocorrelation times (the stopping rule's third condition), counted from step 0.
+  const forTau = check.maxTau !== null ? 50 * check.maxTau - check.burnInSteps : 0;
+  const needed = Math.max(forEss, forRhat, forTau) + check.burnInSteps;
   const rate = progress.elapsedSeconds / progress.step;
   const left = Math.max(0, Math.min(needed, progress.maxSteps) - progress.step) * rate;
   // Not converged yet but both extrapolations already met: the next check decides; say so rather than "0 s".

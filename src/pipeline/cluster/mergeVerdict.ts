@@ -1,3 +1,4 @@
+import { RELIABLE_STEPS_PER_TAU } from '../../diagnostics/index.js';
 import type { ConvergenceCheck, StoppingRule } from '../fit/samplingLoop.js';
 
 /**
@@ -23,7 +24,7 @@ export interface PartProgress {
 
 /** Whether a merged run meets the configuration's convergence targets, and what to do when it does not. */
 export interface MergeVerdict {
-  /** Every sampled parameter has bulk ESS >= target_ess and R-hat <= max_rhat over the merged ensembles. */
+  /** Every sampled parameter has bulk ESS >= target_ess and R-hat <= max_rhat over the merged ensembles, and the chains are 50 tau long. */
   targetsMet: boolean;
   /** One sentence per missed target and per part that stopped before its step count. */
   shortfalls: string[];
@@ -43,7 +44,7 @@ const roundUp = (steps: number) => Math.ceil(steps / STEP_SUGGESTION_ROUNDING) *
  *
  * The suggested step count extrapolates the bulk ESS linearly in the kept
  * (post-burn-in) steps, keeps the burn-in, adds 50% and rounds up to 100
- * steps; when R-hat fails or the ESS is undefined it asks for at least twice
+ * steps, and to at least 1.5 x 50 tau; when R-hat fails or the ESS is undefined it asks for at least twice
  * the steps so far (R-hat has no dependable extrapolation; common practice).
  * Cost: O(parameters + parts).
  * @param check the convergence check of the merged chains.
@@ -79,6 +80,11 @@ export function judgeMergedRun(check: ConvergenceCheck, rule: StoppingRule, name
     shortfalls.push('the merged chains are too short for diagnostics');
     rhatFails = true;
   }
+  // The third condition of the stopping rule (samplingLoop.checkConvergence): chains of at least 50 tau.
+  const tauSteps = check.maxTau !== null ? RELIABLE_STEPS_PER_TAU * check.maxTau : null;
+  if (tauSteps !== null && check.step < tauSteps) {
+    shortfalls.push(`the chains are ${check.step} steps, shorter than ${RELIABLE_STEPS_PER_TAU} autocorrelation times (tau = ${(check.maxTau as number).toFixed(1)} steps)`);
+  }
   const targetsMet = shortfalls.length === 0;
   for (const part of parts) {
     if (part.stepsTarget !== null && part.steps < part.stepsTarget) {
@@ -89,5 +95,6 @@ export function judgeMergedRun(check: ConvergenceCheck, rule: StoppingRule, name
   const kept = check.step - check.burnInSteps;
   let suggested = check.burnInSteps + kept * essFactor * STEP_SUGGESTION_MARGIN;
   if (rhatFails) suggested = Math.max(suggested, 2 * check.step);
+  if (tauSteps !== null) suggested = Math.max(suggested, tauSteps * STEP_SUGGESTION_MARGIN);
   return { targetsMet, shortfalls, suggestedSteps: roundUp(Math.max(suggested, check.step + 1)) };
 }

@@ -232,9 +232,11 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
     for (const name of sampled) {
       const d = diagnostics[name];
       if (!d || d.rhat === null || d.essBulk === null || d.rhat > record.run.max_rhat || d.essBulk < record.run.target_ess) converged = false;
+      // The stopping rule's third condition (samplingLoop.checkConvergence): a chain of at least 50 tau.
+      if (d?.tau && steps < RELIABLE_STEPS_PER_TAU * d.tau) converged = false;
       if (d?.tau && steps < RELIABLE_STEPS_PER_TAU * d.tau) warnings.push(runWarning('short_chain', name, `the chain of ${name} is ${steps} steps, shorter than ${RELIABLE_STEPS_PER_TAU} autocorrelation times (tau = ${d.tau.toFixed(1)} steps): the tau estimate and the diagnostics are less reliable`, { steps, tau: d.tau, minimum_steps_per_tau: RELIABLE_STEPS_PER_TAU }));
     }
-    if (!converged) warnings.push(runWarning('not_converged', null, `the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`, { target_ess: record.run.target_ess, max_rhat: record.run.max_rhat }));
+    if (!converged) warnings.push(runWarning('not_converged', null, `the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}, a chain of ${RELIABLE_STEPS_PER_TAU} tau) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`, { target_ess: record.run.target_ess, max_rhat: record.run.max_rhat }));
   } else {
     effectiveSampleSize = kishEffectiveCount(keptWeights ?? kept.length);
     converged = record.sampler?.stop === 'max_unexplored_ln_z';

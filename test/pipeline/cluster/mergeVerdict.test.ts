@@ -6,11 +6,11 @@ import type { ConvergenceCheck } from '../../../src/pipeline/fit/samplingLoop.js
 // rank-normalized split-R-hat <= max_rhat (Vehtari, Gelman, Simpson, Carpenter & Buerkner 2021 recommend
 // bulk ESS and R-hat per parameter, R-hat < 1.01). The step suggestion, ESS growing linearly with the
 // kept steps and twice the steps when R-hat fails, is common practice; the numbers below follow from it
-// by hand.
+// by hand. The third condition, chains of at least 50 tau, follows Foreman-Mackey et al. (2013, emcee's guidance).
 
-function check(step: number, burnInSteps: number, perParameter: Array<{ essBulk: number | null; rhat: number | null }>): ConvergenceCheck {
+function check(step: number, burnInSteps: number, perParameter: Array<{ essBulk: number | null; rhat: number | null }>, maxTau: number | null = 20): ConvergenceCheck {
   return {
-    step, burnInSteps, thin: 1, maxTau: 20, meanAcceptance: 0.4, stuckWalkers: 0, converged: false,
+    step, burnInSteps, thin: 1, maxTau, meanAcceptance: 0.4, stuckWalkers: 0, converged: false,
     minEssBulk: null, maxRhat: null,
     diagnostics: perParameter.map((values) => ({ ...values })) as unknown as ConvergenceCheck['diagnostics'],
   };
@@ -42,7 +42,7 @@ describe('judgeMergedRun', () => {
   });
 
   it('treats undefined diagnostics as missed targets', () => {
-    const verdict = judgeMergedRun(check(100, 50, [{ essBulk: null, rhat: null }]), rule, ['omega_m'], []);
+    const verdict = judgeMergedRun(check(100, 50, [{ essBulk: null, rhat: null }], null), rule, ['omega_m'], []);
     expect(verdict.targetsMet).toBe(false);
     expect(verdict.shortfalls).toEqual(['the bulk ESS of omega_m is undefined', 'the R-hat of omega_m is undefined']);
     expect(verdict.suggestedSteps).toBe(200);
@@ -50,8 +50,16 @@ describe('judgeMergedRun', () => {
 
   it('names a part that stopped before its step count, whether or not the targets are met', () => {
     const parts = [fullParts[0], { dir: 'p1', steps: 700, stepsTarget: 1000, stopReason: 'wall_time' }];
-    const verdict = judgeMergedRun(check(700, 100, [{ essBulk: 2500, rhat: 1.001 }, { essBulk: 2500, rhat: 1.001 }]), rule, names, parts);
+    const verdict = judgeMergedRun(check(700, 100, [{ essBulk: 2500, rhat: 1.001 }, { essBulk: 2500, rhat: 1.001 }], 10), rule, names, parts);
     expect(verdict.targetsMet).toBe(true);
     expect(verdict.shortfalls).toEqual(['the part p1 stopped (wall_time) at step 700 of 1000; the merge cut every part to its length']);
+  });
+
+  it('fails a merged run shorter than 50 autocorrelation times even when ESS and R-hat are met, and asks for 1.5 x 50 tau', () => {
+    const verdict = judgeMergedRun(check(1000, 200, [{ essBulk: 2500, rhat: 1.004 }, { essBulk: 2100, rhat: 1.005 }], 30), rule, names, fullParts);
+    expect(verdict.targetsMet).toBe(false);
+    expect(verdict.shortfalls).toEqual(['the chains are 1000 steps, shorter than 50 autocorrelation times (tau = 30.0 steps)']);
+    // max(200 + 800 x 1 x 1.5, 50 x 30 x 1.5) = 2250, rounded up to 2300
+    expect(verdict.suggestedSteps).toBe(2300);
   });
 });
