@@ -25,6 +25,8 @@ export { isFitInterrupted } from './fit/runFit.js';
 export type { FitRequest, FitProgress, FitOutcome } from './fit/runFit.js';
 export { buildRunOutputs } from './report/buildRunOutputs.js';
 export { terminalRunReport } from './report/terminalRunReport.js';
+export { unblindRun } from './blinding/unblindRun.js';
+export type { UnblindOutcome } from './blinding/unblindRun.js';
 export { simulateSurvey } from './simulate/simulateSurvey.js';
 export type { SimulateRequest } from './simulate/simulateSurvey.js';
 export type { SimulateOutcome } from './simulate/simulateSurvey.js';

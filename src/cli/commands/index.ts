@@ -8,6 +8,7 @@ import { registerReportCommand } from './report.js';
 import { registerSimulateCommand } from './simulate.js';
 import { registerCompareCommand } from './compare.js';
 import { registerMergeCommand } from './merge.js';
+import { registerUnblindCommand } from './unblind.js';
 
 /**
  * Every sub-command registers itself here: one import and one call per
@@ -24,4 +25,5 @@ export function registerCommands(program: Command): void {
   registerSimulateCommand(program);
   registerCompareCommand(program);
   registerMergeCommand(program);
+  registerUnblindCommand(program);
 }

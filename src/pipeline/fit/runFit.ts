@@ -20,6 +20,9 @@ import { createRunRecord, type RunRecord } from '../run/runRecord.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
+import { blindEnsembleDraws, blindRunRecord } from '../blinding/blindRunRecord.js';
+import { checkBlindingSupported } from '../blinding/checkBlindingSupported.js';
+import { prepareRunBlinding } from '../blinding/prepareRunBlinding.js';
 import { workerModelUrl } from '../run/workerModel.js';
 import { fitNestedModel } from './nestedFit.js';
 import { createInterruptibleEvaluator, EVENT_LOOP_SLICE_MS, isRunInterrupted } from './interruptibleEvaluator.js';
@@ -86,6 +89,11 @@ export interface FitRequest {
   onProgress?: (progress: FitProgress) => void;
   /** Informational lines (what is being run, where outputs go). */
   onLine?: (line: string) => void;
+  /**
+   * Salt of a blinded run's secret offsets (hex) instead of 128 random bits:
+   * for tests only (a known salt lets anyone recompute the offsets; docs/blinding.md).
+   */
+  blindingSalt?: string;
   /** Which steps chains.csv holds (default DEFAULT_CHAINS_CSV: every step); the chain record always holds every step. */
   chainsCsv?: ChainsCsvOption;
 }
@@ -157,6 +165,7 @@ function selectedModels(config: CandelaConfig, label: string | undefined): numbe
 export async function runFit(request: FitRequest): Promise<FitOutcome[]> {
   const config = loadConfigFile(request.configPath);
   const part = request.part === undefined ? null : locatePart(config, request.part, request.outDir);
+  checkBlindingSupported(config, part !== null);
   const selected = selectedModels(config, request.model);
   // The worker threads of the first model start now and build it from the configuration while this
   // thread reads the data and builds the models (two cores busy instead of one after the other).
@@ -251,6 +260,8 @@ async function fitOneModel(
   const maxSteps = part && request.partSteps !== undefined ? request.partSteps : settings.maxSteps;
   say(`model ${model.label}${partNote}: ${model.parameterNames.length} free parameters (${model.parameterNames.join(', ')}); ${data.table.count} supernovae; ${workers} worker thread${workers === 1 ? '' : 's'}`);
   for (const line of [...(model.supernovae?.describe() ?? []), ...model.probes.flatMap((probe) => probe.loaded.describe)]) say(`  ${line}`);
+  const { blinding, lines: blindingLines } = prepareRunBlinding(config, model.label, model.parameterNames, runDir, request.blindingSalt);
+  for (const line of blindingLines) say(line);
   const evaluator = createInterruptibleEvaluator(await (earlyEvaluator ?? createEvaluator(config, index, model, workers)), request.signal, EVENT_LOOP_SLICE_MS, workers);
   try {
     let sampler: EnsembleSampler;
@@ -329,14 +340,17 @@ async function fitOneModel(
     const wallSeconds = previousSeconds + (Date.now() - started) / 1000;
     const ensembles = Array.from({ length: sampler.options.ensembles }, (_, k) => ({ ...sampler.chain(k) }));
     const selection = chainsSelection(request.chainsCsv ?? DEFAULT_CHAINS_CSV, sampler.stepCount, check.burnInSteps, check.maxTau);
-    writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps, undefined, selection);
+    // A blinded run's chains.csv shows the blinded parameters shifted and leaves the derived quantities out (docs/blinding.md).
+    const shownDraws = blinding ? blindEnsembleDraws(ensembles, model.parameterNames, blinding.offsets) : ensembles;
+    writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: blinding ? [] : model.derivedNames }, shownDraws, check.burnInSteps, undefined, selection);
     const fullRecord = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, sampler });
     const stored: RunRecord & { chains_csv?: ChainsSelection } = selection.keep === 'all' ? fullRecord : { ...fullRecord, chains_csv: selection };
-    const record: RunRecord & { part?: PartFacts; chains_csv?: ChainsSelection } = part ? {
+    const unblindedRecord: RunRecord & { part?: PartFacts; chains_csv?: ChainsSelection } = part ? {
       ...stored,
       run: { ...fullRecord.run, ensembles: 1, target_ess: rule.targetEss },
       part: { index: part.index, model_index: part.modelIndex, ensemble: part.ensemble, ensembles_total: part.ensembles, part_target_ess: rule.targetEss, steps_target: maxSteps },
     } : stored;
+    const record = blinding ? blindRunRecord(unblindedRecord, blinding) : unblindedRecord;
     writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
     writeResolvedConfig(runDir, config); // paths relative to the run folder, so the copy re-runs as is
     const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
@@ -344,7 +358,7 @@ async function fitOneModel(
       say(`model ${model.label}${partNote}: interrupted after ${sampler.stepCount} steps, fewer than the ${MINIMUM_STEPS_FOR_OUTPUTS} the summaries need; wrote the checkpoint, chains.csv and run.json in ${runDir}`);
       return { model: model.label, runDir, record, warnings, summarized: false };
     }
-    writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, seed);
+    writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, seed, { blinded: blinding !== null });
     // A signal asks to stop soon: the figures and report.html are left to `candela report` (or to the resumed run).
     const interrupted = stopReason === 'interrupted';
     buildRunOutputs([runDir], runDir, { figures: !interrupted });
