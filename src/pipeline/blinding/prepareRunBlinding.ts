@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import type { CandelaConfig } from '../../config/index.js';
 import { createRandomStream, deriveSeed } from '../../math/index.js';
 import { blindingRunIdentity, drawBlindingOffsets, sealBlindingKey, unsealBlindingKey, writeFileAtomic } from '../../output/index.js';
@@ -19,11 +19,14 @@ const SALT_BYTES = 16;
 /**
  * Decides what one model's run blinds and holds its secret offsets: the
  * parameters of `blinding.parameters` that the model samples (a fixed one
- * is not blinded: its value is in the configuration). The offsets come from
- * the seeded stream deriveSeed(seed, 'blinding', label, salt), the salt
- * being 128 random bits, so that nobody can recompute them from the
- * configuration; they are sealed into the run folder's key file. A run that
- * is resumed keeps the key it has.
+ * is not blinded: its value is in the configuration). The offsets of every
+ * listed parameter are drawn, in the listed order, from the seeded stream
+ * deriveSeed(seed, 'blinding', salt), the salt being 128 random bits, so
+ * that nobody can recompute them from the configuration; the model's are
+ * sealed into the run folder's key file. The models of one configuration
+ * share the salt (a sibling model folder's key gives it), so a parameter
+ * gets the same offset in every model and their blinded posteriors can be
+ * compared with each other. A run that is resumed keeps the key it has.
  * Cost: one small file read or write.
  * @param config the configuration (its `blinding` block).
  * @param modelLabel the model's label.
@@ -49,9 +52,31 @@ export function prepareRunBlinding(config: CandelaConfig, modelLabel: string, sa
     lines.push(`blinding: ${parameters.join(', ')} shown as true value + the secret offsets of ${keyPath}`);
     return { blinding: { parameters, offsets: key.offsets, widths: key.widths }, lines };
   }
-  const secret = salt ?? randomBytes(SALT_BYTES).toString('hex');
-  const offsets = drawBlindingOffsets(widths, createRandomStream(deriveSeed(config.seed, 'blinding', modelLabel, secret)));
+  const secret = salt ?? siblingSalt(config, modelLabel, runDir) ?? randomBytes(SALT_BYTES).toString('hex');
+  const every = drawBlindingOffsets(config.blinding.offsetWidths, createRandomStream(deriveSeed(config.seed, 'blinding', secret)));
+  const offsets = Object.fromEntries(parameters.map((name) => [name, every[name]]));
   writeFileAtomic(keyPath, sealBlindingKey({ identity, offsets, widths, salt: secret }));
   lines.push(`blinding: ${parameters.join(', ')} shown as true value + secret offsets, sealed in ${keyPath}; candela unblind ${runDir} shows the true values`);
   return { blinding: { parameters, offsets, widths }, lines };
+}
+
+/**
+ * The salt of another model of the same configuration already blinded: its
+ * folder beside this one (the layout of several models, runFolderFor) holds a
+ * whole key sealed for the same seed and its own label. Null when none.
+ */
+function siblingSalt(config: CandelaConfig, modelLabel: string, runDir: string): string | null {
+  if (config.models.length < 2) return null;
+  for (const model of config.models) {
+    if (model.label === modelLabel) continue;
+    const path = join(dirname(runDir), model.label, BLINDING_KEY_FILE);
+    if (!existsSync(path)) continue;
+    try {
+      const key = unsealBlindingKey(readFileSync(path, 'utf8'), path);
+      if (key.identity === blindingRunIdentity(String(config.seed), model.label, Object.keys(key.widths))) return key.salt;
+    } catch {
+      // a damaged sibling key is that run's problem (its own commands report it); draw a salt of our own
+    }
+  }
+  return null;
 }

@@ -68,6 +68,10 @@ describe('compareRuns with blinded runs', () => {
     for (const [k, model] of models(blind.document).entries()) {
       for (const key of ['chi_square', 'aic', 'bic']) expect(model[key], key).toBe(models(plain.document)[k][key]);
     }
+    // One offset per parameter for every model of the configuration: omega_m moves by the same amount in both.
+    const shift = (k: number) => (models(blind.document)[k].posterior_mean as Record<string, number>).omega_m - (models(plain.document)[k].posterior_mean as Record<string, number>).omega_m;
+    expect(shift(0)).toBeCloseTo(shift(1), 12);
+    expect(Math.abs(shift(0))).toBeGreaterThanOrEqual(0.025);
     const shown = ['comparison.md', 'comparison.tex', 'comparison.json'].map((file) => readFileSync(join(scratch, 'blind-comparison', file), 'utf8')).join('\n');
     for (const [k, model] of models(plain.document).entries()) {
       for (const [name, mean] of Object.entries(model.posterior_mean as Record<string, number>)) {

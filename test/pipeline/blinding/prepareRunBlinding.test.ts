@@ -55,3 +55,20 @@ describe('prepareRunBlinding', () => {
     expect(lines.at(-1)).toBe('blinding: model fixed samples none of w0, omega_m, h0: its outputs are not blinded');
   });
 });
+
+describe('prepareRunBlinding with several models', () => {
+  it('gives a parameter the same offset in every model of the configuration (the salt is shared through the sibling key)', () => {
+    const two = configOf(`${VALID_MAGNITUDES.replace('models:\n  - label: flat_lcdm\n    dark_energy: lambda\n', 'models:\n  - { label: flat_lcdm, dark_energy: lambda }\n  - { label: flat_wcdm, dark_energy: constant_w }\n')}blinding: { parameters: [w0, omega_m] }\n`).config;
+    expect(two.models.map((model) => model.label)).toEqual(['flat_lcdm', 'flat_wcdm']);
+    const base = join(scratch, 'two');
+    for (const label of ['flat_lcdm', 'flat_wcdm']) mkdirSync(join(base, label), { recursive: true });
+    const lcdm = prepareRunBlinding(two, 'flat_lcdm', ['omega_m'], join(base, 'flat_lcdm')).blinding!;
+    const wcdm = prepareRunBlinding(two, 'flat_wcdm', ['omega_m', 'w0'], join(base, 'flat_wcdm')).blinding!;
+    expect(wcdm.offsets.omega_m).toBe(lcdm.offsets.omega_m);
+    expect(Object.keys(wcdm.offsets)).toEqual(['omega_m', 'w0']);
+    // A configuration with one model draws its own salt: another folder gets other offsets.
+    const other = join(scratch, 'alone');
+    mkdirSync(other);
+    expect(prepareRunBlinding(blinded, 'flat_lcdm', ['omega_m'], other).blinding!.offsets.omega_m).not.toBe(lcdm.offsets.omega_m);
+  });
+});
