@@ -7,6 +7,7 @@
 //   forecast/   candela simulate --forecast
 //   simulate/   candela simulate
 //   cluster/    candela fit --plan slurm / --part, candela merge
+//   budget/     candela budget: the systematic budget of a run, by reweighting its chains
 //   check/, distances/, standardize/   the commands of the same names
 export {};
 export { checkConfiguration } from './check/checkConfiguration.js';
@@ -23,6 +24,10 @@ export type { StandardizedTable } from './standardize/standardizeTable.js';
 export { runFit } from './fit/runFit.js';
 export { isFitInterrupted } from './fit/runFit.js';
 export type { FitRequest, FitProgress, FitOutcome } from './fit/runFit.js';
+export { fitSideBySide } from './fit/fitSideBySide.js';
+export { sideBySidePlanFor } from './fit/fitSideBySide.js';
+export type { SideBySideRequest, SideBySideOutcome, SideBySideModel } from './fit/fitSideBySide.js';
+export type { SideBySidePlan } from './fit/sideBySidePlan.js';
 export { buildRunOutputs } from './report/buildRunOutputs.js';
 export { terminalRunReport } from './report/terminalRunReport.js';
 export { unblindRun } from './blinding/unblindRun.js';
@@ -44,3 +49,5 @@ export type { SlurmPlan } from './cluster/slurmPlan.js';
 export { mergeParts } from './cluster/mergeParts.js';
 export type { MergeRequest } from './cluster/mergeParts.js';
 export type { MergedRunRecord } from './cluster/mergeParts.js';
+export { runBudget } from './budget/runBudget.js';
+export type { BudgetRequest, BudgetOutcome } from './budget/runBudget.js';

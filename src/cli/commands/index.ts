@@ -8,6 +8,7 @@ import { registerReportCommand } from './report.js';
 import { registerSimulateCommand } from './simulate.js';
 import { registerCompareCommand } from './compare.js';
 import { registerMergeCommand } from './merge.js';
+import { registerBudgetCommand } from './budget.js';
 import { registerUnblindCommand } from './unblind.js';
 
 /**
@@ -25,5 +26,6 @@ export function registerCommands(program: Command): void {
   registerSimulateCommand(program);
   registerCompareCommand(program);
   registerMergeCommand(program);
+  registerBudgetCommand(program);
   registerUnblindCommand(program);
 }
