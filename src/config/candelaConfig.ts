@@ -228,6 +228,13 @@ export interface OutputOptions {
   triangleParameters: 'auto' | string[];
   /** A mock's truth.json (as `candela simulate` writes it): its values are marked in the triangle figure. Null: none. */
   truthFile: ResolvedPath | null;
+  /**
+   * Which steps of an ensemble run chains.csv holds: `after_burn_in`, the
+   * steps after the burn-in one in floor(thinTauFraction x largest tau)
+   * (every walker kept), or `all`, every step with the burn-in flagged. The
+   * chain record (chain-record.bin) always holds every step.
+   */
+  chains: { keep: 'after_burn_in' | 'all'; thinTauFraction: number };
 }
 
 /**

@@ -78,6 +78,7 @@ export function configToPlainObject(config: CandelaConfig, options: PlainConfigO
       ...(output.pngDpi !== null ? { png_dpi: output.pngDpi } : {}),
       triangle_parameters: output.triangleParameters === 'auto' ? 'auto' : [...output.triangleParameters],
       ...(output.truthFile ? { truth_file: path(output.truthFile) } : {}),
+      chains: { keep: output.chains.keep, spacing_tau: output.chains.thinTauFraction },
     },
     ...(config.blinding ? { blinding: { parameters: [...config.blinding.parameters], offset_widths: { ...config.blinding.offsetWidths } } } : {}),
   };

@@ -7,7 +7,8 @@ import type { ConfigReader, Located } from './configReader.js';
 import { DEFAULT_OUTPUT } from './defaults.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
 
-const KEYS = ['dir', 'contour_pairs', 'smoothing', 'figures', 'png', 'figure_width', 'font', 'pdf', 'png_dpi', 'triangle_parameters', 'truth_file'] as const;
+const KEYS = ['dir', 'contour_pairs', 'smoothing', 'figures', 'png', 'figure_width', 'font', 'pdf', 'png_dpi', 'triangle_parameters', 'truth_file', 'chains'] as const;
+const CHAINS_KEYS = ['keep', 'spacing_tau'] as const;
 /** Widest figure accepted, inches (a full page is about 7 in; twice that is surely a typo). */
 const MAX_FIGURE_INCHES = 14;
 const SMOOTHING_KEYS = ['kernel', 'bandwidth', 'factor'] as const;
@@ -81,6 +82,11 @@ export function readOutput(reader: ConfigReader, at: Located): OutputOptions {
   }
   const truth = reader.text(fields.get('truth_file'), { nullable: true });
   if (typeof truth === 'string') options.truthFile = resolveConfigPath(reader.fileName, truth);
+  const chains = reader.mapping(fields.get('chains'), CHAINS_KEYS);
+  if (chains) {
+    options.chains.keep = reader.choice(chains.get('keep'), ['after_burn_in', 'all'] as const) ?? options.chains.keep;
+    options.chains.thinTauFraction = reader.number(chains.get('spacing_tau'), { min: 0, exclusiveMin: true, max: 100, fix: 'write spacing_tau: 0.5 (half an autocorrelation time between kept steps)' }) ?? options.chains.thinTauFraction;
+  }
   return options;
 }
 

@@ -131,8 +131,12 @@ export { chainsSelection } from './run/chainsSelection.js';
 export type { CheckpointFacts } from './run/checkpointFile.js';
 export { writeCheckpoint } from './run/checkpointFile.js';
 export { readCheckpoint } from './run/checkpointFile.js';
-export type { ChainRecordShape } from './run/checkpointFile.js';
-export { visitChainRecord } from './run/checkpointFile.js';
+export { readCheckpointState } from './run/checkpointFile.js';
+export type { ChainRecordShape } from './run/chainRecordFile.js';
+export { visitChainRecord } from './run/chainRecordFile.js';
+export { appendChainRecord } from './run/chainRecordFile.js';
+export { readChainRecordDraws } from './run/chainRecordFile.js';
+export { recordShapeOf } from './run/chainRecordFile.js';
 
 // Blinding: secret offsets, the sealed key, and the marks every page of a blinded run carries.
 export { drawBlindingOffsets } from './blinding/drawBlindingOffsets.js';

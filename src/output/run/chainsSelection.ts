@@ -15,8 +15,8 @@ export interface ChainsCsvOption {
   thinTauFraction: number;
 }
 
-/** The pipeline's default until the configuration names one: every step (what `report` and `merge` compare byte for byte). */
-export const DEFAULT_CHAINS_CSV: ChainsCsvOption = { keep: 'all', thinTauFraction: 0.5 };
+/** The default of the configuration's `output.chains`: the steps after the burn-in, half an autocorrelation time apart. */
+export const DEFAULT_CHAINS_CSV: ChainsCsvOption = { keep: 'after_burn_in', thinTauFraction: 0.5 };
 
 /** The steps chains.csv holds: first_step, first_step + every_steps, ..., `steps` of them; recorded in run.json. */
 export interface ChainsSelection {

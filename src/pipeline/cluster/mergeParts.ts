@@ -6,7 +6,7 @@ import { writeFileAtomic } from '../../output/index.js';
 import { createInProcessEvaluator, EnsembleSampler, type EnsembleSnapshot, type SamplerSnapshot } from '../../sampler/index.js';
 import { buildModel } from '../run/buildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
-import { writeChainsFile } from '../../output/index.js';
+import { appendChainRecord, chainsSelection, writeChainsFile, type ChainsSelection } from '../../output/index.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import { readPartsForMerge, type PartOnDisk, type PartRecord } from './mergeChecks.js';
@@ -32,6 +32,8 @@ export interface MergeRequest {
 
 /** run.json of a merged run: a fit's record with stop_reason `merged` and the parts it came from. */
 export type MergedRunRecord = Omit<RunRecord, 'run'> & {
+  /** The steps chains.csv holds when it is thinned (output.chains), as in a fit's record. */
+  chains_csv?: ChainsSelection;
   run: Omit<RunRecord['run'], 'stop_reason'> & { stop_reason: StopReason | 'merged' };
   merge: {
     ensembles_total: number;
@@ -103,7 +105,8 @@ function truncatedEnsemble(part: PartOnDisk, steps: number): EnsembleSnapshot {
  * to the shortest part's step count, ordered by their original ensemble
  * index (ensemble column 0, 1, ... in that order), and the burn-in is chosen
  * again from the merged chains with the fit's rule, so R-hat compares the
- * parts' ensembles. Writes chains.csv, run.json (stop_reason `merged`, the
+ * parts' ensembles. Writes chain-record.bin (every merged step), chains.csv
+ * (the steps output.chains selects), run.json (stop_reason `merged`, the
  * parts' evaluations summed, the longest part's wall time, the parts listed),
  * config.resolved.yaml, the Hubble-diagram files (from the model rebuilt from
  * the configuration and data) and every output of buildRunOutputs. No
@@ -148,7 +151,8 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   const wallSeconds = Math.max(...parts.map((part) => part.wallSeconds));
   const evaluations = parts.reduce((sum, part) => sum + part.evaluations, 0);
   const workers = Math.max(...parts.map((part) => part.record.run.worker_threads));
-  const base = createRunRecord({ config, modelIndex, model, data, check, stopReason: 'max_steps', wallSeconds, evaluations, steps, workers, sampler });
+  const ensembles = parts.map((_, k) => ({ ...sampler.chain(k) }));
+  const base = createRunRecord({ config, modelIndex, model, data, check, stopReason: 'max_steps', wallSeconds, evaluations, steps, workers, draws: ensembles });
   const recorded = JSON.stringify(first.record.inputs.map((input) => input.sha256));
   if (JSON.stringify(base.inputs.map((input) => input.sha256)) !== recorded) {
     throw new CandelaError({ code: 'merge.inputs_changed', file: join(first.dir, RUN_FILES.run), message: 'an input file (configuration or data) changed since the parts ran: its SHA-256 differs from the parts\' records', fix: 'restore the files the parts ran with, or rerun the parts' });
@@ -174,8 +178,12 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
     },
   };
   prepareRunFolder(request.outDir, { force: Boolean(request.force), resume: false });
-  const ensembles = parts.map((_, k) => ({ ...sampler.chain(k) }));
-  writeChainsFile(join(request.outDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps);
+  // Every step goes to the merged folder's chain record (what the summaries read when chains.csv is thinned);
+  // chains.csv holds the steps output.chains asks for, chosen as a fit chooses them.
+  appendChainRecord(request.outDir, sampler.snapshot(), { sync: true });
+  const selection = chainsSelection(config.output.chains, steps, check.burnInSteps, check.maxTau);
+  if (selection.keep !== 'all') record.chains_csv = selection;
+  writeChainsFile(join(request.outDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps, undefined, selection);
   writeFileAtomic(join(request.outDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
   writeResolvedConfig(request.outDir, config);
   writeHubbleFiles(request.outDir, model, ensembles, check.burnInSteps, String(config.seed));

@@ -9,8 +9,8 @@ import {
   type BatchEvaluator, type LogProbabilityModel, type WorkerModelSpec,
 } from '../../sampler/index.js';
 import { writeFileAtomic } from '../../output/index.js';
-import { readCheckpoint, writeCheckpoint } from '../../output/index.js';
-import { chainsSelection, DEFAULT_CHAINS_CSV, type ChainsCsvOption, type ChainsSelection } from '../../output/index.js';
+import { appendChainRecord, readChainRecordDraws, readCheckpointState, recordShapeOf, writeCheckpoint } from '../../output/index.js';
+import { chainsSelection, type ChainsCsvOption, type ChainsSelection } from '../../output/index.js';
 import { buildModel, type BuiltModel } from '../run/buildModel.js';
 import { writeChainsFile } from '../../output/index.js';
 import { loadSupernovae, type LoadedSupernovae } from '../run/loadSupernovae.js';
@@ -94,7 +94,7 @@ export interface FitRequest {
    * for tests only (a known salt lets anyone recompute the offsets; docs/blinding.md).
    */
   blindingSalt?: string;
-  /** Which steps chains.csv holds (default DEFAULT_CHAINS_CSV: every step); the chain record always holds every step. */
+  /** Which steps chains.csv holds, replacing output.chains (default: the thinned steps after the burn-in); the chain record always holds every step. */
   chainsCsv?: ChainsCsvOption;
 }
 
@@ -268,8 +268,9 @@ async function fitOneModel(
     let previousSeconds = 0;
     let evaluations = 0;
     if (request.resume && existsSync(checkpointPath)) {
-      const saved = readCheckpoint(runDir);
-      sampler = await EnsembleSampler.restore(saved.snapshot, evaluator);
+      // The checkpoint without its chain: the earlier steps stream from the chain record to rebuild the sampler's traces.
+      const saved = readCheckpointState(runDir);
+      sampler = await EnsembleSampler.restore(saved.snapshot, evaluator, { earlierSteps: saved.earlierSteps });
       previousSeconds = saved.wallSeconds;
       evaluations = saved.evaluations;
       say(`resuming from step ${sampler.stepCount}`);
@@ -318,6 +319,9 @@ async function fitOneModel(
         stopReason = 'interrupted'; // the sampler is back at the end of its last whole step
       }
       evaluations += (sampler.stepCount - before) * stepsPerEvaluation;
+      // The slice's steps go to the chain record and leave memory, so a run's memory does not grow with its steps.
+      appendChainRecord(runDir, sampler.snapshot(), { sync: false });
+      sampler.releaseStoredSteps(sampler.stepCount);
       if (stopReason !== null) break;
       if (sampler.stepCount - lastCheck >= settings.checkEvery) {
         lastCheck = sampler.stepCount;
@@ -338,12 +342,13 @@ async function fitOneModel(
     }
     check = checkConvergence(sampler, rule);
     const wallSeconds = previousSeconds + (Date.now() - started) / 1000;
-    const ensembles = Array.from({ length: sampler.options.ensembles }, (_, k) => ({ ...sampler.chain(k) }));
-    const selection = chainsSelection(request.chainsCsv ?? DEFAULT_CHAINS_CSV, sampler.stepCount, check.burnInSteps, check.maxTau);
+    // Every step, from the chain record the checkpoint has just completed (the sampler holds none of them any more).
+    const ensembles = readChainRecordDraws(runDir, recordShapeOf(sampler.snapshot()), sampler.stepCount);
+    const selection = chainsSelection(request.chainsCsv ?? config.output.chains, sampler.stepCount, check.burnInSteps, check.maxTau);
     // A blinded run's chains.csv shows the blinded parameters shifted and leaves the derived quantities out (docs/blinding.md).
     const shownDraws = blinding ? blindEnsembleDraws(ensembles, model.parameterNames, blinding.offsets) : ensembles;
     writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: blinding ? [] : model.derivedNames }, shownDraws, check.burnInSteps, undefined, selection);
-    const fullRecord = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, sampler });
+    const fullRecord = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, draws: ensembles });
     const stored: RunRecord & { chains_csv?: ChainsSelection } = selection.keep === 'all' ? fullRecord : { ...fullRecord, chains_csv: selection };
     const unblindedRecord: RunRecord & { part?: PartFacts; chains_csv?: ChainsSelection } = part ? {
       ...stored,

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { configToPlainObject, type CandelaConfig } from '../../config/index.js';
-import type { EnsembleSampler } from '../../sampler/index.js';
+import type { EnsembleDraws } from '../../output/index.js';
 import { VERSION } from './version.js';
 import type { BuiltModel } from './buildModel.js';
 import { probeInputFiles } from './loadProbes.js';
@@ -145,13 +145,13 @@ export function commonRunSections(input: { config: CandelaConfig; modelIndex: nu
   };
 }
 
-/** Assembles run.json for a finished (or interrupted) ensemble run. */
+/** Assembles run.json for a finished (or interrupted) ensemble run; `draws` are its stored steps, one entry per ensemble (for the best fit). */
 export function createRunRecord(input: {
   config: CandelaConfig; modelIndex: number; model: BuiltModel; data: LoadedSupernovae; check: ConvergenceCheck;
-  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; sampler: EnsembleSampler;
+  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; draws: readonly EnsembleDraws[];
 }): RunRecord {
-  const { config, check, sampler } = input;
-  const best = locateBestSample(sampler, check.burnInSteps);
+  const { config, check, draws } = input;
+  const best = locateBestSample(draws, check.burnInSteps);
   return {
     ...commonRunSections({ ...input, best }),
     run: {
@@ -163,14 +163,13 @@ export function createRunRecord(input: {
   };
 }
 
-/** The stored sample with the highest log posterior after the burn-in. */
-export function locateBestSample(sampler: EnsembleSampler, burnInSteps: number): BestSample {
-  const { ensembles, walkers, dimension } = sampler.options;
+/** The stored sample with the highest log posterior after the burn-in (the first of equal values, in ensemble, step, walker order). */
+export function locateBestSample(draws: readonly EnsembleDraws[], burnInSteps: number): BestSample {
   let bestLogProb = -Infinity;
-  let theta = new Float64Array(dimension);
+  let theta = new Float64Array(draws[0]?.dimension ?? 0);
   let logLikelihood = Number.NaN;
-  for (let k = 0; k < ensembles; k++) {
-    const chain = sampler.chain(k);
+  for (const chain of draws) {
+    const { walkers, dimension } = chain;
     for (let row = burnInSteps * walkers; row < chain.steps * walkers; row++) {
       if (chain.logProb[row] > bestLogProb) {
         bestLogProb = chain.logProb[row];

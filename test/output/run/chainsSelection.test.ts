@@ -13,14 +13,14 @@ import { runCommandLine } from '../../support/runCommandLine.js';
 // 2018), a short fit of the same seed twice.
 const scratch = useScratchFolder('chains-selection');
 
-function writeConfig(name: string): string {
+function writeConfig(name: string, chains = ''): string {
   const path = join(scratch, `${name}.yaml`);
   writeFileSync(path, pantheonBinnedConfig({
     title: 'chains selection test', seed: 21,
     models: '  - { label: flat_wcdm, dark_energy: constant_w, curvature: flat }',
     parameters: '  w0: { prior: uniform, min: -2.5, max: -0.3 }',
     sampler: '{ walkers: 8, ensembles: 2, max_steps: 600, check_every: 100, checkpoint_every: 100, target_ess: 1000000, workers: 1 }',
-    output: `{ dir: ${join(scratch, name)}, figures: [triangle, trace], png: false }`,
+    output: `{ dir: ${join(scratch, name)}, figures: [triangle, trace], png: false${chains} }`,
   }));
   return path;
 }
@@ -36,8 +36,8 @@ describe('chainsSelection', () => {
 
 describe('runFit with chains.csv after the burn-in, thinned', () => {
   it('writes exactly the kept rows of the full file, and the same summaries from the chain record', async () => {
-    const [full] = await runFit({ configPath: writeConfig('full') });
-    const [thin] = await runFit({ configPath: writeConfig('thin'), chainsCsv: { keep: 'after_burn_in', thinTauFraction: 0.5 } });
+    const [full] = await runFit({ configPath: writeConfig('full', ', chains: { keep: all }') });
+    const [thin] = await runFit({ configPath: writeConfig('thin') }); // the default: output.chains { keep: after_burn_in, spacing_tau: 0.5 }
     const record = JSON.parse(readFileSync(join(thin.runDir, 'run.json'), 'utf8')) as { chains_csv: { first_step: number; every_steps: number; steps: number }; run: { burn_in_steps: number } };
     const { first_step: first, every_steps: every, steps } = record.chains_csv;
     expect(first).toBe(record.run.burn_in_steps);

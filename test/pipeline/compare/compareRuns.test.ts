@@ -2,7 +2,6 @@ import { appendFileSync, copyFileSync, existsSync, mkdirSync, readFileSync, rmSy
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { compareRuns, runFit, type FitOutcome } from '../../../src/pipeline/index.js';
-import { readChainsFile } from '../../../src/output/run/chainsFile.js';
 import { rebuildRunModel } from '../../../src/pipeline/compare/compareRebuildModel.js';
 import { readRunFolder } from '../../../src/pipeline/run/runFiles.js';
 import { isCandelaError } from '../../../src/errors.js';
@@ -76,9 +75,10 @@ describe('compareRuns', () => {
       expect(model.aic).toBeCloseTo(minusTwoLogL + 2 * model.k_free, 9);
       expect(model.bic).toBeCloseTo(minusTwoLogL + model.k_free * Math.log(40), 9);
       expect(model.chi_square_best_fit).toBe(record.best_fit.chi_square);
-      // DIC = 2 mean(D) - D(mean theta) with D = -2 ln L (Spiegelhalter et al. 2002), recomputed here from chains.csv
-      // after the burn-in and the likelihood rebuilt from the run folder; tolerance 1e-9 relative.
-      const chains = readChainsFile(join(model.run_dir, 'chains.csv'));
+      // DIC = 2 mean(D) - D(mean theta) with D = -2 ln L (Spiegelhalter et al. 2002), recomputed here from every step
+      // after the burn-in (the run folder's chains as the summaries read them: chains.csv keeps only thinned steps by
+      // default, the chain record every step) and the likelihood rebuilt from the run folder; tolerance 1e-9 relative.
+      const chains = readRunFolder(model.run_dir).chains;
       const kept = Array.from({ length: chains.rows }, (_, r) => r).filter((r) => chains.burnIn[r] === 0);
       const meanDeviance = kept.reduce((sum, r) => sum - 2 * chains.columns.log_likelihood[r], 0) / kept.length;
       const rebuilt = rebuildRunModel(readRunFolder(model.run_dir));
