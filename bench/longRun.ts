@@ -6,13 +6,7 @@
  * with every step kept in memory; each in its own process
  * (bench/cases/longRunCase.ts). Also the autocorrelation time from the
  * sampler's bounded, thinned traces against the one from the whole chain.
- * Keys, each prefixed `bounded_` or `all_`: `peak_rss_mb` (the case's peak
- * resident set), `wall_s`, `diagnostics_ms_total` (the 200 tau estimates of
- * the bounded run, one per 1,000 steps), `checks`, `trace_steps` and
- * `trace_stride` (the thinned trace at the end), `max_tau_from_trace_steps`
- * and, kept-all run only, `max_tau_from_whole_chain_steps` (largest
- * integrated autocorrelation time over the 3 parameters, steps),
- * `record_mb` (chain record written), `held_steps_at_end` (steps still in memory).
+ * Keys are documented in bench/README.md.
  */
 import { runChildCase } from './support/childCase.js';
 import type { BenchSuite } from './suite.js';
