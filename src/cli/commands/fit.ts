@@ -3,7 +3,9 @@ import type { Command } from 'commander';
 import cliProgress from 'cli-progress';
 import { CandelaError, formatIssue } from '../../errors.js';
 import { closestWord } from '../../config/index.js';
-import { isFitInterrupted, planSlurmArray, runFit, terminalRunReport, type FitOutcome, type FitProgress } from '../../pipeline/index.js';
+import {
+  fitSideBySide, isFitInterrupted, planSlurmArray, runFit, sideBySidePlanFor, terminalRunReport, type FitOutcome, type FitProgress, type SideBySidePlan,
+} from '../../pipeline/index.js';
 
 /** Seconds between status lines when the output is not a terminal. */
 const STATUS_INTERVAL_SECONDS = 5;
@@ -49,6 +51,17 @@ function currentLauncher(): string[] {
   return [process.execPath, fileURLToPath(new URL('../main.js', import.meta.url))];
 }
 
+/**
+ * The words that start the models' processes of a side-by-side fit: those of
+ * currentLauncher, except that from the TypeScript sources (tests calling
+ * the command in process) the built entry script is started, as worker
+ * threads start the built model (workerModelUrl).
+ */
+function modelLauncher(): string[] {
+  const [node, script] = currentLauncher();
+  return [node, import.meta.url.endsWith('.ts') ? script.replace(/src\/cli\/main\.js$/, 'dist/src/cli/main.js') : script];
+}
+
 /** A parser for an option that takes a whole number (>= 0). */
 function wholeNumber(option: string): (text: string) => number {
   return (text) => {
@@ -67,6 +80,48 @@ function parsePart(text: string): number {
 }
 
 /**
+ * The models of a configuration fitted side by side (fitSideBySide), each in
+ * a process of its own. First stop signal: every model is told to stop and
+ * write its checkpoint, chains and summaries; a second one ends the models
+ * at once (see SideBySideRequest.leave) and this process by the system's
+ * default action, as in a fit in turn.
+ */
+async function fitModelsSideBySide(configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean }, plan: SideBySidePlan): Promise<void> {
+  const quiet = Boolean(options.quiet);
+  const stop = new AbortController();
+  const leave = new AbortController();
+  const onSignal = (signal: NodeJS.Signals) => {
+    if (!stop.signal.aborted) {
+      stop.abort(signal);
+      if (!quiet) process.stderr.write(`\n${signal}: stopping every model; each writes its checkpoint, chains and summaries so far (send it again to leave at once)\n`);
+      return;
+    }
+    for (const name of STOP_SIGNALS) process.off(name, onSignal);
+    leave.abort(signal);
+    process.kill(process.pid, signal);
+  };
+  for (const name of STOP_SIGNALS) process.on(name, onSignal);
+  try {
+    const outcome = await fitSideBySide({
+      configPath, outDir: options.out, force: options.force, resume: options.resume, workers: options.workers, quiet, launcher: modelLauncher(),
+      stop: stop.signal, leave: leave.signal, onLine: (line) => process.stderr.write(`${line}\n`), onReport: (_label, text) => process.stdout.write(text),
+    }, plan);
+    const named = (state: string) => outcome.models.filter((model) => model.state === state).map((model) => model.label);
+    const [failed, interrupted, waiting] = [named('failed'), named('interrupted'), named('not_started')];
+    if (failed.length > 0) {
+      process.stderr.write(`failed: ${failed.join(', ')} (the lines above say why)${waiting.length ? `; not started: ${waiting.join(', ')}` : ''}\n`);
+    } else if (outcome.exitCode === EXIT_INTERRUPTED) {
+      process.stderr.write(`interrupted: ${interrupted.length ? `${interrupted.join(', ')} wrote their checkpoints and the chains so far` : 'no model had started'}${waiting.length ? `; not started: ${waiting.join(', ')}` : ''}; continue with the same command and --resume\n`);
+    } else if (stop.signal.aborted && !quiet) {
+      process.stderr.write('the signal came after the sampling had finished: the run is complete\n');
+    }
+    process.exitCode = outcome.exitCode;
+  } finally {
+    for (const name of STOP_SIGNALS) process.off(name, onSignal);
+  }
+}
+
+/**
  * `candela fit CONFIG`: samples the posterior of every model in the
  * configuration, proves convergence, writes the run folders.
  */
@@ -81,6 +136,7 @@ export function registerFitCommand(program: Command): void {
     .option('--workers <n>', 'worker threads (replaces sampler.workers)', (text) => Number.parseInt(text, 10))
     .option('--quiet', 'print nothing but errors')
     .option('--model <label>', 'fit only the model with this label (its folder and chains are those of a full run)')
+    .option('--in-turn', 'fit the models one after another, each with every worker thread (default: with two threads or more, several models at once, each with its share)')
     .option('--part <index>', 'run only part I = model index x ensembles + ensemble, into <out>/parts/<model>/ensemble-<k>', parsePart)
     .option('--plan <scheduler>', 'write a job-array plan for a cluster scheduler instead of sampling (slurm)')
     .option('--steps-per-part <n>', 'with --plan or --part: the step count every part runs to (default sampler.max_steps; a part never stops early on its own diagnostics)', wholeNumber('--steps-per-part'))
@@ -90,8 +146,8 @@ export function registerFitCommand(program: Command): void {
     .option('--part-minutes <n>', 'with --plan: time limit of each part in minutes (default sampler.max_minutes x 1.1 + 10)', wholeNumber('--part-minutes'))
     .option('--stop-warning <seconds>', 'with --plan: Slurm sends SIGTERM this long before the time limit; the part writes its checkpoint and stops (default 600)', wholeNumber('--stop-warning'))
     .option('--node-binary <path>', 'with --plan: the node the cluster starts candela with (default: the node running this command)')
-    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n  candela fit configs/demo.yaml --out out/demo --plan slurm --steps-per-part 8000 --cluster-queue short --part-memory 4G\n  candela fit configs/demo.yaml --out out/demo --part 3\n\nCtrl-C writes a checkpoint, the chains and the summaries so far (candela report draws the figures); --resume continues the run.\n')
-    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string; model?: string;
+    .addHelpText('after', '\nExamples:\n  candela fit configs/demo.yaml --out out/demo\n  candela fit configs/demo.yaml --out out/demo --resume\n  candela fit configs/demo.yaml --out out/demo --plan slurm --steps-per-part 8000 --cluster-queue short --part-memory 4G\n  candela fit configs/demo.yaml --out out/demo --part 3\n\nWith two worker threads or more (--workers, sampler.workers), the models of a configuration are fitted several at once, each with its share of the threads and the same chains; --in-turn fits them one after another.\nCtrl-C writes a checkpoint, the chains and the summaries so far (candela report draws the figures); --resume continues the run.\n')
+    .action(async (configPath: string, options: { out?: string; force?: boolean; resume?: boolean; workers?: number; quiet?: boolean; part?: number; plan?: string; model?: string; inTurn?: boolean;
       stepsPerPart?: number; clusterAccount?: string; clusterQueue?: string; partMemory?: string; partMinutes?: number; stopWarning?: number; nodeBinary?: string }) => {
       if (options.plan !== undefined) {
         if (options.plan !== 'slurm') throw new CandelaError({ code: 'fit.unknown_plan', path: '--plan', message: 'this scheduler is not supported', expected: 'slurm', found: options.plan, fix: closestWord(options.plan, ['slurm']) ? 'did you mean "slurm"?' : 'write --plan slurm (the only scheduler candela plans for)' });
@@ -111,6 +167,8 @@ export function registerFitCommand(program: Command): void {
       const planOnly = PLAN_OPTIONS.filter((key) => options[key] !== undefined);
       if (planOnly.length > 0) throw new CandelaError({ code: 'fit.option_needs_plan', path: optionName(planOnly[0]), message: `${planOnly.map(optionName).join(', ')} describe${planOnly.length === 1 ? 's' : ''} the jobs of a cluster plan`, fix: 'add --plan slurm, or drop the option' });
       if (options.stepsPerPart !== undefined && options.part === undefined) throw new CandelaError({ code: 'fit.option_needs_part', path: '--steps-per-part', message: '--steps-per-part sets the length of a part; a whole fit stops on sampler.max_steps and its targets', fix: 'add --part I, or set sampler.max_steps' });
+      const sideBySide = options.inTurn ? null : sideBySidePlanFor({ configPath, workers: options.workers, model: options.model, part: options.part });
+      if (sideBySide) return fitModelsSideBySide(configPath, options, sideBySide);
       const controller = new AbortController();
       // First signal: stop sampling, write the checkpoint, the chains and the summaries so far. Then the handlers are removed, so a
       // second signal ends the process at once by the system's default action, even in the middle of writing the
