@@ -2,14 +2,14 @@ import { existsSync, readFileSync, unlinkSync } from 'node:fs';
 import { join } from 'node:path';
 import { loadConfigFile } from '../../config/index.js';
 import { CandelaError } from '../../errors.js';
-import { blindingRunIdentity, RUN_FILES, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
-import { buildModel } from '../run/buildModel.js';
+import { blindingRunIdentity, readChainRecordDraws, RUN_FILES, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
+import { BLOB_FIRST_DERIVED, buildModel } from '../run/buildModel.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import type { StoredRunRecord } from '../run/runFiles.js';
+import { locateBestSample } from '../run/runRecord.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
-import { bestDraw, chainRecordDraws } from './chainRecordDraws.js';
 import type { BlindableRecord, RunBlindingSection } from './runBlinding.js';
 
 /** What `candela unblind` did. */
@@ -47,8 +47,8 @@ function readRecord(dir: string): StoredRunRecord & BlindableRecord {
  * @param now the time to record (default the clock).
  * @returns what was unblinded.
  * @throws CandelaError `run.no_record`; `blinding.not_blinded` (never blinded, with the fix), `blinding.already_unblinded` (with its time);
- *   `blinding.missing_key`, `blinding.damaged_key`, `blinding.foreign_key`; `blinding.nested_unsupported`; the errors of loadConfigFile,
- *   loadSupernovae, buildModel and chainRecordDraws.
+ *   `blinding.missing_key`, `blinding.damaged_key`, `blinding.foreign_key`; the errors of loadConfigFile,
+ *   loadSupernovae, buildModel and readChainRecordDraws.
  * @example unblindRun('out/demo-blinded').parameters // ['omega_m', 'w0', 'wa']
  */
 export function unblindRun(runDir: string, now: Date = new Date()): UnblindOutcome {
@@ -69,13 +69,15 @@ export function unblindRun(runDir: string, now: Date = new Date()): UnblindOutco
   const config = loadConfigFile(join(runDir, RUN_FILES.resolvedConfig));
   const modelIndex = config.models.findIndex((model) => model.label === record.model.label);
   const model = buildModel(config, modelIndex, loadSupernovae(config));
-  const ensembles = chainRecordDraws(runDir, record);
+  const { steps, walkers, ensembles: ensembleCount } = record.run;
+  const shape = { ensembles: ensembleCount, walkers, dimension: record.parameters.sampled.length, blobCount: BLOB_FIRST_DERIVED + record.parameters.derived.length };
+  const ensembles = readChainRecordDraws(runDir, shape, steps);
   const burnInSteps = record.run.burn_in_steps;
   const names = record.parameters.sampled.map((entry) => entry.name);
   const selection = record.chains_csv;
   writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: names, derived: record.parameters.derived }, ensembles, burnInSteps, undefined, selection);
   writeHubbleFiles(runDir, model, ensembles, burnInSteps, record.run.seed);
-  const theta = bestDraw(ensembles, burnInSteps);
+  const { theta } = locateBestSample(ensembles, burnInSteps); // the fit's search: its best fit bit for bit
   const trueBest = Object.fromEntries(names.map((name, d) => [name, theta[d]]));
   const restored = { ...record.best_fit.parameters };
   for (const name of section.parameters) restored[name] = trueBest[name];
