@@ -1,3 +1,5 @@
+/** Steps a trace has room for when created; its buffer doubles from there up to its capacity. */
+const INITIAL_TRACE_STEPS = 64;
 /** Fewest steps a thinned trace keeps before it halves (so that the diagnostics always see some hundreds of draws per walker). */
 export const MINIMUM_TRACE_STEPS = 512;
 /**
@@ -52,22 +54,23 @@ export function traceCapacitySteps(walkers: number, ensembles: number, dimension
  * anyway) they barely change, and beyond it the ESS they report is that of
  * the thinned draws, an underestimate (conservative for a stopping rule).
  *
- * Memory: capacitySteps x walkers x dimension numbers, fixed at creation.
- * Cost of `append`: O(walkers x dimension), plus O(capacity) once per doubling.
+ * Memory: at most capacitySteps x walkers x dimension numbers; the buffer
+ * starts small and doubles as steps arrive, so a short run holds little.
+ * Cost of `append`: O(walkers x dimension) amortized, plus O(capacity) once per halving.
  * @example
  * const trace = new ThinnedTrace(8, 2, 4);
  * for (let s = 0; s < 9; s++) trace.append(walkerPositions); // keeps steps 0..3, then 0, 2, 4, 6, then 0, 4, 8
  * trace.view().stride // 4
  */
 export class ThinnedTrace {
-  private readonly data: Float64Array;
+  private data: Float64Array;
   private kept = 0;
   private stride = 1;
   private seen = 0;
 
   constructor(readonly walkers: number, readonly dimension: number, readonly capacitySteps: number) {
     if (!Number.isInteger(capacitySteps) || capacitySteps < 2 || capacitySteps % 2 !== 0) throw new RangeError(`trace capacity must be an even integer >= 2, got ${capacitySteps}`);
-    this.data = new Float64Array(capacitySteps * walkers * dimension);
+    this.data = new Float64Array(Math.min(capacitySteps, INITIAL_TRACE_STEPS) * walkers * dimension);
   }
 
   /** Steps offered to the trace so far (the sampler's stored steps). */
@@ -83,6 +86,11 @@ export class ThinnedTrace {
     if (this.kept === this.capacitySteps) this.halve();
     if (step % this.stride !== 0) return;
     const size = this.walkers * this.dimension;
+    if ((this.kept + 1) * size > this.data.length) {
+      const grown = new Float64Array(Math.min(this.capacitySteps, 2 * (this.data.length / size)) * size);
+      grown.set(this.data.subarray(0, this.kept * size));
+      this.data = grown;
+    }
     this.data.set(positions.subarray(0, size), this.kept * size);
     this.kept += 1;
   }

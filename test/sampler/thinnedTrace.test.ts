@@ -34,6 +34,18 @@ describe('ThinnedTrace', () => {
     }
   });
 
+  it('keeps the same steps when its buffer starts small and grows (capacity 200 over 1,000 steps)', () => {
+    const trace = new ThinnedTrace(2, 1, 200);
+    for (let s = 0; s < 1000; s++) {
+      trace.append(Float64Array.of(value(s, 0, 0), value(s, 1, 0)));
+      if (![63, 64, 127, 199, 200, 201, 999].includes(s)) continue;
+      const stride = expectedStride(s + 1, 200);
+      const view = trace.view();
+      const expected = Array.from({ length: Math.ceil((s + 1) / stride) }, (_, j) => [value(j * stride, 0, 0), value(j * stride, 1, 0)]).flat();
+      expect([view.stride, Array.from(view.positions)], `${s + 1} steps`).toEqual([stride, expected]);
+    }
+  });
+
   it('holds every step (stride 1) up to its capacity, so diagnostics then see the whole chain', () => {
     const trace = new ThinnedTrace(1, 1, 8);
     for (let s = 0; s < 8; s++) trace.append(Float64Array.of(s));
