@@ -27,7 +27,9 @@ export interface BudgetFigureOptions {
 const BAR_PX = 7;
 const ROW_GAP_PX = 8;
 /** Space between the two panels (px), the right margin (px) and the room for x tick labels and titles (px). */
-const PANEL_GAP_PX = 18;
+const PANEL_GAP_PX = 22;
+/** A tick label centred closer than this to the edge the panels share is left out, so the two panels' labels never meet (px). */
+const SHARED_EDGE_CLEARANCE_PX = 16;
 const RIGHT_MARGIN_PX = 14;
 const TOP_MARGIN_PX = 10;
 const BOTTOM_MARGIN_PX = 44;
@@ -82,8 +84,10 @@ export function budgetFigure(table: BudgetTable, options: BudgetFigureOptions = 
     const xScale = createAxisScale('linear', barDomain(bars), [frame.leftPx, frame.leftPx + frame.widthPx]);
     body.push(clippedGroup(frame, drawBars(bars, xScale, yScale, p)));
     const ticks = niceTicks(xScale.domain[0], xScale.domain[1], 5);
+    const sharedEdge = k === 0 ? frame.leftPx + frame.widthPx : frame.leftPx;
+    const shown = ticks.values.filter((value) => Math.abs(xScale.toPx(value) - sharedEdge) >= SHARED_EDGE_CLEARANCE_PX);
     const categories = table.rows.map((_, i) => i + 0.5);
-    body.push(drawAxes(frame, { scale: xScale, ticks: ticks.values, tickLabels: ticks.values.map((v) => formatTickLabel(v, ticks.decimals)), label },
+    body.push(drawAxes(frame, { scale: xScale, ticks: shown, tickLabels: shown.map((v) => formatTickLabel(v, ticks.decimals)), label },
       { scale: yScale, ticks: categories, ...(k === 0 ? { tickLabels: labels.map(escapeRichText) } : {}) }));
   });
   body.push(legendStrip(entries, leftPx, TOP_MARGIN_PX + panelHeight + BOTTOM_MARGIN_PX, widthPx - leftPx - RIGHT_MARGIN_PX).svg);
