@@ -51,3 +51,5 @@ export type { CompressedCmbDistances } from './compressedCmbDistances.js';
 export { DERIVED_PARAMETER_MEANINGS } from './derivedParameters.js';
 export type { DerivedModel } from './derivedParameters.js';
 export { createDerivedParameters } from './derivedParameters.js';
+// Supernova magnitudes and H0: M at another H0 giving the same magnitudes.
+export { absoluteMagnitudeAtH0 } from './absoluteMagnitudeAtH0.js';

@@ -22,6 +22,8 @@ export { subsetCovariance } from './subsetCovariance.js';
 export { checkPositiveDefinite } from './checkPositiveDefinite.js';
 export { readMeasurementCovariance } from './readMeasurementCovariance.js';
 export { readTextLines } from './readTextLines.js';
+// redshift lists (candela distances --z-file)
+export { readRedshiftFile } from './readRedshiftFile.js';
 // cuts and joining
 export { applyCuts } from './applyCuts.js';
 export type { CutOptions } from './applyCuts.js';
@@ -35,3 +37,4 @@ export { concatenateTables } from './concatenateTables.js';
 export { readSystematicModes } from './readSystematicModes.js';
 export type { SystematicModeReadOptions } from './readSystematicModes.js';
 export { subsetSystematicModes } from './subsetSystematicModes.js';
+export { appendModeColumns } from './appendModeColumns.js';

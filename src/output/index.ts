@@ -158,3 +158,37 @@ export { budgetJson } from './budget/budgetJson.js';
 export { budgetFigure } from './budget/budgetFigure.js';
 export type { BudgetFigureOptions } from './budget/budgetFigure.js';
 export type { BudgetTable, BudgetTableRow } from './budget/budgetTable.js';
+export { budgetTableFromJson } from './budget/budgetTableFromJson.js';
+export type { ReportBudget } from './report/budgetSection.js';
+
+// Tables a command prints: the distance table (text, JSON, CSV) and the Fisher forecast (text, JSON).
+export type { DistanceTableFacts } from './tables/distanceTableFacts.js';
+export type { DistanceTableRow } from './tables/distanceTableFacts.js';
+export { distanceTableText } from './tables/distanceTableText.js';
+export { distanceTableJson } from './tables/distanceTableJson.js';
+export { distanceTableCsv } from './tables/distanceTableCsv.js';
+export type { ForecastFacts } from './forecast/forecastFacts.js';
+export type { ForecastModelFacts } from './forecast/forecastFacts.js';
+export { forecastText } from './forecast/forecastText.js';
+export { forecastJson } from './forecast/forecastJson.js';
+
+// Cluster plans: the Slurm job-array and merge scripts (bash text).
+export type { SlurmScriptInput } from './cluster/slurmScripts.js';
+export { slurmBatchScript } from './cluster/slurmScripts.js';
+export { slurmMergeScript } from './cluster/slurmScripts.js';
+export { shellQuote } from './cluster/slurmScripts.js';
+export { slurmTimeLimit } from './cluster/slurmScripts.js';
+export { MERGE_TIME_MINUTES } from './cluster/slurmScripts.js';
+
+// Mock surveys: the table CSV, the systematics (covariance text, modes CSV), truth.json.
+export { MOCK_TABLE_COLUMNS } from './mock/mockTableCsv.js';
+export type { MockTableFacts } from './mock/mockTableCsv.js';
+export { mockTableCsv } from './mock/mockTableCsv.js';
+export { hostLogMassAsWritten } from './mock/mockTableCsv.js';
+export type { ModeColumns } from './mock/systematicsText.js';
+export { covarianceMatrixText } from './mock/systematicsText.js';
+export { systematicModesCsv } from './mock/systematicsText.js';
+export type { MockSurveyFacts, MockSampleFacts, MockTruthFacts } from './mock/mockTruthJson.js';
+export { mockTruthJson } from './mock/mockTruthJson.js';
+export type { MockSurveyFiles, MockSurveyFilesInput } from './mock/mockSurveyFiles.js';
+export { mockSurveyFiles } from './mock/mockSurveyFiles.js';

@@ -6,7 +6,7 @@ import { writeFileAtomic } from '../../output/index.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import { locatePart, partCount } from './slurmPart.js';
 import { resolveClusterResources, type ClusterResourceRequest, type ClusterResources } from './slurmResources.js';
-import { shellQuote, slurmBatchScript, slurmMergeScript, type SlurmScriptInput } from './slurmScripts.js';
+import { shellQuote, slurmBatchScript, slurmMergeScript, type SlurmScriptInput } from '../../output/index.js';
 
 /** CPUs per array task when sampler.workers is `auto` (a part is small; two threads keep one ensemble's half-steps busy; common practice). */
 export const DEFAULT_CPUS_PER_PART = 2;

@@ -1,5 +1,4 @@
 import { CandelaError, type Issue } from '../../errors.js';
-import { partTimeMinutes } from './slurmScripts.js';
 
 /**
  * What a cluster plan asks the scheduler for, and how long each part samples.
@@ -29,6 +28,22 @@ export interface ClusterResources {
   partMinutes: number;
   stopWarningSeconds: number;
   stepsPerPart: number;
+}
+
+/** Extra wall time granted to a part beyond sampler.max_minutes, as a fraction of it: data loading and the walker search before sampling. */
+export const PART_TIME_MARGIN_FRACTION = 0.1;
+/** Extra minutes granted to a part beyond sampler.max_minutes: the final diagnostics, figures and report page. */
+export const PART_TIME_MARGIN_MINUTES = 10;
+
+/**
+ * Time limit of one part: max_minutes plus the margins of PART_TIME_MARGIN_FRACTION and PART_TIME_MARGIN_MINUTES, minutes.
+ * @param maxMinutes sampler.max_minutes.
+ * @returns minutes, rounded up.
+ * @throws nothing.
+ * @example partTimeMinutes(60) // 76
+ */
+export function partTimeMinutes(maxMinutes: number): number {
+  return Math.ceil(maxMinutes * (1 + PART_TIME_MARGIN_FRACTION) + PART_TIME_MARGIN_MINUTES);
 }
 
 /** Default seconds of warning before a part's time limit: enough to write the checkpoint, chains and figures of a large run (common practice: minutes, not seconds). */

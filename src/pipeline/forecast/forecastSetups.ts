@@ -1,41 +1,27 @@
 import type { CandelaConfig, PriorSpec, SurveyDescription, SurveyTruth } from '../../config/index.js';
+import type { FisherParameter, FisherSetup } from '../../forecast/index.js';
 import { parametersForModel } from '../../config/index.js';
 import { parameterRank, parseParameterName } from '../../parameters/index.js';
-import type { DarkEnergyLaw } from '../../cosmology/index.js';
+import { absoluteMagnitudeAtH0 } from '../../cosmology/index.js';
 import { CandelaError } from '../../errors.js';
 import { termStandardization } from '../run/termStandardization.js';
-import type { SupernovaTermOptions } from '../../likelihood/index.js';
 
 /** Relative difference below which a fixed value counts as equal to the truth (rounding of a value typed in two files). */
 const SAME_VALUE_TOLERANCE = 1e-9;
 
-/** One free parameter of a forecast: its value at the truth and its prior, if it has one. */
-export interface ForecastParameter {
-  name: string;
-  /** The truth (abs_mag shifted to the fixed h0, see forecastSetups). */
-  value: number;
-  /** The prior from the fit configuration, or null (default setup, or a marginalized offset). */
-  prior: PriorSpec | null;
-}
-
-/** The likelihood and parameter set of one forecast (one model). */
-export interface ForecastSetup {
-  label: string;
-  darkEnergy: DarkEnergyLaw;
-  flat: boolean;
-  radiation: boolean;
-  standardization: SupernovaTermOptions['standardization'];
-  free: ForecastParameter[];
-  /** Values held fixed, by parameter name. */
-  fixed: Record<string, number>;
+/**
+ * The likelihood and parameter set of one forecast (one model) as the Fisher
+ * numerics take it (FisherSetup: free parameters at the truth, abs_mag
+ * shifted to the fixed h0, their priors from the fit configuration or none),
+ * plus the fiducial the model is forecast on.
+ */
+export interface ForecastSetup extends FisherSetup {
   /**
    * The model's fiducial: the survey truth with the model's dark-energy law,
    * curvature and fixed values substituted. Its noise-free survey is what the
    * model is forecast on (the survey truth itself whenever the model contains it).
    */
   fiducial: SurveyTruth;
-  /** What the reader of the forecast should know (differences from the truth, changed settings). */
-  notes: string[];
 }
 
 /**
@@ -135,7 +121,7 @@ export function forecastSetups(survey: SurveyDescription, config: CandelaConfig 
 /** The survey truth with a model's law, curvature, free-parameter truths and fixed values. */
 function fiducialTruth(
   survey: SurveyDescription, model: CandelaConfig['models'][number], step: CandelaConfig['standardization']['hostMassStep'],
-  free: readonly ForecastParameter[], fixed: Record<string, number>,
+  free: readonly FisherParameter[], fixed: Record<string, number>,
 ): SurveyTruth {
   const truth = survey.truth;
   const point: Record<string, number> = { ...fixed };
@@ -160,7 +146,7 @@ function fiducialTruth(
 
 /**
  * The truth of a parameter, by name, or null when the survey has none.
- * abs_mag refers to H0 = `h0`: M + 5 log10(h0 / h0_true).
+ * abs_mag refers to H0 = `h0` (absoluteMagnitudeAtH0 of the truth).
  */
 function truthValue(survey: SurveyDescription, name: string, h0: number): number | null {
   const t = survey.truth;
@@ -173,7 +159,7 @@ function truthValue(survey: SurveyDescription, name: string, h0: number): number
     case 'h0': return t.h0KmPerSPerMpc;
     case 'alpha': return t.alpha;
     case 'beta': return t.beta;
-    case 'abs_mag': return t.absMagMag + 5 * Math.log10(h0 / t.h0KmPerSPerMpc);
+    case 'abs_mag': return absoluteMagnitudeAtH0(t.absMagMag, t.h0KmPerSPerMpc, h0);
     case 'mass_step': return t.massStepMag;
     case 'sigma_int': return t.sigmaIntMag;
     default: return null;

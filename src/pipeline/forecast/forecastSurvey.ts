@@ -2,8 +2,9 @@ import { readConfigFile } from '../../config/index.js';
 import type { CandelaConfig } from '../../config/index.js';
 import { CandelaError } from '../../errors.js';
 import type { Issue } from '../../errors.js';
-import { fisherForecast } from './forecastFisher.js';
-import type { ModelForecast } from './forecastFisher.js';
+import { fisherForecast } from '../../forecast/index.js';
+import type { ModelForecast } from '../../forecast/index.js';
+import type { ForecastFacts } from '../../output/index.js';
 import { forecastSetups } from './forecastSetups.js';
 import type { ForecastSetup } from './forecastSetups.js';
 import { drawSurvey, loadSurvey } from '../simulate/simulateSurvey.js';
@@ -18,21 +19,11 @@ export interface ForecastRequest {
   seed?: string;
 }
 
-/** The forecast of every model, with what it was computed from. */
-export interface ForecastResult {
-  surveyFile: string;
-  title: string;
-  seed: number | string;
-  supernovae: number;
-  /** Supernovae per sample label. */
-  samples: Record<string, number>;
-  /** The fit configuration followed, as given, or null. */
-  fitConfig: string | null;
+/** The forecast of every model, with what it was computed from (the facts the output layer prints, plus the warnings). */
+export interface ForecastResult extends ForecastFacts {
   models: ModelForecast[];
   /** Problems that did not stop the forecast (survey and configuration warnings). */
   warnings: Issue[];
-  /** Wall-clock time, s. */
-  wallSeconds: number;
 }
 
 /**

@@ -1,21 +1,16 @@
-import { parseParameterName } from '../../parameters/index.js';
-import type { CovarianceMatrix } from '../../data/index.js';
-import { CandelaError } from '../../errors.js';
-import { createSupernovaTerm } from '../../likelihood/index.js';
-import type { SupernovaTermOptions } from '../../likelihood/index.js';
-import type { MockSurvey } from '../../mock/index.js';
-import { covariancePart } from '../../forecast/index.js';
-import { centralDifferenceHessian } from '../../forecast/index.js';
-import { marginalizeFisher } from '../../forecast/index.js';
-import type { FisherMarginals } from '../../forecast/index.js';
-import type { ForecastSetup } from './forecastSetups.js';
-import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES } from '../../cosmology/index.js';
+import { parseParameterName } from '../parameters/index.js';
+import type { CovarianceMatrix, SupernovaTable, SystematicModes } from '../data/index.js';
+import { CandelaError } from '../errors.js';
+import { createSupernovaTerm } from '../likelihood/index.js';
+import type { Prior, SupernovaTermOptions } from '../likelihood/index.js';
+import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES } from '../cosmology/index.js';
+import type { DarkEnergyLaw } from '../cosmology/index.js';
+import { covariancePart } from './forecastCovariancePart.js';
+import { centralDifferenceHessian } from './forecastHessian.js';
+import { chooseFisherSteps } from './fisherSteps.js';
+import { marginalizeFisher } from './forecastMarginals.js';
+import type { FisherMarginals } from './forecastMarginals.js';
 
-/**
- * Pilot step of the finite differences, relative to max(1, |value|): only
- * sets the scale of the final step (F_ii to ~1e-8).
- */
-export const PILOT_RELATIVE_STEP = 1e-4;
 /**
  * Final step of parameter i: this fraction of its conditional error
  * 1/sqrt(F_ii) from the pilot pass. The truncation error of central
@@ -28,10 +23,43 @@ export const PILOT_RELATIVE_STEP = 1e-4;
  */
 export const STEP_FRACTION_OF_SIGMA = 1e-3;
 
+/** One free parameter of a Fisher forecast: its value at the evaluation point and its prior, if it has one. */
+export interface FisherParameter {
+  name: string;
+  /** The value the derivatives are taken at, in the parameter's units. */
+  value: number;
+  /** Its prior, or null (flat); a Gaussian adds 1/sd^2 to the diagonal, bounds only give notes. */
+  prior: Prior | null;
+}
+
+/** The likelihood and parameter set of one forecast (one model); plain values, no configuration types. */
+export interface FisherSetup {
+  label: string;
+  darkEnergy: DarkEnergyLaw;
+  flat: boolean;
+  /** Photons (T_CMB 2.7255 K) and massless neutrinos on. */
+  radiation: boolean;
+  standardization: SupernovaTermOptions['standardization'];
+  free: readonly FisherParameter[];
+  /** Values held fixed, by parameter name. */
+  fixed: Record<string, number>;
+  /** What the reader of the forecast should know; copied to the result. */
+  notes: readonly string[];
+}
+
+/** The expected (noise-free) data a forecast is computed on: a mock survey's table and systematics. */
+export interface FisherData {
+  table: SupernovaTable;
+  /** Dense systematic covariance on the magnitudes (N x N, mag^2), or null. */
+  systematicCovariance: Float64Array | null;
+  /** The systematics as modes U (N x K, mag), used when there is no dense matrix; or null. */
+  systematicModes: SystematicModes | null;
+}
+
 /** The forecast of one model. */
 export interface ModelForecast {
   label: string;
-  darkEnergy: ForecastSetup['darkEnergy'];
+  darkEnergy: DarkEnergyLaw;
   flat: boolean;
   /** Free parameters, in matrix order. */
   parameters: string[];
@@ -68,7 +96,7 @@ export interface ModelForecast {
  * its value at the truth: on expected data the residual vanishes at the truth,
  * so this curvature equals mu_,i^T C^-1 mu_,j exactly. It is computed by
  * central differences (centralDifferenceHessian) of chi^2/2 with step rule: a
- * pilot pass with h = PILOT_RELATIVE_STEP max(1, |theta_i|) gives F_ii, then
+ * pilot pass with h = PILOT_RELATIVE_STEP max(1, |theta_i|) (see chooseFisherSteps) gives F_ii, then
  * h_i = stepFraction / sqrt(F_ii); stability is checked by halving every
  * step. The second part is added for parameters that change the variances
  * (alpha and beta when the covariance follows them, sigma_int),
@@ -83,12 +111,12 @@ export interface ModelForecast {
  * part is needed; modes: O(N K^2) per evaluation and for the covariance
  * part, no N x N matrix; none: O(N) per evaluation.
  * @param setup the model, free parameters with their truths, fixed values, standardization.
- * @param mock the noise-free survey (generateMockSurvey with noiseless).
+ * @param mock the noise-free survey (a mock survey drawn with noiseless: its table and systematics).
  * @param stepFraction the final steps as a fraction of the conditional errors (default STEP_FRACTION_OF_SIGMA).
  * @throws CandelaError when the likelihood is not finite near the truth, a parameter carries no information, or F is degenerate.
- * @example fisherForecast(forecastSetups(survey, null, labels)[0], drawSurvey(survey, '1', true)).marginals.figureOfMerit
+ * @example fisherForecast(setup, generateMockSurvey({ ...options, noiseless: true })).marginals.figureOfMerit
  */
-export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFraction = STEP_FRACTION_OF_SIGMA): ModelForecast {
+export function fisherForecast(setup: FisherSetup, mock: FisherData, stepFraction = STEP_FRACTION_OF_SIGMA): ModelForecast {
   const { table } = mock;
   const n = table.count;
   // The survey's systematics as the fit would read them: the dense matrix ('matrix' form) or the modes ('modes' form).
@@ -120,7 +148,7 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFract
   const minusLogLikelihood = (theta: Float64Array): number => 0.5 * (meanTerm.bestFitExtras?.(meanValues(theta)).chi_square ?? Number.NaN);
   const reason = (theta: Float64Array): string | null => meanTerm.rejectionReason(meanValues(theta));
   const center = Float64Array.from(meanNames, (name) => atTruth[name]);
-  const steps = chooseSteps(minusLogLikelihood, center, meanNames, reason, stepFraction);
+  const steps = chooseFisherSteps(minusLogLikelihood, center, meanNames, reason, stepFraction);
   const halved = steps.map((h) => h / 2);
   const meanFisher = centralDifferenceHessian(minusLogLikelihood, center, steps, meanNames, reason);
   const meanFisherHalved = centralDifferenceHessian(minusLogLikelihood, center, halved, meanNames, reason);
@@ -156,35 +184,8 @@ export function fisherForecast(setup: ForecastSetup, mock: MockSurvey, stepFract
   };
 }
 
-/** The step rule: a pilot diagonal pass, then `stepFraction` of each conditional error. */
-function chooseSteps(
-  f: (theta: Float64Array) => number, center: Float64Array, names: readonly string[], reason: (theta: Float64Array) => string | null,
-  stepFraction: number,
-): Float64Array {
-  const pilot = Float64Array.from(center, (value) => PILOT_RELATIVE_STEP * Math.max(1, Math.abs(value)));
-  const steps = new Float64Array(center.length);
-  for (let i = 0; i < center.length; i++) {
-    const curvature = centralDifferenceHessian((x) => f(withOne(center, i, x[0])), Float64Array.of(center[i]), Float64Array.of(pilot[i]), [names[i]], (x) => reason(withOne(center, i, x[0])))[0];
-    if (!(curvature > 0)) {
-      throw new CandelaError({
-        code: 'forecast.unconstrained', path: names[i],
-        message: `the survey carries no information on ${names[i]} (curvature of ln L ${curvature.toPrecision(3)} at the truth)`,
-        fix: `fix ${names[i]} or give it a Gaussian prior in the fit configuration`,
-      });
-    }
-    steps[i] = stepFraction / Math.sqrt(curvature);
-  }
-  return steps;
-}
-
-function withOne(center: Float64Array, index: number, value: number): Float64Array {
-  const copy = Float64Array.from(center);
-  copy[index] = value;
-  return copy;
-}
-
 /** Notes for bounded priors that a +-2 sigma interval would cross (the fit is then prior-limited there). */
-function priorLimitNotes(setup: ForecastSetup, marginals: FisherMarginals): string[] {
+function priorLimitNotes(setup: FisherSetup, marginals: FisherMarginals): string[] {
   const notes: string[] = [];
   setup.free.forEach((p, i) => {
     const prior = p.prior;

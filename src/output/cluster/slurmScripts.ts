@@ -1,3 +1,5 @@
+import { RUN_FILES } from '../run/runFolder.js';
+
 /*
  * Text of the two scripts of a cluster plan: the Slurm batch script of the
  * job array (one task per part) and the merge script. Slurm reads its
@@ -17,10 +19,6 @@
  * checkpoint (the script passes --resume when one exists).
  */
 
-/** Extra wall time granted to a part beyond sampler.max_minutes, as a fraction of it: data loading and the walker search before sampling. */
-export const PART_TIME_MARGIN_FRACTION = 0.1;
-/** Extra minutes granted to a part beyond sampler.max_minutes: the final diagnostics, figures and report page. */
-export const PART_TIME_MARGIN_MINUTES = 10;
 /** Time limit of the merge job, minutes (it reads the parts, rediagnoses and redraws; no sampling). */
 export const MERGE_TIME_MINUTES = 60;
 
@@ -93,17 +91,6 @@ export function slurmTimeLimit(minutes: number): string {
   return days > 0 ? `${days}-${clock}` : clock;
 }
 
-/**
- * Time limit of one part: max_minutes plus the margins above, minutes.
- * @param maxMinutes sampler.max_minutes.
- * @returns minutes, rounded up.
- * @throws nothing.
- * @example partTimeMinutes(60) // 76
- */
-export function partTimeMinutes(maxMinutes: number): number {
-  return Math.ceil(maxMinutes * (1 + PART_TIME_MARGIN_FRACTION) + PART_TIME_MARGIN_MINUTES);
-}
-
 const quoteAll = (words: readonly string[]) => words.map(shellQuote).join(' ');
 
 /** The `#SBATCH` lines both jobs share: account, partition and memory, each only when given. */
@@ -158,7 +145,7 @@ export function slurmBatchScript(input: SlurmScriptInput): string {
     `steps="\${1:-${input.stepsPerPart}}"`,
     `folders=(${input.parts.map((part) => shellQuote(part.runDir)).join(' ')})`,
     'resume=\'\'',
-    'if [ -e "${folders[$SLURM_ARRAY_TASK_ID]}/checkpoint.bin" ]; then resume=--resume; fi',
+    `if [ -e "\${folders[$SLURM_ARRAY_TASK_ID]}/${RUN_FILES.checkpoint}" ]; then resume=--resume; fi`,
     command,
     '',
   ].join('\n');

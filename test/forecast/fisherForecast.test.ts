@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { parseConfigText, surveyFromText } from '../../../src/config/index.js';
-import type { SurveyDescription } from '../../../src/config/index.js';
-import { createSupernovaTerm } from '../../../src/likelihood/index.js';
-import { choleskyInPlace, choleskySolveInPlace } from '../../../src/math/index.js';
-import type { MockSurvey } from '../../../src/mock/index.js';
-import { drawSurvey } from '../../../src/pipeline/simulate/simulateSurvey.js';
-import { fisherForecast } from '../../../src/pipeline/forecast/forecastFisher.js';
-import { forecastSetups } from '../../../src/pipeline/forecast/forecastSetups.js';
-import { SMALL_SURVEY } from '../support/simulateSurveyText.js';
+import { parseConfigText, surveyFromText } from '../../src/config/index.js';
+import type { SurveyDescription } from '../../src/config/index.js';
+import { createSupernovaTerm } from '../../src/likelihood/index.js';
+import { choleskyInPlace, choleskySolveInPlace } from '../../src/math/index.js';
+import type { MockSurvey } from '../../src/mock/index.js';
+import { drawSurvey } from '../../src/pipeline/simulate/simulateSurvey.js';
+import { fisherForecast } from '../../src/forecast/index.js';
+import { forecastSetups } from '../../src/pipeline/forecast/forecastSetups.js';
+import { SMALL_SURVEY } from '../pipeline/support/simulateSurveyText.js';
 
 const SPEED_OF_LIGHT_KM_PER_S = 299792.458; // CODATA exact value
 
