@@ -1,10 +1,10 @@
 import { randomBytes } from 'node:crypto';
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync, linkSync, readFileSync, unlinkSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { CandelaConfig } from '../../config/index.js';
 import { createRandomStream, deriveSeed } from '../../math/index.js';
 import { blindingRunIdentity, drawBlindingOffsets, sealBlindingKey, unsealBlindingKey, writeFileAtomic } from '../../output/index.js';
-import { BLINDING_KEY_FILE } from './runBlinding.js';
+import { BLINDING_KEY_FILE, BLINDING_SALT_FILE } from './runBlinding.js';
 
 /** The blinding of one model's run: which parameters, their secret offsets and widths. */
 export interface RunBlinding {
@@ -24,9 +24,10 @@ const SALT_BYTES = 16;
  * deriveSeed(seed, 'blinding', salt), the salt being 128 random bits, so
  * that nobody can recompute them from the configuration; the model's are
  * sealed into the run folder's key file. The models of one configuration
- * share the salt (a sibling model folder's key gives it), so a parameter
- * gets the same offset in every model and their blinded posteriors can be
- * compared with each other. A run that is resumed keeps the key it has.
+ * share the salt (sealed in BLINDING_SALT_FILE beside their folders), so a
+ * parameter gets the same offset in every model and their blinded
+ * posteriors can be compared with each other. A run that is resumed keeps
+ * the key it has.
  * Cost: one small file read or write.
  * @param config the configuration (its `blinding` block).
  * @param modelLabel the model's label.
@@ -52,7 +53,7 @@ export function prepareRunBlinding(config: CandelaConfig, modelLabel: string, sa
     lines.push(`blinding: ${parameters.join(', ')} shown as true value + the secret offsets of ${keyPath}`);
     return { blinding: { parameters, offsets: key.offsets, widths: key.widths }, lines };
   }
-  const secret = salt ?? siblingSalt(config, modelLabel, runDir) ?? randomBytes(SALT_BYTES).toString('hex');
+  const secret = salt ?? (config.models.length > 1 ? sharedSalt(config, dirname(runDir)) : randomBytes(SALT_BYTES).toString('hex'));
   const every = drawBlindingOffsets(config.blinding.offsetWidths, createRandomStream(deriveSeed(config.seed, 'blinding', secret)));
   const offsets = Object.fromEntries(parameters.map((name) => [name, every[name]]));
   writeFileAtomic(keyPath, sealBlindingKey({ identity, offsets, widths, salt: secret }));
@@ -61,22 +62,32 @@ export function prepareRunBlinding(config: CandelaConfig, modelLabel: string, sa
 }
 
 /**
- * The salt of another model of the same configuration already blinded: its
- * folder beside this one (the layout of several models, runFolderFor) holds a
- * whole key sealed for the same seed and its own label. Null when none.
+ * The salt every model of a configuration with several models shares, kept
+ * sealed in BLINDING_SALT_FILE beside their run folders. The models may start
+ * at once (fitted side by side, in separate processes): the first to arrive
+ * publishes its salt by a hard link (atomic; a later one finds the file
+ * complete), the others read it. A file sealed for another seed or list of
+ * parameters is replaced.
  */
-function siblingSalt(config: CandelaConfig, modelLabel: string, runDir: string): string | null {
-  if (config.models.length < 2) return null;
-  for (const model of config.models) {
-    if (model.label === modelLabel) continue;
-    const path = join(dirname(runDir), model.label, BLINDING_KEY_FILE);
-    if (!existsSync(path)) continue;
+function sharedSalt(config: CandelaConfig, baseDir: string): string {
+  const path = join(baseDir, BLINDING_SALT_FILE);
+  const identity = blindingRunIdentity(String(config.seed), '', config.blinding?.parameters ?? []);
+  const sealed = () => sealBlindingKey({ identity, offsets: {}, widths: {}, salt: randomBytes(SALT_BYTES).toString('hex') });
+  if (!existsSync(path)) {
+    const temporary = `${path}.${process.pid}.tmp`;
+    writeFileSync(temporary, sealed());
     try {
-      const key = unsealBlindingKey(readFileSync(path, 'utf8'), path);
-      if (key.identity === blindingRunIdentity(String(config.seed), model.label, Object.keys(key.widths))) return key.salt;
-    } catch {
-      // a damaged sibling key is that run's problem (its own commands report it); draw a salt of our own
+      linkSync(temporary, path);
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+    } finally {
+      unlinkSync(temporary);
     }
   }
-  return null;
+  try {
+    return unsealBlindingKey(readFileSync(path, 'utf8'), path, identity).salt;
+  } catch {
+    writeFileAtomic(path, sealed());
+    return unsealBlindingKey(readFileSync(path, 'utf8'), path, identity).salt;
+  }
 }

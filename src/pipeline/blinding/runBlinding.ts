@@ -8,6 +8,13 @@ import type { RunRecord } from '../run/runRecord.js';
 export const BLINDING_KEY_FILE = 'blinding.key';
 
 /**
+ * The sealed salt the models of one configuration share, in the folder that
+ * holds their run folders (configurations with several models only; removed
+ * when one of them is unblinded, since their offsets are then known).
+ */
+export const BLINDING_SALT_FILE = 'blinding-salt.key';
+
+/**
  * What a blinded run withholds (they would show the truth whatever the
  * offsets): every derived quantity, the model columns of the Hubble diagram
  * and its model curve, and the probes' data-versus-model files.

@@ -1,5 +1,5 @@
-import { existsSync, readFileSync, unlinkSync } from 'node:fs';
-import { join } from 'node:path';
+import { existsSync, readFileSync, rmSync, unlinkSync } from 'node:fs';
+import { dirname, join } from 'node:path';
 import { loadConfigFile } from '../../config/index.js';
 import { CandelaError } from '../../errors.js';
 import { blindingRunIdentity, readChainRecordDraws, RUN_FILES, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
@@ -10,7 +10,7 @@ import { locateBestSample } from '../run/runRecord.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
-import type { BlindableRecord, RunBlindingSection } from './runBlinding.js';
+import { BLINDING_SALT_FILE, type BlindableRecord, type RunBlindingSection } from './runBlinding.js';
 
 /** What `candela unblind` did. */
 export interface UnblindOutcome {
@@ -41,7 +41,8 @@ function readRecord(dir: string): StoredRunRecord & BlindableRecord {
  * figure (buildRunOutputs). The folder is then what an unblinded fit of the
  * same configuration and seed writes, byte for byte, except run.json's
  * `blinding` section (and the wall time, which differs between any two runs).
- * The key file is removed last.
+ * The key file is removed last, and with it the salt the models of a
+ * configuration share (BLINDING_SALT_FILE), which is no secret any more.
  * Cost: a model rebuild (the data read and the likelihood set up) plus buildRunOutputs.
  * @param runDir a run folder written by a blinded `candela fit`.
  * @param now the time to record (default the clock).
@@ -97,5 +98,7 @@ export function unblindRun(runDir: string, now: Date = new Date()): UnblindOutco
   writeResolvedConfig(runDir, { ...config, blinding: null, source: { ...config.source, file: { ...config.source.file, written: fitSource } } });
   buildRunOutputs([runDir], runDir);
   unlinkSync(keyPath);
+  // The models of the configuration share their offsets: once one is unblinded, their shared salt is no secret; a new fit draws another.
+  if (config.models.length > 1) rmSync(join(dirname(runDir), BLINDING_SALT_FILE), { force: true });
   return { runDir, parameters: [...section.parameters], unblindedAt };
 }

@@ -1,4 +1,4 @@
-import { mkdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { prepareRunBlinding } from '../../../src/pipeline/blinding/prepareRunBlinding.js';
@@ -57,7 +57,7 @@ describe('prepareRunBlinding', () => {
 });
 
 describe('prepareRunBlinding with several models', () => {
-  it('gives a parameter the same offset in every model of the configuration (the salt is shared through the sibling key)', () => {
+  it('gives a parameter the same offset in every model of the configuration (the salt is shared, sealed beside their folders)', () => {
     const two = configOf(`${VALID_MAGNITUDES.replace('models:\n  - label: flat_lcdm\n    dark_energy: lambda\n', 'models:\n  - { label: flat_lcdm, dark_energy: lambda }\n  - { label: flat_wcdm, dark_energy: constant_w }\n')}blinding: { parameters: [w0, omega_m] }\n`).config;
     expect(two.models.map((model) => model.label)).toEqual(['flat_lcdm', 'flat_wcdm']);
     const base = join(scratch, 'two');
@@ -65,6 +65,7 @@ describe('prepareRunBlinding with several models', () => {
     const lcdm = prepareRunBlinding(two, 'flat_lcdm', ['omega_m'], join(base, 'flat_lcdm')).blinding!;
     const wcdm = prepareRunBlinding(two, 'flat_wcdm', ['omega_m', 'w0'], join(base, 'flat_wcdm')).blinding!;
     expect(wcdm.offsets.omega_m).toBe(lcdm.offsets.omega_m);
+    expect(existsSync(join(base, 'blinding-salt.key'))).toBe(true);
     expect(Object.keys(wcdm.offsets)).toEqual(['omega_m', 'w0']);
     // A configuration with one model draws its own salt: another folder gets other offsets.
     const other = join(scratch, 'alone');
