@@ -1,7 +1,10 @@
+import { existsSync, statSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
+import { join } from 'node:path';
 import { loadConfigFile, type CandelaConfig } from '../../config/index.js';
 import { EXIT_BAD_INPUT, EXIT_INTERNAL } from '../../errors.js';
-import { writeFinalModelsIndex } from './finalModelsIndex.js';
+import { RUN_FILES } from '../../output/index.js';
+import { modelsPageIsCurrent, writeFinalModelsIndex, type OutputsWindow } from './finalModelsIndex.js';
 import { startModelProcess, type ModelProcess, type ModelProcessEnd } from './modelProcess.js';
 import { isFitInterrupted, runFit, runFolderFor } from './runFit.js';
 import { planSideBySide, type SideBySidePlan } from './sideBySidePlan.js';
@@ -115,7 +118,8 @@ async function checkBeforeFitting(request: SideBySideRequest): Promise<void> {
  * (configuration, data, every model, the run folders, emptied with `force`),
  * so bad input stops the fit before any model starts. When every model has
  * ended, the multi-model pages (index.html, models.tex) are written once
- * from the run folders.
+ * from the run folders, unless the page the models' processes left is
+ * already that (modelsPageIsCurrent: reading every folder back costs seconds).
  * @param request what to fit, the launcher, the stop signals and where lines go.
  * @param plan how many models run at once and their threads (sideBySidePlanFor).
  * @returns how each model ended and the exit code.
@@ -131,6 +135,7 @@ export async function fitSideBySide(request: SideBySideRequest, plan: SideBySide
   const even = threads.every((count) => count === threads[0]);
   if (!request.quiet) say(`${models.length} models side by side, ${plan.slots} at a time with ${even ? threads[0] : threads.join(', ')} worker thread${threads[0] === 1 && even ? '' : 's'} each (--in-turn fits them one after another with every thread)`);
   const running = new Map<number, ModelProcess>();
+  const windows: OutputsWindow[] = models.map(() => ({ finished: false, outputsFromMs: null, endedAtMs: 0 }));
   let failed = false;
   const stopping = () => Boolean(request.stop?.aborted);
   const reasonOf = (signal: AbortSignal): NodeJS.Signals => (signal.reason === 'SIGTERM' ? 'SIGTERM' : 'SIGINT');
@@ -150,12 +155,14 @@ export async function fitSideBySide(request: SideBySideRequest, plan: SideBySide
       const end = await child.ended;
       running.delete(index);
       settle(model, end, stopping());
+      const record = join(model.runDir, RUN_FILES.run);
+      windows[index] = { finished: model.state === 'finished', outputsFromMs: existsSync(record) ? statSync(record).mtimeMs : null, endedAtMs: Date.now() };
       if (end.stdout !== '') request.onReport?.(model.label, end.stdout);
       if (model.state === 'failed') failed = true;
     }
   };
   await Promise.all(threads.map((_, slot) => runSlot(slot)));
-  writeFinalModelsIndex(models.map((model) => model.runDir), request.outDir ?? config.output.dir.resolved);
+  if (!modelsPageIsCurrent(windows)) writeFinalModelsIndex(models.map((model) => model.runDir), request.outDir ?? config.output.dir.resolved);
   return { plan, models, exitCode: exitCodeOf(models) };
 }
 
