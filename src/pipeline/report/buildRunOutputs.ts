@@ -20,6 +20,7 @@ import { nestedReportFacts } from './nestedReportFacts.js';
 import { binResiduals } from '../../output/index.js';
 import { residualsFigureOfRun } from './residualsFigureOfRun.js';
 import { autocorrelationFigureOfRun } from './autocorrelationFigureOfRun.js';
+import { storedBudget } from '../budget/storedBudget.js';
 import { stringify } from 'yaml';
 import { PARAMETERS, parameterRank, parseParameterName } from '../../parameters/index.js';
 
@@ -228,6 +229,7 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutp
     configurationYaml: stringify(run.record.configuration),
     inputFiles: reportInputFiles(run),
     warnings: analysis.warnings,
+    budget: storedBudget(run.dir),
   }));
   if (resolve(outDir) === resolve(run.dir)) refreshModelsIndex(run, analysis);
   return analysis;
