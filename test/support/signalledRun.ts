@@ -8,13 +8,16 @@ import { decodeBinaryState } from '../../src/output/run/binaryState.js';
 /** The built command line (npm run build writes it). */
 export const CANDELA_COMMAND = resolve('dist/src/cli/main.js');
 
+/** The line a fit prints when a signal has stopped its sampling: an ensemble run, one still placing its walkers, or nested sampling. */
+const STOP_LINE = /stopped at step \d+ on the signal|interrupted while the walkers|nested sampling stopped on the signal/g;
+
 /** What an interrupted process did, times in seconds after the first signal (null when no signal was sent). */
 export interface Finished {
   code: number | null;
   killedBy: NodeJS.Signals | null;
   stderr: string;
   secondsAfterSignal: number | null;
-  /** The first "stopped at step N on the signal" (or start-up interrupt) line. */
+  /** The first "stopped at step N on the signal" (or start-up or nested-sampling interrupt) line. */
   secondsToStop: number | null;
   /** Every such line, in the order they came. */
   secondsToEachStop: number[];
@@ -34,9 +37,9 @@ export function runAndSignal(args: string[], signals: NodeJS.Signals[], ready: (
     let sentAt: number | null = null;
     const stops: number[] = [];
     child.stderr.on('data', (chunk) => {
-      const before = (stderr.match(/stopped at step \d+ on the signal|interrupted while the walkers/g) ?? []).length;
+      const before = (stderr.match(STOP_LINE) ?? []).length;
       stderr += String(chunk);
-      const after = (stderr.match(/stopped at step \d+ on the signal|interrupted while the walkers/g) ?? []).length;
+      const after = (stderr.match(STOP_LINE) ?? []).length;
       for (let k = before; k < after; k++) stops.push(Date.now());
     });
     const poll = setInterval(() => {

@@ -1,4 +1,3 @@
-import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -6,6 +5,7 @@ import { runNestedSampling } from '../../../src/sampler/index.js';
 import { isRunInterrupted } from '../../../src/pipeline/fit/interruptibleEvaluator.js';
 import { runNestedInSlices } from '../../../src/pipeline/fit/runNestedInSlices.js';
 import { pantheonBinnedConfig } from '../../support/pantheonBinnedConfig.js';
+import { CANDELA_COMMAND, runAndSignal } from '../../support/signalledRun.js';
 
 // Nested sampling under SIGINT and SIGTERM. The run is sliced so that the event loop turns about every 100 ms, which
 // must change nothing in its result; a real `candela fit` process (the built command, dist/) in its own process
@@ -13,7 +13,6 @@ import { pantheonBinnedConfig } from '../../support/pantheonBinnedConfig.js';
 // sampling cannot resume, and leave no file that could pass for a finished run. Data: the Pantheon 2018 binned
 // Hubble diagram (../shared/data-real/pantheon2018, Scolnic et al. 2018).
 const scratch = resolve('.candela-tmp/nested-signals');
-const command = resolve('dist/src/cli/main.js');
 /** Longest wait from the signal to the "stopped on the signal" line, s: the requirement on interrupts. */
 const STOP_DELAY_SECONDS = 1;
 /** Longest wait from the signal to the exit, s (nothing is written; the allowance is for a loaded machine, as in fitSignals.test.ts). */
@@ -56,34 +55,18 @@ describe('runNestedInSlices', () => {
   });
 });
 
-interface Finished { code: number | null; killedBy: NodeJS.Signals | null; stderr: string; secondsToStop: number | null; secondsToExit: number | null }
-
-/** Spawns `candela fit` detached and sends `signal` to its process group SIGNAL_AFTER_MS after the nested sampling is announced. */
-function fitAndSignal(config: string, signal: NodeJS.Signals): Promise<Finished> {
-  return new Promise((done, reject) => {
-    const child = spawn(process.execPath, [command, 'fit', config], { detached: true, stdio: ['ignore', 'ignore', 'pipe'] });
-    let stderr = '';
-    let sentAt: number | null = null;
-    let stoppedAt: number | null = null;
-    child.stderr.on('data', (chunk) => {
-      const announced = stderr.includes('nested sampling with');
-      stderr += String(chunk);
-      if (!announced && stderr.includes('nested sampling with')) {
-        setTimeout(() => { sentAt = Date.now(); process.kill(-(child.pid as number), signal); }, SIGNAL_AFTER_MS);
-      }
-      if (stoppedAt === null && /stopped on the signal/.test(stderr)) stoppedAt = Date.now();
-    });
-    child.on('error', reject);
-    child.on('exit', (code, killedBy) => {
-      const since = (time: number | null) => (sentAt === null || time === null ? null : (time - sentAt) / 1000);
-      done({ code, killedBy, stderr, secondsToStop: since(stoppedAt), secondsToExit: since(Date.now()) });
-    });
-  });
+/** Ready for the signal SIGNAL_AFTER_MS after the fit announced its nested sampling (the run then lasts seconds more). */
+function nestedSamplingUnderway(): (stderr: string) => boolean {
+  let announcedAt: number | null = null;
+  return (stderr) => {
+    if (announcedAt === null && stderr.includes('nested sampling with')) announcedAt = Date.now();
+    return announcedAt !== null && Date.now() - announcedAt >= SIGNAL_AFTER_MS;
+  };
 }
 
 describe('candela fit with nested sampling under SIGINT and SIGTERM', () => {
   it.each(['SIGINT', 'SIGTERM'] as const)('%s: stops within a second, exits 130, says it cannot resume and leaves no run files', async (signal) => {
-    if (!existsSync(command)) throw new Error(`build first (npm run build): ${command} is missing`);
+    if (!existsSync(CANDELA_COMMAND)) throw new Error(`build first (npm run build): ${CANDELA_COMMAND} is missing`);
     const runDir = join(scratch, signal);
     const config = join(scratch, `${signal}.yaml`);
     writeFileSync(config, pantheonBinnedConfig({
@@ -93,13 +76,13 @@ describe('candela fit with nested sampling under SIGINT and SIGTERM', () => {
       sampler: '{ method: nested, nested: { live_points: 2000, max_unexplored_ln_z: 0.01 } }',
       output: `{ dir: ${runDir}, figures: [], png: false }`,
     }));
-    const finished = await fitAndSignal(config, signal);
+    const finished = await runAndSignal(['fit', config], [signal], nestedSamplingUnderway());
     expect(finished.killedBy, finished.stderr).toBeNull();
     expect(finished.code, finished.stderr).toBe(130);
     expect(finished.secondsToStop, finished.stderr).not.toBeNull();
     expect(finished.secondsToStop as number).toBeLessThan(STOP_DELAY_SECONDS);
-    expect(finished.secondsToExit as number).toBeLessThan(EXIT_DELAY_SECONDS);
-    console.info(`nested ${signal}: sampling stopped ${(finished.secondsToStop as number).toFixed(2)} s and the process exited ${(finished.secondsToExit as number).toFixed(2)} s after the signal`);
+    expect(finished.secondsAfterSignal as number).toBeLessThan(EXIT_DELAY_SECONDS);
+    console.info(`nested ${signal}: sampling stopped ${(finished.secondsToStop as number).toFixed(2)} s and the process exited ${(finished.secondsAfterSignal as number).toFixed(2)} s after the signal`);
     expect(finished.stderr).toMatch(/cannot resume/);
     expect(finished.stderr).not.toMatch(/internal error/);
     expect(existsSync(runDir) ? readdirSync(runDir) : []).toEqual([]);
