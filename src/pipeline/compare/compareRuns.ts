@@ -124,6 +124,7 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
     : writeDarkEnergyFigures(runs, rebuilt, baseIndex, request.outDir, { png, seed });
   warnings.push(...figures.skipped.map((reason) => `figure not drawn: ${reason}`));
   const marks = comparisonBlindingMarks(runs.map(({ run }) => run.record));
+  if (marks.notice) warnings.unshift(marks.notice); // printed first by the command, and kept in comparison.json
   const document = marks.document(comparisonDocument({
     runs, models, pairs, comparison: report.comparison, changedInputs, warnings,
     figures: figures.written.flatMap((stem) => (png ? [`${stem}.svg`, `${stem}.png`] : [`${stem}.svg`])),

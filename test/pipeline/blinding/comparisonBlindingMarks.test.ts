@@ -48,6 +48,7 @@ describe('compareRuns with blinded runs', () => {
       { model: 'flat_lcdm', parameters: ['omega_m'] }, { model: 'flat_wcdm', parameters: ['omega_m', 'w0'] },
     ]);
     expect(JSON.stringify(plain.document)).not.toContain('BLINDED');
+    expect(blind.warnings[0]).toMatch(/^BLINDED: flat_lcdm \(omega_m\); flat_wcdm \(omega_m, w0\)/);
     // The models index beside the two run folders (written by the fit) says so in its title.
     expect(readFileSync(join(scratch, 'blind', 'index.html'), 'utf8')).toContain('blinded compare (BLINDED)');
     expect(readFileSync(join(scratch, 'plain', 'index.html'), 'utf8')).not.toContain('BLINDED');
@@ -85,6 +86,7 @@ describe('compareRuns with blinded runs', () => {
 describe('comparisonBlindingMarks', () => {
   it('changes nothing when no run is blinded', () => {
     const marks = comparisonBlindingMarks([{ model: { label: 'a' } }, { model: { label: 'b' }, blinding: { state: 'unblinded', parameters: ['w0'], offset_widths: {}, key_file: 'blinding.key', withheld: [], unblinded_at: 'then' } }]);
+    expect(marks.notice).toBeNull();
     expect(marks.markdown('x')).toBe('x');
     expect(marks.latex('y')).toBe('y');
     const document = { a: 1 };
