@@ -8,6 +8,7 @@
 //   simulate/   candela simulate
 //   cluster/    candela fit --plan slurm / --part, candela merge
 //   budget/     candela budget: the systematic budget of a run, by reweighting its chains
+//   blinding/   blinded runs: their offsets and key, the blinded view every command reads, candela unblind
 //   check/, distances/, standardize/   the commands of the same names
 export {};
 export { checkConfiguration } from './check/checkConfiguration.js';
