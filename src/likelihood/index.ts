@@ -8,6 +8,8 @@ export { priorCumulative } from './priorCumulative.js';
 export { priorQuantile } from './priorQuantile.js';
 export { samplePrior } from './samplePrior.js';
 export { validatePrior } from './validatePrior.js';
+export { priorSearchStep } from './priorSearchStep.js';
+export { PRIOR_SPREAD_DRAWS, SEARCH_STEP_FRACTION, SMALLEST_SEARCH_STEP } from './priorSearchStep.js';
 // posterior
 export type { ParameterValues } from './likelihoodTerm.js';
 export type { LikelihoodTerm } from './likelihoodTerm.js';

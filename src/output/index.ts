@@ -171,6 +171,8 @@ export type { ForecastFacts } from './forecast/forecastFacts.js';
 export type { ForecastModelFacts } from './forecast/forecastFacts.js';
 export { forecastText } from './forecast/forecastText.js';
 export { forecastJson } from './forecast/forecastJson.js';
+export type { LatentColumns } from './tables/latentColumnsCsv.js';
+export { appendLatentColumns } from './tables/latentColumnsCsv.js';
 
 // Cluster plans: the Slurm job-array and merge scripts (bash text).
 export type { SlurmScriptInput } from './cluster/slurmScripts.js';

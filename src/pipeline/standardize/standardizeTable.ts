@@ -1,7 +1,8 @@
 import { loadConfigFile } from '../../config/index.js';
 import { CandelaError, type Issue } from '../../errors.js';
 import { closestWord, createRandomStream, deriveSeed } from '../../math/index.js';
-import { samplePrior } from '../../likelihood/index.js';
+import { priorSearchStep, samplePrior } from '../../likelihood/index.js';
+import { appendLatentColumns } from '../../output/index.js';
 import { createInProcessEvaluator, locatePosteriorMode } from '../../sampler/index.js';
 import { buildModel } from '../run/buildModel.js';
 import { hubbleDiagramCsv } from '../report/hubbleFiles.js';
@@ -68,11 +69,7 @@ export async function standardizeTable(configPath: string, given: Record<string,
     };
     const evaluator = createInProcessEvaluator(sub);
     const starts = Array.from({ length: SEARCH_STARTS }, () => Float64Array.from(fittedIndices, (index) => samplePrior(model.priors[index].prior, random)));
-    const steps = fittedIndices.map((index) => {
-      const values = Array.from({ length: 50 }, () => samplePrior(model.priors[index].prior, random));
-      const mean = values.reduce((a, b) => a + b, 0) / values.length;
-      return Math.max(1e-3, 0.1 * Math.sqrt(values.reduce((a, b) => a + (b - mean) ** 2, 0) / values.length));
-    });
+    const steps = fittedIndices.map((index) => priorSearchStep(model.priors[index].prior, random));
     const mode = await locatePosteriorMode(evaluator, starts, steps, SEARCH_EVALUATIONS_PER_PARAMETER * fittedIndices.length);
     if (!Number.isFinite(mode.logProb)) {
       throw new CandelaError({ code: 'standardize.no_best_fit', message: 'no parameter values with a finite posterior were found', fix: 'give values with --at or widen the priors' });
@@ -87,16 +84,8 @@ export async function standardizeTable(configPath: string, given: Record<string,
   if (!supernovae) throw new CandelaError({ code: 'standardize.no_supernovae', path: 'supernovae', message: 'the configuration has no supernovae to standardize (probes only)', fix: 'add a supernovae block, or use fit for a probes-only run' });
   const diagram = supernovae.hubbleDiagram(values);
   const extras = supernovae.bestFitExtras?.(values) ?? {};
-  let csv = hubbleDiagramCsv(diagram, model.samples);
-  if ('latentEstimates' in supernovae) {
-    // Hierarchical standardization: append the posterior mean and sd of each supernova's true x1 and c.
-    const latent = supernovae.latentEstimates(values);
-    const lines = csv.trimEnd().split('\n');
-    lines[0] += ',x1_latent,x1_latent_sd,color_latent,color_latent_sd';
-    for (let i = 1; i < lines.length; i++) {
-      lines[i] += `,${latent.stretchMean[i - 1]},${latent.stretchSd[i - 1]},${latent.colorMeanMag[i - 1]},${latent.colorSdMag[i - 1]}`;
-    }
-    csv = `${lines.join('\n')}\n`;
-  }
+  const table = hubbleDiagramCsv(diagram, model.samples);
+  // Hierarchical standardization: the posterior mean and sd of each supernova's true x1 and c as four more columns.
+  const csv = 'latentEstimates' in supernovae ? appendLatentColumns(table, supernovae.latentEstimates(values)) : table;
   return { csv, values, fitted: fittedIndices.map((i) => names[i]), chiSquare: extras.chi_square ?? null, model: model.label };
 }
