@@ -16,5 +16,5 @@ export const BLINDED_MARK = 'BLINDED';
  */
 export function blindingNotice(parameters: readonly string[]): string {
   const verb = parameters.length === 1 ? 'is' : 'are';
-  return `${BLINDED_MARK}: ${parameters.join(', ')} ${verb} shown as true value + a secret offset (derived quantities, the Hubble-diagram model curve and probe model curves are withheld); \`candela unblind RUN\` shows the true values.`;
+  return `${BLINDED_MARK}: ${parameters.join(', ')} ${verb} shown as true value + a secret offset (derived quantities, the Hubble-diagram model curve and probe model curves are withheld); candela unblind RUN shows the true values.`;
 }

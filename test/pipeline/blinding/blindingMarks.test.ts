@@ -10,7 +10,7 @@ const table = '% Posterior summary\n\\begin{tabular}{lccc}\n\\hline\nrow \\\\\n\
 describe('blindingMarks', () => {
   it('marks every kind of page of a blinded run', () => {
     const marks = blindingMarks({ blinding: section('blinded') });
-    expect(marks.markdown('# Summary\n')).toBe('> BLINDED: omega_m, w0 are shown as true value + a secret offset (derived quantities, the Hubble-diagram model curve and probe model curves are withheld); `candela unblind RUN` shows the true values.\n\n# Summary\n');
+    expect(marks.markdown('# Summary\n')).toBe('> BLINDED: omega_m, w0 are shown as true value + a secret offset (derived quantities, the Hubble-diagram model curve and probe model curves are withheld); candela unblind RUN shows the true values.\n\n# Summary\n');
     expect(marks.title('Run — flat_wcdm')).toBe('Run — flat_wcdm (BLINDED)');
     expect(marks.summaryJson({ schema: 's' })).toMatchObject({ schema: 's', blinding: { state: 'blinded', parameters: ['omega_m', 'w0'] } });
     const latex = marks.latex(table);
