@@ -1,9 +1,9 @@
 import { spawn } from 'node:child_process';
-import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runFit } from '../../../src/pipeline/index.js';
-import { decodeBinaryState } from '../../../src/output/run/binaryState.js';
+import { CANDELA_COMMAND, checkpointStep, runAndSignal, stepsInRunRecord, temporaryFiles } from '../../support/signalledRun.js';
 import { pantheonBinnedConfig } from '../../support/pantheonBinnedConfig.js';
 
 // Signals sent to a real `candela fit` process (the built command, dist/), in its own process group as a terminal
@@ -11,7 +11,7 @@ import { pantheonBinnedConfig } from '../../support/pantheonBinnedConfig.js';
 // outputs, and `--resume` must then give the chains of an uninterrupted run byte for byte. The data are the Pantheon
 // 2018 binned Hubble diagram (../shared/data-real/pantheon2018, Scolnic et al. 2018); the fits are short on purpose.
 const scratch = resolve('.candela-tmp/fit-signals');
-const command = resolve('dist/src/cli/main.js');
+const command = CANDELA_COMMAND;
 /** Longest wait from the signal to the sampler having stopped (the run's "stopped at step" line), s: the requirement on interrupts. */
 const STOP_DELAY_SECONDS = 1;
 /**
@@ -41,54 +41,6 @@ function writeConfig(name: string, stop: Stop, workers: number): string {
   const path = join(scratch, `${name}.yaml`);
   writeFileSync(path, configText(name, stop, workers));
   return path;
-}
-
-interface Finished { code: number | null; killedBy: NodeJS.Signals | null; stderr: string; secondsAfterSignal: number | null; secondsToStop: number | null }
-
-/**
- * Spawns `candela fit` detached (its own process group) and sends `signals` to the whole group once `ready()` holds
- * (polled every 10 ms), the second one `gapMs` after the first.
- */
-function runAndSignal(args: string[], signals: NodeJS.Signals[], ready: (stderr: string) => boolean, gapMs = 0): Promise<Finished> {
-  return new Promise((resolvePromise, reject) => {
-    const child = spawn(process.execPath, [command, ...args], { detached: true, stdio: ['ignore', 'ignore', 'pipe'] });
-    let stderr = '';
-    let sentAt: number | null = null;
-    let stoppedAt: number | null = null;
-    child.stderr.on('data', (chunk) => {
-      stderr += String(chunk);
-      if (stoppedAt === null && /stopped at step \d+ on the signal|interrupted while the walkers/.test(stderr)) stoppedAt = Date.now();
-    });
-    const poll = setInterval(() => {
-      if (sentAt !== null || signals.length === 0 || !ready(stderr)) return;
-      sentAt = Date.now();
-      clearInterval(poll);
-      process.kill(-(child.pid as number), signals[0]);
-      if (signals[1]) setTimeout(() => { try { process.kill(-(child.pid as number), signals[1]); } catch { /* already gone */ } }, gapMs);
-    }, 10);
-    child.on('error', reject);
-    child.on('exit', (code, killedBy) => {
-      clearInterval(poll);
-      const since = (time: number | null) => (sentAt === null || time === null ? null : (time - sentAt) / 1000);
-      resolvePromise({ code, killedBy, stderr, secondsAfterSignal: since(Date.now()), secondsToStop: since(stoppedAt) });
-    });
-  });
-}
-
-/** The step of the run folder's checkpoint, or -1 while there is none (a checkpoint is replaced by a rename, so it is read whole). */
-function checkpointStep(runDir: string): number {
-  const path = join(runDir, 'checkpoint.bin');
-  if (!existsSync(path)) return -1;
-  return decodeBinaryState<{ snapshot: { stepCount: number } }>(readFileSync(path)).snapshot.stepCount;
-}
-
-function stepsInRunRecord(runDir: string): number {
-  return (JSON.parse(readFileSync(join(runDir, 'run.json'), 'utf8')) as { run: { steps: number } }).run.steps;
-}
-
-function temporaryFiles(dir: string): string[] {
-  if (!existsSync(dir)) return [];
-  return readdirSync(dir, { recursive: true }).map(String).filter((name) => /\.tmp(-\d+)?$|tmp-\d+$/.test(name));
 }
 
 const reference: Record<Stop, Buffer> = {} as Record<Stop, Buffer>;
