@@ -1,5 +1,5 @@
 import { RELIABLE_STEPS_PER_TAU } from '../../diagnostics/index.js';
-import type { ConvergenceCheck, StoppingRule } from '../fit/samplingLoop.js';
+import { MAXIMUM_TAU_GROWTH, type ConvergenceCheck, type StoppingRule } from '../fit/samplingLoop.js';
 
 /**
  * Safety factor on the extrapolated step count: ESS grows only about linearly
@@ -85,6 +85,11 @@ export function judgeMergedRun(check: ConvergenceCheck, rule: StoppingRule, name
   if (tauSteps !== null && check.step < tauSteps) {
     shortfalls.push(`the chains are ${check.step} steps, shorter than ${RELIABLE_STEPS_PER_TAU} autocorrelation times (tau = ${(check.maxTau as number).toFixed(1)} steps)`);
   }
+  // The fourth: tau no longer grows with the chain (measured by checkConvergence once the others hold).
+  const tauGrowing = typeof check.tauGrowth === 'number' && check.tauGrowth > MAXIMUM_TAU_GROWTH;
+  if (tauGrowing) {
+    shortfalls.push(`tau still grows with the chain: ${(check.tauGrowth as number).toFixed(2)} times its value on the first half (at most ${MAXIMUM_TAU_GROWTH})`);
+  }
   const targetsMet = shortfalls.length === 0;
   for (const part of parts) {
     if (part.stepsTarget !== null && part.steps < part.stepsTarget) {
@@ -96,5 +101,6 @@ export function judgeMergedRun(check: ConvergenceCheck, rule: StoppingRule, name
   let suggested = check.burnInSteps + kept * essFactor * STEP_SUGGESTION_MARGIN;
   if (rhatFails) suggested = Math.max(suggested, 2 * check.step);
   if (tauSteps !== null) suggested = Math.max(suggested, tauSteps * STEP_SUGGESTION_MARGIN);
+  if (tauGrowing) suggested = Math.max(suggested, 2 * check.step);
   return { targetsMet, shortfalls, suggestedSteps: roundUp(Math.max(suggested, check.step + 1)) };
 }

@@ -62,4 +62,12 @@ describe('judgeMergedRun', () => {
     // max(200 + 800 x 1 x 1.5, 50 x 30 x 1.5) = 2250, rounded up to 2300
     expect(verdict.suggestedSteps).toBe(2300);
   });
+
+  it('fails a merged run whose tau still grows with the chain, and asks for twice the steps', () => {
+    const growing = { ...check(3000, 200, [{ essBulk: 2500, rhat: 1.004 }, { essBulk: 2100, rhat: 1.005 }], 40), tauGrowth: 1.6 };
+    const verdict = judgeMergedRun(growing, rule, names, fullParts);
+    expect(verdict.targetsMet).toBe(false);
+    expect(verdict.shortfalls).toEqual(['tau still grows with the chain: 1.60 times its value on the first half (at most 1.3)']);
+    expect(verdict.suggestedSteps).toBe(6000);
+  });
 });

@@ -232,7 +232,8 @@ describe.skipIf(distMissing !== null)(`a cluster run ${slurmMissing ? 'with the 
     const reference = candela(['fit', writeConfig('reference', `max_steps: ${suggested}, target_ess: 100000000`), '--out', referenceDir, '--quiet']);
     expect(reference.status, reference.stderr).toBe(0);
     const mergedChains = readFileSync(join(clusterDir, 'flat_wcdm', 'chains.csv'));
-    expect(mergedChains.length).toBeGreaterThan(suggested * WALKERS * 2 * 20);
+    // chains.csv keeps the steps after the burn-in, thinned to half a tau (output.chains default): still many rows.
+    expect(mergedChains.toString('utf8').trimEnd().split('\n').length).toBeGreaterThan(WALKERS * 2 * 10);
     expect(mergedChains.equals(readFileSync(join(referenceDir, 'chains.csv')))).toBe(true);
   }, SUITE_SECONDS * 1000);
 
