@@ -236,7 +236,13 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
       if (d?.tau && steps < RELIABLE_STEPS_PER_TAU * d.tau) converged = false;
       if (d?.tau && steps < RELIABLE_STEPS_PER_TAU * d.tau) warnings.push(runWarning('short_chain', name, `the chain of ${name} is ${steps} steps, shorter than ${RELIABLE_STEPS_PER_TAU} autocorrelation times (tau = ${d.tau.toFixed(1)} steps): the tau estimate and the diagnostics are less reliable`, { steps, tau: d.tau, minimum_steps_per_tau: RELIABLE_STEPS_PER_TAU }));
     }
-    if (!converged) warnings.push(runWarning('not_converged', null, `the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}, a chain of ${RELIABLE_STEPS_PER_TAU} tau) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`, { target_ess: record.run.target_ess, max_rhat: record.run.max_rhat }));
+    // ESS, R-hat and 50 tau met on the final chains, yet the sampling loop did not stop by its rule: its fourth
+    // condition (tau no longer growing with the chain, samplingLoop.MAXIMUM_TAU_GROWTH) did not hold at the last check.
+    const stoppedShort = ['max_steps', 'wall_time', 'interrupted'].includes(record.run.stop_reason);
+    if (converged && stoppedShort) {
+      converged = false;
+      warnings.push(runWarning('not_converged', null, `bulk ESS, R-hat and the chain length meet their targets, but the run stopped because of ${record.run.stop_reason} before its stopping rule held: at the last check the autocorrelation time was still growing with the chain (the walkers were still finding new parts of the posterior); continue it with --resume and a larger max_steps`, { target_ess: record.run.target_ess, max_rhat: record.run.max_rhat }));
+    } else if (!converged) warnings.push(runWarning('not_converged', null, `the stopping targets (bulk ESS >= ${record.run.target_ess}, R-hat <= ${record.run.max_rhat}, a chain of ${RELIABLE_STEPS_PER_TAU} tau) are not met for every sampled parameter; the run stopped because of ${record.run.stop_reason}`, { target_ess: record.run.target_ess, max_rhat: record.run.max_rhat }));
   } else {
     effectiveSampleSize = kishEffectiveCount(keptWeights ?? kept.length);
     converged = record.sampler?.stop === 'max_unexplored_ln_z';
