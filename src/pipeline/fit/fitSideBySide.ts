@@ -171,7 +171,8 @@ function settle(model: SideBySideModel, end: ModelProcessEnd, stopAsked: boolean
   model.exitCode = end.code;
   model.endSignal = end.signal;
   if (end.code === 0) model.state = 'finished';
-  else if (end.code === EXIT_INTERRUPTED || (stopAsked && (end.signal === 'SIGINT' || end.signal === 'SIGTERM'))) model.state = 'interrupted';
+  // After a stop signal, a process ended by a signal is one the stop reached before its handler was installed, or one a second signal ended (SIGKILL).
+  else if (end.code === EXIT_INTERRUPTED || (stopAsked && end.signal !== null)) model.state = 'interrupted';
   else model.state = 'failed';
 }
 

@@ -1,7 +1,7 @@
 import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runFit } from '../../../src/pipeline/index.js';
+import { fitSideBySide, runFit, type SideBySideRequest } from '../../../src/pipeline/index.js';
 import { pantheonBinnedConfig } from '../../support/pantheonBinnedConfig.js';
 import { runCommandLine } from '../../support/runCommandLine.js';
 import { CANDELA_COMMAND, checkpointStep, runAndSignal, stepsInRunRecord, temporaryFiles } from '../../support/signalledRun.js';
@@ -204,4 +204,79 @@ describe('candela fit with several models and two threads or more', () => {
       expect(readFileSync(join(out, label, 'chains.csv')).equals(readFileSync(join(referenceOf('max_steps'), label, 'chains.csv'))), label).toBe(true);
     }
   }, 120_000);
+});
+
+/**
+ * A stand-in for a model's process (node -e): it reads its label after --model and behaves as `behaviour[label]`
+ * says: ok (a line, then its report on standard output after 300 ms, exit 0), fail2 (an error line, exit 2), crash
+ * (ended by SIGKILL), hold (waits; a stop signal makes it say so and exit 130), deaf (waits and ignores stop signals).
+ */
+function standIn(behaviour: Record<string, 'ok' | 'fail2' | 'crash' | 'hold' | 'deaf'>): string[] {
+  const script = `const label = process.argv[process.argv.indexOf('--model') + 1];
+const how = ${JSON.stringify(behaviour)}[label];
+process.stderr.write('model ' + label + ': started with ' + process.argv.slice(process.argv.indexOf('--workers'), process.argv.indexOf('--workers') + 2).join(' ') + '\\n');
+if (how === 'ok') setTimeout(() => process.stdout.write('== ' + label + ': done\\n'), 300);
+if (how === 'fail2') { process.stderr.write('error: ' + label + ' cannot go on\\n'); process.exitCode = 2; }
+if (how === 'crash') process.kill(process.pid, 'SIGKILL');
+if (how === 'hold' || how === 'deaf') {
+  setInterval(() => undefined, 1000);
+  for (const name of ['SIGINT', 'SIGTERM']) process.on(name, () => { if (how === 'hold') { process.stderr.write(label + ' stopped on ' + name + '\\n'); process.exit(130); } });
+}`;
+  return [process.execPath, '-e', script];
+}
+
+describe('fitSideBySide (the conductor, with stand-in model processes)', () => {
+  const plan = { slots: 2, threadsPerSlot: [1, 1] };
+  const request = (name: string, launcher: string[], lines: string[]): SideBySideRequest => ({
+    configPath: CONFIGS.max_steps.path, outDir: join(scratch, name), launcher, onLine: (line) => lines.push(line),
+  });
+
+  it('starts no further model after one fails, lets the running one finish, and exits with the failure\'s code', async () => {
+    const lines: string[] = [];
+    const reports: string[] = [];
+    const outcome = await fitSideBySide({ ...request('stand-in-fail', standIn({ flat_lcdm: 'ok', flat_wcdm: 'fail2', curved_lcdm: 'ok' }), lines), onReport: (_label, text) => reports.push(text) }, plan);
+    expect(outcome.models.map((model) => model.state)).toEqual(['finished', 'failed', 'not_started']);
+    expect(outcome.exitCode).toBe(2);
+    expect(lines).toContain('[flat_wcdm] error: flat_wcdm cannot go on');
+    expect(lines).toContain('[flat_lcdm] model flat_lcdm: started with --workers 1');
+    expect(reports).toEqual(['== flat_lcdm: done\n']);
+  }, 60_000);
+
+  it('counts a model ended by a signal nobody sent as an internal failure (exit 1)', async () => {
+    const outcome = await fitSideBySide(request('stand-in-crash', standIn({ flat_lcdm: 'crash', flat_wcdm: 'ok', curved_lcdm: 'ok' }), []), plan);
+    expect(outcome.models.map((model) => model.state)).toEqual(['failed', 'finished', 'not_started']);
+    expect(outcome.models[0].endSignal).toBe('SIGKILL');
+    expect(outcome.exitCode).toBe(1);
+  }, 60_000);
+
+  it('passes a stop on to every running model once, starts no waiting one, and exits 130', async () => {
+    const lines: string[] = [];
+    const stop = new AbortController();
+    const running = fitSideBySide({ ...request('stand-in-stop', standIn({ flat_lcdm: 'hold', flat_wcdm: 'hold', curved_lcdm: 'ok' }), lines), stop: stop.signal }, plan);
+    while (lines.filter((line) => line.includes('started with')).length < 2) await new Promise((done) => setTimeout(done, 20));
+    await new Promise((done) => setTimeout(done, 200)); // their signal handlers are installed by now
+    stop.abort('SIGTERM');
+    const outcome = await running;
+    expect(outcome.models.map((model) => model.state)).toEqual(['interrupted', 'interrupted', 'not_started']);
+    expect(lines).toContain('[flat_lcdm] flat_lcdm stopped on SIGTERM');
+    expect(lines).toContain('[flat_wcdm] flat_wcdm stopped on SIGTERM');
+    expect(outcome.exitCode).toBe(130);
+  }, 60_000);
+
+  it('ends at once, on a second signal, a model that does not stop on the first', async () => {
+    const lines: string[] = [];
+    const stop = new AbortController();
+    const leave = new AbortController();
+    const running = fitSideBySide({ ...request('stand-in-leave', standIn({ flat_lcdm: 'deaf', flat_wcdm: 'deaf', curved_lcdm: 'ok' }), lines), stop: stop.signal, leave: leave.signal }, plan);
+    while (lines.filter((line) => line.includes('started with')).length < 2) await new Promise((done) => setTimeout(done, 20));
+    await new Promise((done) => setTimeout(done, 200));
+    stop.abort('SIGINT');
+    await new Promise((done) => setTimeout(done, 300));
+    const left = Date.now();
+    leave.abort('SIGINT');
+    const outcome = await running;
+    expect((Date.now() - left) / 1000).toBeLessThan(EXIT_DELAY_SECONDS);
+    expect(outcome.models.map((model) => [model.state, model.endSignal])).toEqual([['interrupted', 'SIGKILL'], ['interrupted', 'SIGKILL'], ['not_started', null]]);
+    expect(outcome.exitCode).toBe(130);
+  }, 60_000);
 });
