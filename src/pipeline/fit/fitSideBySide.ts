@@ -143,6 +143,7 @@ export async function fitSideBySide(request: SideBySideRequest, plan: SideBySide
   const stop = request.stop;
   stop?.addEventListener('abort', passOn(() => reasonOf(stop)), { once: true });
   request.leave?.addEventListener('abort', passOn(() => 'SIGKILL'), { once: true });
+  const warned = new Set<string>();
   let next = 0;
   const runSlot = async (slot: number): Promise<void> => {
     while (next < models.length && !stopping() && !failed) {
@@ -150,7 +151,14 @@ export async function fitSideBySide(request: SideBySideRequest, plan: SideBySide
       const model = models[index];
       const args = ['fit', request.configPath, '--model', model.label, '--workers', String(threads[slot]),
         ...(request.outDir !== undefined ? ['--out', request.outDir] : []), ...(request.resume ? ['--resume'] : []), ...(request.quiet ? ['--quiet'] : [])];
-      const child = startModelProcess(request.launcher, args, (line) => say(`[${model.label}] ${line}`));
+      const child = startModelProcess(request.launcher, args, (line) => {
+        // A warning about the shared inputs comes from every model word for word; a fit in turn prints each warning once.
+        if (/\bwarning\b/.test(line)) {
+          if (warned.has(line)) return;
+          warned.add(line);
+        }
+        say(`[${model.label}] ${line}`);
+      });
       running.set(index, child);
       const end = await child.ended;
       running.delete(index);

@@ -173,6 +173,8 @@ describe('candela fit with several models and two threads or more', () => {
     console.info(`${signal} to the ${toGroup ? 'group' : 'process'}: the models stopped ${interrupted.secondsToEachStop.map((s) => s.toFixed(2)).join(' and ')} s and the conductor exited ${(interrupted.secondsAfterSignal as number).toFixed(2)} s after the signal`);
     expect(interrupted.stderr).toMatch(/not started: curved_lcdm; continue with the same command and --resume/);
     expect(interrupted.stderr).not.toMatch(/internal error/);
+    // The data warning both models give (the table's header names a column its rows lack) is printed once, as in turn.
+    expect(interrupted.stderr.match(/the header names 19 columns/g), interrupted.stderr).toHaveLength(1);
     expect(temporaryFiles(out)).toEqual([]);
     for (const dir of dirs.slice(0, 2)) {
       expect(checkpointStep(dir)).toBe(stepsInRunRecord(dir));
