@@ -11,6 +11,7 @@ import { benchPoints, benchTerm } from '../../bench/support/benchTerm.js';
 import { benchSurvey, denseModeCovariance, modeCountFor } from '../../bench/support/syntheticSurvey.js';
 import { maxRowRelativeDifference, refactorizingCovariance } from '../../bench/factorization.js';
 import { choleskyInPlace, referenceCholeskyInPlace } from '../../src/math/index.js';
+import { benchHierarchicalPoints, benchHierarchicalTerm } from '../../bench/support/benchHierarchicalTerm.js';
 
 // Task contract: compressed >= 100x faster than general at N = 1,829 (README target); CI bound 20x.
 const COMPRESSED_SPEEDUP_BOUND = 20;
@@ -30,6 +31,12 @@ const TWO_WORKER_RATIO_BOUND = 1.25;
 const FACTORIZATION_SPEEDUP_BOUND = 3;
 const FACTORIZATION_AGREEMENT = 1e-10;
 const COUNT_740 = 740;
+// Task contract: the hierarchical standardization takes systematic modes through the Woodbury identity with no
+// 3N x 3N matrix (bench suite hierarchical: about 1,000x the dense path at N = 600 with 20 modes); CI bound 20x at
+// N = 300, same ln L to 1e-9 relative.
+const HIERARCHICAL_MODES_SPEEDUP_BOUND = 20;
+const HIERARCHICAL_AGREEMENT = 1e-9;
+const COUNT_300 = 300;
 /** Points per batch as the sampler sends them (half of 32 walkers in each of 4 ensembles); busy-model cost ~30 microseconds. */
 const BATCH_POINTS = 64;
 const BUSY_ROUNDS = 3000;
@@ -94,6 +101,22 @@ describe('benchmark ratios', () => {
     }
     const middle = (values: number[]): number => values.sort((a, b) => a - b)[2];
     expect(middle(slow) / middle(fast)).toBeGreaterThanOrEqual(FACTORIZATION_SPEEDUP_BOUND);
+  }, 60_000);
+
+  it('the hierarchical term with 20 systematic modes (Woodbury) is at least 20x faster than its dense 3N x 3N path at N = 300, same ln L to 1e-9', () => {
+    const survey = benchSurvey(COUNT_300, 20, `bench-hierarchical-${COUNT_300}`);
+    const modes = benchHierarchicalTerm(survey, [], { count: COUNT_300, modeCount: 20, values: survey.modes, sourceFile: 'bench modes' });
+    const dense = benchHierarchicalTerm(survey, [denseModeCovariance(survey)]);
+    const points = benchHierarchicalPoints(8, 'ci');
+    for (const p of points.slice(0, 3)) {
+      const a = modes.logLikelihood(p);
+      const b = dense.logLikelihood(p);
+      expect(Math.abs(a - b)).toBeLessThanOrEqual(HIERARCHICAL_AGREEMENT * Math.abs(b));
+    }
+    let next = 0;
+    const slow = timeCalls(() => dense.logLikelihood(points[next++ % points.length]), 1, 5);
+    const fast = timeCalls(() => modes.logLikelihood(points[next++ % points.length]), 50, 500);
+    expect(slow.medianMs / fast.medianMs).toBeGreaterThanOrEqual(HIERARCHICAL_MODES_SPEEDUP_BOUND);
   }, 60_000);
 
   it.skipIf(availableParallelism() < 2)('2 workers (this thread + 1 worker thread) evaluate batches at least 1.25x faster than 1, with identical results', async () => {
