@@ -40,6 +40,7 @@ export { sortSample } from './statistics/sortSample.js';
 export type { SortedSample } from './statistics/sortSample.js';
 export { weightedQuantileOfSorted, weightedQuantiles } from './statistics/weightedQuantile.js';
 export { quantileOfDraws, quantileOfSortedDraws } from './statistics/quantileOfDraws.js';
+export { curveQuantiles } from './statistics/curveQuantiles.js';
 
 // Kernel density estimates (one Gaussian-kernel estimator; the bandwidth rule is an option)
 export { kernelBandwidth } from './density/kernelBandwidth.js';
@@ -53,6 +54,7 @@ export { editDistance } from './text/editDistance.js';
 export { closestWord } from './text/closestWord.js';
 // Extent of an array; resampling weighted (nested) draws to equal weights.
 export { arrayExtent } from './arrayExtent.js';
+export { logSpacedGrid } from './logSpacedGrid.js';
 export { resampleRowsByWeight } from './nestedResampleRows.js';
 
 // Importance reweighting of one set of draws, and the systematic budget built on it.

@@ -173,6 +173,10 @@ export { forecastText } from './forecast/forecastText.js';
 export { forecastJson } from './forecast/forecastJson.js';
 export type { LatentColumns } from './tables/latentColumnsCsv.js';
 export { appendLatentColumns } from './tables/latentColumnsCsv.js';
+export type { HubbleDiagramColumns } from './tables/hubbleDiagramCsv.js';
+export { hubbleDiagramCsv } from './tables/hubbleDiagramCsv.js';
+export type { HubbleModelCurve } from './tables/hubbleModelCsv.js';
+export { hubbleModelCsv } from './tables/hubbleModelCsv.js';
 
 // Cluster plans: the Slurm job-array and merge scripts (bash text).
 export type { SlurmScriptInput } from './cluster/slurmScripts.js';

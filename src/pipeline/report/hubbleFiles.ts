@@ -1,9 +1,8 @@
 import { writeProbeDiagrams } from './probeDiagramFiles.js';
 import { join } from 'node:path';
 import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, cosmologyParametersFromValues, createCosmology } from '../../cosmology/index.js';
-import { createRandomStream, deriveSeed, quantileOfSortedDraws } from '../../math/index.js';
-import { writeFileAtomic } from '../../output/index.js';
-import type { HubbleDiagram } from '../../likelihood/index.js';
+import { createRandomStream, curveQuantiles, deriveSeed, logSpacedGrid } from '../../math/index.js';
+import { hubbleDiagramCsv, hubbleModelCsv, writeFileAtomic } from '../../output/index.js';
 import type { BuiltModel } from '../run/buildModel.js';
 import type { EnsembleDraws } from '../../output/index.js';
 import { arrayExtent } from '../../math/index.js';
@@ -13,26 +12,6 @@ import { RUN_FILES } from '../../output/index.js';
 const BAND_DRAWS = 200;
 /** Points of the model curve, log-spaced in redshift. */
 const CURVE_POINTS = 120;
-
-function csvNumber(value: number): string {
-  return Number.isFinite(value) ? String(value) : '';
-}
-
-/**
- * The Hubble-diagram table as CSV: id, sample, z, mu_obs, sigma_mu, mu_model,
- * residual, calibrator (1 for supernovae with an external distance), in mag.
- */
-export function hubbleDiagramCsv(diagram: HubbleDiagram, samples: readonly string[]): string {
-  const lines = ['id,sample,z,mu_obs,sigma_mu,mu_model,residual,calibrator'];
-  for (let i = 0; i < diagram.ids.length; i++) {
-    lines.push([
-      diagram.ids[i], samples[i], csvNumber(diagram.redshift[i]), csvNumber(diagram.distanceModulusMag[i]),
-      csvNumber(diagram.distanceModulusErrorMag[i]), csvNumber(diagram.modelDistanceModulusMag[i]), csvNumber(diagram.residualMag[i]),
-      diagram.isCalibrator[i] ? '1' : '0',
-    ].join(','));
-  }
-  return `${lines.join('\n')}\n`;
-}
 
 /**
  * Writes the two Hubble-diagram files of a run:
@@ -79,7 +58,7 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: E
   const [zLow, zHigh] = arrayExtent(diagram.redshift);
   const zMin = Math.max(1e-3, zLow * 0.9);
   const zMax = zHigh * 1.05;
-  const grid = Float64Array.from({ length: CURVE_POINTS }, (_, i) => zMin * (zMax / zMin) ** (i / (CURVE_POINTS - 1)));
+  const grid = logSpacedGrid(zMin, zMax, CURVE_POINTS);
   const family = {
     darkEnergy: model.cosmologyModel.darkEnergy, flat: model.cosmologyModel.flat,
     cmbTemperatureK: model.cosmologyModel.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES,
@@ -104,12 +83,7 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: E
     const out = new Float64Array(CURVE_POINTS);
     if (Number.isFinite(absMag) && curve(values, absMag - diagram.absoluteMagnitudeMag, out)) curves.push(out);
   }
-  const column = new Float64Array(curves.length);
-  const modelLines = ['z,mu_best,mu_median,mu_low68,mu_high68'];
-  for (let i = 0; i < CURVE_POINTS; i++) {
-    curves.forEach((c, k) => { column[k] = c[i]; });
-    column.sort();
-    modelLines.push([grid[i], bestCurve[i], quantileOfSortedDraws(column, 0.5), quantileOfSortedDraws(column, 0.158655), quantileOfSortedDraws(column, 0.841345)].map(csvNumber).join(','));
-  }
-  writeFileAtomic(join(runDir, RUN_FILES.hubbleModel), `${modelLines.join('\n')}\n`);
+  // Median and 68% equal-tailed band (cumulative 0.158655 and 0.841345) of the shifted curves.
+  const [medianMag, low68Mag, high68Mag] = curveQuantiles(curves, CURVE_POINTS, [0.5, 0.158655, 0.841345]);
+  writeFileAtomic(join(runDir, RUN_FILES.hubbleModel), hubbleModelCsv({ redshift: grid, bestMag: bestCurve, medianMag, low68Mag, high68Mag }));
 }

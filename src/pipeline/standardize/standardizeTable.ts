@@ -2,10 +2,9 @@ import { loadConfigFile } from '../../config/index.js';
 import { CandelaError, type Issue } from '../../errors.js';
 import { closestWord, createRandomStream, deriveSeed } from '../../math/index.js';
 import { priorSearchStep, samplePrior } from '../../likelihood/index.js';
-import { appendLatentColumns } from '../../output/index.js';
+import { appendLatentColumns, hubbleDiagramCsv } from '../../output/index.js';
 import { createInProcessEvaluator, locatePosteriorMode } from '../../sampler/index.js';
 import { buildModel } from '../run/buildModel.js';
-import { hubbleDiagramCsv } from '../report/hubbleFiles.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import { checkStandardizeBlinding } from '../blinding/checkStandardizeBlinding.js';
 
