@@ -198,3 +198,14 @@ export type { MockSurveyFacts, MockSampleFacts, MockTruthFacts } from './mock/mo
 export { mockTruthJson } from './mock/mockTruthJson.js';
 export type { MockSurveyFiles, MockSurveyFilesInput } from './mock/mockSurveyFiles.js';
 export { mockSurveyFiles } from './mock/mockSurveyFiles.js';
+
+// candela compare: comparison.json's document type and text, and the Markdown parts that follow the compare layer's tables.
+export { COMPARISON_SCHEMA } from './compare/comparisonJson.js';
+export type { ComparisonJson } from './compare/comparisonJson.js';
+export type { ComparisonModelJson } from './compare/comparisonJson.js';
+export type { ComparisonNestedPairJson } from './compare/comparisonJson.js';
+export type { ComparisonChangedInputJson } from './compare/comparisonJson.js';
+export type { SavageDickeyJson } from './compare/comparisonJson.js';
+export { comparisonJsonText } from './compare/comparisonJson.js';
+export { comparisonMarkdownDetails } from './compare/comparisonMarkdownDetails.js';
+export { dicMissingNotice } from './compare/comparisonMarkdownDetails.js';

@@ -1,10 +1,9 @@
 import type { ModelComparison } from '../../compare/index.js';
+import { COMPARISON_SCHEMA, type ComparisonJson, type SavageDickeyJson } from '../../output/index.js';
 import type { AnalyzedRun } from './compareInputs.js';
 import type { ComparedModel } from './compareModelRecord.js';
 import type { DetectedNestedPair, PairSavageDickey } from './compareNestedPairs.js';
 
-/** Version tag of comparison.json. */
-export const COMPARISON_SCHEMA = 'candela-comparison-1';
 
 /** What the comparison document is built from. */
 export interface ComparisonParts {
@@ -16,11 +15,6 @@ export interface ComparisonParts {
   warnings: string[];
   figures: string[];
 }
-
-/** The Savage-Dickey entry of a nested pair in comparison.json. */
-export type SavageDickeyJson =
-  | { log_bayes_factor_01: number; error: number; posterior_density: number; prior_density: number; effective_draws: number; draws_used: number; thinning_steps: number; bandwidth: number[]; reading: string | null }
-  | { unavailable: string };
 
 function finiteOrNull(value: number | null | undefined): number | null {
   return value === null || value === undefined || !Number.isFinite(value) ? null : value;
@@ -43,8 +37,8 @@ export function evidenceLogBayesFactor01(pair: DetectedNestedPair): { value: num
 }
 
 /**
- * comparison.json (schema {@link COMPARISON_SCHEMA}), snake_case like
- * summary.json: per model the run folder, sampler, N, k, chi-square and
+ * comparison.json's content (schema COMPARISON_SCHEMA, fields in
+ * output/compare/comparisonJson.ts) from the compare layer's result and the runs: per model the run folder, sampler, N, k, chi-square and
  * ln L at the best fit, AIC, BIC, DIC with p_D (or `dic_missing`: why there is none), ln Z with its error, ln B
  * against the base with its source and Kass & Raftery (1995) reading; per
  * nested pair the extra parameters and their fixed values, delta chi-square
@@ -59,7 +53,7 @@ export function evidenceLogBayesFactor01(pair: DetectedNestedPair): { value: num
  * @throws nothing.
  * @example JSON.stringify(comparisonDocument(parts), null, 2)
  */
-export function comparisonDocument(parts: ComparisonParts) {
+export function comparisonDocument(parts: ComparisonParts): ComparisonJson {
   const { comparison } = parts;
   const models = comparison.rows.map((row, k) => {
     const { run, analysis } = parts.runs[k];

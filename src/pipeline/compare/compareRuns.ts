@@ -3,11 +3,10 @@ import { join } from 'node:path';
 import { compareModels, type NestedModelPair } from '../../compare/index.js';
 import { CandelaError, isCandelaError } from '../../errors.js';
 import { closestWord } from '../../math/index.js';
-import { writeFileAtomic } from '../../output/index.js';
+import { comparisonJsonText, comparisonMarkdownDetails, dicMissingNotice, writeFileAtomic } from '../../output/index.js';
 import { comparisonDocument } from './compareDocument.js';
 import { checkComparisonFolder, clearComparisonFolder } from './compareOutputFolder.js';
 import { readComparedRuns } from './compareInputs.js';
-import { comparisonMarkdownDetails, dicMissingNotice } from './compareMarkdownDetails.js';
 import { comparedModel } from './compareModelRecord.js';
 import { detectNestedPairs, savageDickeyForPair, type DetectedNestedPair, type PairSavageDickey } from './compareNestedPairs.js';
 import { rebuildRunModel, type RebuiltRunModel } from './compareRebuildModel.js';
@@ -129,7 +128,7 @@ export function compareRuns(request: CompareRequest): CompareOutcome {
     runs, models, pairs, comparison: report.comparison, changedInputs, warnings,
     figures: figures.written.flatMap((stem) => (png ? [`${stem}.svg`, `${stem}.png`] : [`${stem}.svg`])),
   }));
-  writeFileAtomic(join(request.outDir, COMPARISON_FILES.json), `${JSON.stringify(document, null, 2)}\n`);
+  writeFileAtomic(join(request.outDir, COMPARISON_FILES.json), comparisonJsonText(document));
   writeFileAtomic(join(request.outDir, COMPARISON_FILES.markdown), marks.markdown(dicMissingNotice(document) + report.markdown + comparisonMarkdownDetails(document)));
   writeFileAtomic(join(request.outDir, COMPARISON_FILES.latex), marks.latex(report.latex));
   return { outDir: request.outDir, document, files: [COMPARISON_FILES.json, COMPARISON_FILES.markdown, COMPARISON_FILES.latex, ...document.figures], warnings };

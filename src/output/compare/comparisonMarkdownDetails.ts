@@ -1,6 +1,4 @@
-import type { comparisonDocument } from './compareDocument.js';
-
-type ComparisonJson = ReturnType<typeof comparisonDocument>;
+import type { ComparisonJson } from './comparisonJson.js';
 
 function fixed(value: number | null, digits = 2): string {
   return value === null ? '-' : value.toFixed(digits);
