@@ -41,6 +41,7 @@ export type { SortedSample } from './statistics/sortSample.js';
 export { weightedQuantileOfSorted, weightedQuantiles } from './statistics/weightedQuantile.js';
 export { quantileOfDraws, quantileOfSortedDraws } from './statistics/quantileOfDraws.js';
 export { curveQuantiles } from './statistics/curveQuantiles.js';
+export { curveBands, CURVE_BAND_PROBABILITIES } from './statistics/curveBands.js';
 
 // Kernel density estimates (one Gaussian-kernel estimator; the bandwidth rule is an option)
 export { kernelBandwidth } from './density/kernelBandwidth.js';
@@ -56,6 +57,7 @@ export { closestWord } from './text/closestWord.js';
 export { arrayExtent } from './arrayExtent.js';
 export { logSpacedGrid } from './logSpacedGrid.js';
 export { resampleRowsByWeight } from './nestedResampleRows.js';
+export { equalWeightRows } from './equalWeightRows.js';
 
 // Importance reweighting of one set of draws, and the systematic budget built on it.
 export { importanceWeights } from './reweighting/importanceWeights.js';

@@ -5,7 +5,7 @@ import type { BuiltModel } from '../run/buildModel.js';
 import { binResiduals } from '../report/buildRunOutputs.js';
 import type { AnalyzedRun } from './compareInputs.js';
 import type { RebuiltRunModel } from './compareRebuildModel.js';
-import { curveBands, equalWeightRows } from './darkEnergyFiguresDraws.js';
+import { curveBands, equalWeightRows, logSpacedGrid } from '../../math/index.js';
 
 /** Posterior draws behind each model's distance-modulus band (68% band from ~300 draws: ~2% noise on its edges; common practice). */
 export const DISTANCE_BAND_DRAWS = 300;
@@ -80,7 +80,7 @@ export function distanceDifferenceBands(runs: readonly AnalyzedRun[], rebuilt: R
   const record = base.run.record;
   const [zLow, zHigh] = record.data.redshift_range;
   const zMin = Math.max(MINIMUM_CURVE_REDSHIFT, zLow);
-  const grid = Float64Array.from({ length: DISTANCE_CURVE_POINTS }, (_, i) => zMin * (zHigh / zMin) ** (i / (DISTANCE_CURVE_POINTS - 1)));
+  const grid = logSpacedGrid(zMin, zHigh, DISTANCE_CURVE_POINTS);
   const baseCurve = magnitudeCurve(baseModel);
   const bestValues = valuesAt(baseModel, record.best_fit.parameters);
   const isFlatLambda = record.model.dark_energy === 'lambda' && record.model.curvature === 'flat';
@@ -96,7 +96,7 @@ export function distanceDifferenceBands(runs: readonly AnalyzedRun[], rebuilt: R
     if (!model) return;
     const curveOf = magnitudeCurve(model);
     const curves: Float64Array[] = [];
-    for (const row of equalWeightRows(analyzed, DISTANCE_BAND_DRAWS, seed)) {
+    for (const row of equalWeightRows(analyzed.analysis.keptRows, analyzed.analysis.keptWeights, DISTANCE_BAND_DRAWS, seed)) {
       const parameters = Object.fromEntries(model.parameterNames.map((name) => [name, analyzed.run.chains.columns[name][row]]));
       const curve = curveOf(valuesAt(model, parameters), grid);
       if (!curve) continue;

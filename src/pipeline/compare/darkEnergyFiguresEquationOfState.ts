@@ -1,7 +1,7 @@
 import { darkEnergyEvolution, type DarkEnergyLaw } from '../../cosmology/index.js';
 import type { BandFigureInput } from '../../output/index.js';
 import type { AnalyzedRun } from './compareInputs.js';
-import { curveBands, equalWeightRows } from './darkEnergyFiguresDraws.js';
+import { curveBands, equalWeightRows } from '../../math/index.js';
 
 /** Posterior draws behind each w(z) band (the 2.5% and 97.5% points then carry about 25 draws each; common practice). */
 export const EQUATION_OF_STATE_DRAWS = 1000;
@@ -28,7 +28,7 @@ export function equationOfStateBand(analyzed: AnalyzedRun, zMaxRedshift: number,
   const { run, analysis } = analyzed;
   const law = run.record.model.dark_energy as DarkEnergyLaw;
   if (law === 'lambda' || !analysis.sampled.includes('w0')) return null;
-  const rows = equalWeightRows(analyzed, EQUATION_OF_STATE_DRAWS, seed);
+  const rows = equalWeightRows(analyzed.analysis.keptRows, analyzed.analysis.keptWeights, EQUATION_OF_STATE_DRAWS, seed);
   const z = Float64Array.from({ length: EQUATION_OF_STATE_POINTS }, (_, i) => (zMaxRedshift * i) / (EQUATION_OF_STATE_POINTS - 1));
   const w0Column = run.chains.columns.w0;
   const waColumn = run.chains.columns.wa;
