@@ -115,6 +115,7 @@ export { binResiduals } from './summaries/binResiduals.js';
 // Run-folder formats: the folder layout, the chains CSV, the binary sampler state, the checkpoint and chain record.
 export { RUN_FILES } from './run/runFolder.js';
 export { prepareRunFolder } from './run/runFolder.js';
+export { runJsonText } from './run/runJsonText.js';
 export { encodeBinaryState } from './run/binaryState.js';
 export { decodeBinaryState } from './run/binaryState.js';
 export type { ChainColumns } from './run/chainsFile.js';

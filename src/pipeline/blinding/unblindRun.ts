@@ -2,7 +2,7 @@ import { existsSync, readFileSync, rmSync, unlinkSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { loadConfigFile } from '../../config/index.js';
 import { CandelaError } from '../../errors.js';
-import { blindingRunIdentity, readChainRecordDraws, RUN_FILES, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
+import { blindingRunIdentity, readChainRecordDraws, RUN_FILES, runJsonText, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
 import { BLOB_FIRST_DERIVED, buildModel } from '../run/buildModel.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import type { StoredRunRecord } from '../run/runFiles.js';
@@ -92,7 +92,7 @@ export function unblindRun(runDir: string, now: Date = new Date()): UnblindOutco
   const unblindedAt = now.toISOString();
   const blinding: RunBlindingSection = { ...section, state: 'unblinded', unblinded_at: unblindedAt, offsets: { ...key.offsets } };
   const { blinding: _section, ...rest } = record;
-  writeFileAtomic(runJson, `${JSON.stringify({ ...rest, best_fit: { ...record.best_fit, parameters: restored, abs_mag: absMag }, configuration, blinding }, null, 2)}\n`);
+  writeFileAtomic(runJson, runJsonText({ ...rest, best_fit: { ...record.best_fit, parameters: restored, abs_mag: absMag }, configuration, blinding }));
   // The copy without its blinding block, still naming the file the fit read (run.json's first input).
   const fitSource = record.inputs[0]?.path ?? config.source.file.written;
   writeResolvedConfig(runDir, { ...config, blinding: null, source: { ...config.source, file: { ...config.source.file, written: fitSource } } });

@@ -2,7 +2,7 @@ import { existsSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { configToPlainObject, loadConfigFile, type CandelaConfig } from '../../config/index.js';
 import { CandelaError } from '../../errors.js';
-import { writeFileAtomic } from '../../output/index.js';
+import { runJsonText, writeFileAtomic } from '../../output/index.js';
 import { createInProcessEvaluator, EnsembleSampler, type EnsembleSnapshot, type SamplerSnapshot } from '../../sampler/index.js';
 import { buildModel } from '../run/buildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
@@ -184,7 +184,7 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   const selection = chainsSelection(config.output.chains, steps, check.burnInSteps, check.maxTau);
   if (selection.keep !== 'all') record.chains_csv = selection;
   writeChainsFile(join(request.outDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps, undefined, selection);
-  writeFileAtomic(join(request.outDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
+  writeFileAtomic(join(request.outDir, RUN_FILES.run), runJsonText(record));
   writeResolvedConfig(request.outDir, config);
   writeHubbleFiles(request.outDir, model, ensembles, check.burnInSteps, String(config.seed));
   buildRunOutputs([request.outDir], request.outDir);

@@ -3,7 +3,7 @@ import type { CandelaConfig } from '../../config/index.js';
 import type { Issue } from '../../errors.js';
 import { deriveSeed } from '../../math/index.js';
 import { DEFAULT_ELLIPSOID_ENLARGEMENT, type NestedResult } from '../../sampler/index.js';
-import { writeFileAtomic } from '../../output/index.js';
+import { runJsonText, writeFileAtomic } from '../../output/index.js';
 import type { BuiltModel } from '../run/buildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
 import { writeChainsFile, type EnsembleDraws } from '../../output/index.js';
@@ -128,7 +128,7 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, [draws], 0, weights);
   const wallSeconds = (Date.now() - started) / 1000;
   const record = createNestedRunRecord({ config, modelIndex: index, model, data, result, best: best.sample, enlargement: DEFAULT_ELLIPSOID_ENLARGEMENT, wallSeconds });
-  writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
+  writeFileAtomic(join(runDir, RUN_FILES.run), runJsonText(record));
   writeResolvedConfig(runDir, config);
   const hubbleDraws = Math.max(MINIMUM_HUBBLE_DRAWS, Math.round(result.effectiveSampleSize));
   writeHubbleFiles(runDir, model, [equallyWeighted(draws, weights, best.row, hubbleDraws, seed)], 0, seed);

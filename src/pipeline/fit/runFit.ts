@@ -8,7 +8,7 @@ import {
   createInProcessEvaluator, createWorkerPoolEvaluator, EnsembleSampler, initializeWalkers,
   type BatchEvaluator, type LogProbabilityModel, type WorkerModelSpec,
 } from '../../sampler/index.js';
-import { writeFileAtomic } from '../../output/index.js';
+import { runJsonText, writeFileAtomic } from '../../output/index.js';
 import { appendChainRecord, readChainRecordDraws, readCheckpointState, recordShapeOf, writeCheckpoint } from '../../output/index.js';
 import { chainsSelection, type ChainsCsvOption, type ChainsSelection } from '../../output/index.js';
 import { buildModel, type BuiltModel } from '../run/buildModel.js';
@@ -356,7 +356,7 @@ async function fitOneModel(
       part: { index: part.index, model_index: part.modelIndex, ensemble: part.ensemble, ensembles_total: part.ensembles, part_target_ess: rule.targetEss, steps_target: maxSteps },
     } : stored;
     const record = blinding ? blindRunRecord(unblindedRecord, blinding) : unblindedRecord;
-    writeFileAtomic(join(runDir, RUN_FILES.run), `${JSON.stringify(record, null, 2)}\n`);
+    writeFileAtomic(join(runDir, RUN_FILES.run), runJsonText(record));
     writeResolvedConfig(runDir, config); // paths relative to the run folder, so the copy re-runs as is
     const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];
     if (!summarized) {
