@@ -17,7 +17,8 @@ const scratch = resolve('.candela-tmp/nested-signals');
 const STOP_DELAY_SECONDS = 1;
 /** Longest wait from the signal to the exit, s (nothing is written; the allowance is for a loaded machine, as in fitSignals.test.ts). */
 const EXIT_DELAY_SECONDS = 5;
-/** Wait after the line that announces the nested sampling before the signal, ms: well inside a run of about 4 s of CPU. */
+/** Wait after the line that announces the nested sampling before the signal, ms: well inside a run of about 10 s of CPU
+ * (10,000 live points; with 2,000 an idle machine finished the run, 2.3 s, before the signal came). */
 const SIGNAL_AFTER_MS = 1500;
 
 /** A one-dimensional Gaussian likelihood in a uniform box (the example of runNestedSampling's documentation). */
@@ -44,7 +45,7 @@ describe('runNestedInSlices', () => {
 
   it('rejects with RunInterrupted once its signal is aborted, within a slice', async () => {
     const controller = new AbortController();
-    const slow = { ...problem, logLikelihood: (theta: Float64Array) => { const until = performance.now() + 0.05; while (performance.now() < until); return problem.logLikelihood(theta); } };
+    const slow = { ...problem, logLikelihood: (theta: Float64Array) => { const until = performance.now() + 0.5; /* about 2.5 s for the whole run: far beyond the 200 ms wait */ while (performance.now() < until); return problem.logLikelihood(theta); } };
     const running = runNestedInSlices(slow, options, controller.signal, 20);
     await new Promise((done) => setTimeout(done, 200));
     const abortedAt = performance.now();
@@ -73,7 +74,7 @@ describe('candela fit with nested sampling under SIGINT and SIGTERM', () => {
       title: 'nested signal test', seed: 3,
       models: '  - { label: flat_wcdm, dark_energy: constant_w, curvature: flat }',
       parameters: '  w0: { prior: uniform, min: -2.5, max: -0.3 }',
-      sampler: '{ method: nested, nested: { live_points: 2000, max_unexplored_ln_z: 0.01 } }',
+      sampler: '{ method: nested, nested: { live_points: 10000, max_unexplored_ln_z: 0.01 } }',
       output: `{ dir: ${runDir}, figures: [], png: false }`,
     }));
     const finished = await runAndSignal(['fit', config], [signal], nestedSamplingUnderway());
