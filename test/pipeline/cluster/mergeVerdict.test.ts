@@ -6,7 +6,7 @@ import type { ConvergenceCheck } from '../../../src/pipeline/fit/samplingLoop.js
 // rank-normalized split-R-hat <= max_rhat (Vehtari, Gelman, Simpson, Carpenter & Buerkner 2021 recommend
 // bulk ESS and R-hat per parameter, R-hat < 1.01). The step suggestion, ESS growing linearly with the
 // kept steps and twice the steps when R-hat fails, is common practice; the numbers below follow from it
-// by hand. The third condition, chains of at least 50 tau, follows Foreman-Mackey et al. (2013, emcee's guidance).
+// by hand. The third condition, chains of at least 50 tau, follows Foreman-Mackey et al. (2013).
 
 function check(step: number, burnInSteps: number, perParameter: Array<{ essBulk: number | null; rhat: number | null }>, maxTau: number | null = 20): ConvergenceCheck {
   return {
