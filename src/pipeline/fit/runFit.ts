@@ -19,7 +19,7 @@ import { checkConvergence, type ConvergenceCheck, type StopReason } from './samp
 import { createRunRecord, type RunRecord } from '../run/runRecord.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
-import { buildRunOutputs } from '../report/buildRunOutputs.js';
+import { writeRunOutputsUnlessStopped } from '../report/buildRunOutputs.js';
 import { blindEnsembleDraws, blindRunRecord } from '../blinding/blindRunRecord.js';
 import { checkBlindingSupported } from '../blinding/checkBlindingSupported.js';
 import { prepareRunBlinding } from '../blinding/prepareRunBlinding.js';
@@ -364,10 +364,11 @@ async function fitOneModel(
       return { model: model.label, runDir, record, warnings, summarized: false };
     }
     writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, seed, { blinded: blinding !== null });
-    // A signal asks to stop soon: the figures and report.html are left to `candela report` (or to the resumed run).
+    // A signal asks to stop soon: the figures and report.html are left to `candela report` (or to the resumed run),
+    // also when it comes while they are being drawn after the sampling finished.
     const interrupted = stopReason === 'interrupted';
-    buildRunOutputs([runDir], runDir, { figures: !interrupted });
-    if (interrupted) say(`model ${model.label}${partNote}: figures and report.html of the steps so far: candela report ${runDir}`);
+    const complete = await writeRunOutputsUnlessStopped(runDir, interrupted ? null : request.signal);
+    if (!complete) say(`model ${model.label}${partNote}: figures and report.html${interrupted ? ' of the steps so far' : ' left out on the signal'}: candela report ${runDir}`);
     say(`model ${model.label}${partNote}: ${stopReason} after ${sampler.stepCount} steps in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
     return { model: model.label, runDir, record, warnings, summarized: true };
   } finally {

@@ -136,23 +136,26 @@ export interface RunOutputOptions {
   figures?: boolean;
 }
 
+/** What the summaries of one run leave for its figures: the run, its analysis, figure settings and page marks. */
+export interface RunSummaries {
+  run: RunOnDisk;
+  analysis: RunAnalysis;
+  settings: FigureSettings;
+  marks: ReturnType<typeof blindingMarks>;
+}
+
 /**
- * Writes every output of one run into `outDir` from its folder's chains and
- * records: summary.json, summary.md, table.tex, marginal and contour files,
- * figures (SVG and PNG) and report.html. Pure function of the run folder's
- * files, so `candela report` reproduces what `candela fit` wrote, byte for byte.
- * Nested runs use their posterior weights everywhere, have no trace figure,
- * and their report page states that the Markov-chain convergence checks do
- * not apply, giving ln Z and the Kish effective sample size instead.
- *
- * Cost: the analysis (analyzeRun) plus rendering the figures.
+ * Writes the numbers of one run into `outDir`: summary.json, summary.md,
+ * table.tex, marginal and contour files (everything but the figures and
+ * report.html).
+ * Cost: the analysis (analyzeRun), about half of writeRunOutputs at survey scale.
  * @param run the run folder read back.
  * @param outDir where to write (created when missing).
- * @returns the analysis.
- * @throws CandelaError from the analysis or figures; Error from the file system.
- * @example writeRunOutputs(readRunFolder('out/run'), 'out/run')
+ * @returns what runFigureSteps needs to draw the rest.
+ * @throws CandelaError from the analysis; Error from the file system.
+ * @example writeRunSummaries(readRunFolder('out/run'), 'out/run').analysis.steps
  */
-export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutputOptions = {}): RunAnalysis {
+export function writeRunSummaries(run: RunOnDisk, outDir: string): RunSummaries {
   const analysis = analyzeRun(run);
   const settings = figureSettings(run);
   analysis.warnings.push(...settings.warnings);
@@ -171,39 +174,55 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutp
     writeFileAtomic(`${stem}.geojson`, contourGeoJson(set));
     writeFileAtomic(`${stem}.paths.csv`, contourPathsCsv(set));
   }
-  // After Ctrl-C only the numbers are written: figures and the report page take seconds at survey scale, and
-  // `candela report` draws them later from the same folder, byte for byte.
-  if (options.figures === false) return analysis;
+  return { run, analysis, settings, marks };
+}
+
+/**
+ * Draws the figures of one run (SVG, and PNG or PDF as configured) and then
+ * writes report.html (and, in place, the models page), yielding after each
+ * figure: a synchronous caller drains it in one go (writeRunOutputs), the fit
+ * turns the event loop between steps so that Ctrl-C is seen while it draws
+ * (writeRunOutputsUnlessStopped). A generator left unfinished has written
+ * whole figures only, and no report.html.
+ * Cost: rendering the figures, seconds at survey scale.
+ * @param written the run's summaries (writeRunSummaries).
+ * @param outDir where to write.
+ * @returns a generator yielding the file stem of each figure written.
+ * @throws CandelaError from the figures; Error from the file system.
+ * @example for (const stem of runFigureSteps(writeRunSummaries(run, dir), dir)) console.log(stem) // triangle, hubble, ...
+ */
+export function* runFigureSteps(written: RunSummaries, outDir: string): Generator<string, void, void> {
+  const { run, analysis, settings, marks } = written;
   const wanted = settings.figures;
   const figures: ReportFigure[] = [];
+  const draw = (title: string, svg: string, fileName: string): string => {
+    const marked = marks.svg(svg);
+    writeFileAtomic(join(outDir, 'figures', `${fileName}.svg`), marked);
+    if (settings.png) writeFileAtomic(join(outDir, 'figures', `${fileName}.png`), pngOf(marked, settings));
+    if (settings.pdf) writeFileAtomic(join(outDir, 'figures', `${fileName}.pdf`), svgToPdf(marked));
+    figures.push({ title, svg: marked, fileName });
+    return fileName;
+  };
   if (wanted.includes('triangle')) {
     const parameters = triangleParameters(analysis, settings);
     const svg = triangleFigure([{ label: run.record.model.label, marginals: analysis.marginals.filter((m) => parameters.includes(m.parameter)), contours: contoursForTriangle(run, analysis, parameters) }], parameters, {
       width: settings.width, fontFace: settings.fontFace, ...truthOptions(settings, parameters),
     });
-    figures.push({ title: 'Posterior: 1-D marginals and 68% / 95% credible regions', svg, fileName: 'triangle' });
+    yield draw('Posterior: 1-D marginals and 68% / 95% credible regions', svg, 'triangle');
   }
   if (wanted.includes('hubble')) {
     const svg = hubbleSvg(run, settings);
-    if (svg) figures.push({ title: 'Hubble diagram and residuals at the best fit', svg, fileName: 'hubble' });
+    if (svg) yield draw('Hubble diagram and residuals at the best fit', svg, 'hubble');
   }
   // Each probe term with a diagram (ProbeDefinition.diagram) draws its data against the fit, one figure per term.
-  for (const { key, diagram } of readProbeDiagrams(run.dir)) {
-    figures.push({ title: diagram.title, svg: measurementRatioFigure(diagram), fileName: `probe-${key}` });
-  }
+  for (const { key, diagram } of readProbeDiagrams(run.dir)) yield draw(diagram.title, measurementRatioFigure(diagram), `probe-${key}`);
   // Traces show Markov chains; nested samples are not a chain, so nested runs have no trace figure.
-  if (wanted.includes('trace') && analysis.method === 'ensemble') figures.push({ title: 'Traces of a few walkers per ensemble (stuck walkers highlighted); shaded: burn-in', svg: traceSvg(run, analysis, settings), fileName: 'trace' });
+  if (wanted.includes('trace') && analysis.method === 'ensemble') yield draw('Traces of a few walkers per ensemble (stuck walkers highlighted); shaded: burn-in', traceSvg(run, analysis, settings), 'trace');
   // Residuals on their own (the Hubble figure's lower panel, full size) and the autocorrelation functions with tau marked.
   const residuals = wanted.includes('residuals') ? residualsFigureOfRun(run, settings) : null;
-  if (residuals) figures.push({ title: 'Hubble residuals at the best fit, with binned means', svg: residuals, fileName: 'residuals' });
+  if (residuals) yield draw('Hubble residuals at the best fit, with binned means', residuals, 'residuals');
   const autocorrelation = wanted.includes('autocorrelation') ? autocorrelationFigureOfRun(run, analysis, settings) : null;
-  if (autocorrelation) figures.push({ title: 'Normalized autocorrelation per parameter; markers: integrated autocorrelation time', svg: autocorrelation, fileName: 'autocorrelation' });
-  for (const figure of figures) {
-    figure.svg = marks.svg(figure.svg);
-    writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.svg`), figure.svg);
-    if (settings.png) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.png`), pngOf(figure.svg, settings));
-    if (settings.pdf) writeFileAtomic(join(outDir, 'figures', `${figure.fileName}.pdf`), svgToPdf(figure.svg));
-  }
+  if (autocorrelation) yield draw('Normalized autocorrelation per parameter; markers: integrated autocorrelation time', autocorrelation, 'autocorrelation');
   writeFileAtomic(join(outDir, RUN_FILES.report), reportHtml({
     title: marks.title(`${run.record.title} — ${run.record.model.label}`),
     facts: reportFacts(run, analysis),
@@ -232,7 +251,60 @@ export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutp
     budget: storedBudget(run.dir),
   }));
   if (resolve(outDir) === resolve(run.dir)) refreshModelsIndex(run, analysis);
-  return analysis;
+}
+
+/**
+ * Writes every output of one run into `outDir` from its folder's chains and
+ * records: summary.json, summary.md, table.tex, marginal and contour files,
+ * figures (SVG and PNG) and report.html. Pure function of the run folder's
+ * files, so `candela report` reproduces what `candela fit` wrote, byte for byte.
+ * Nested runs use their posterior weights everywhere, have no trace figure,
+ * and their report page states that the Markov-chain convergence checks do
+ * not apply, giving ln Z and the Kish effective sample size instead.
+ *
+ * Cost: the analysis (analyzeRun) plus rendering the figures.
+ * @param run the run folder read back.
+ * @param outDir where to write (created when missing).
+ * @returns the analysis.
+ * @throws CandelaError from the analysis or figures; Error from the file system.
+ * @example writeRunOutputs(readRunFolder('out/run'), 'out/run')
+ */
+export function writeRunOutputs(run: RunOnDisk, outDir: string, options: RunOutputOptions = {}): RunAnalysis {
+  const written = writeRunSummaries(run, outDir);
+  // After Ctrl-C only the numbers are written: figures and the report page take seconds at survey scale, and
+  // `candela report` draws them later from the same folder, byte for byte.
+  if (options.figures === false) return written.analysis;
+  for (const figure of runFigureSteps(written, outDir)) void figure;
+  return written.analysis;
+}
+
+/** Lets pending signal handlers run (a setImmediate turn of the event loop). */
+const turnEventLoop = (): Promise<void> => new Promise((done) => setImmediate(done));
+
+/**
+ * The outputs of a run folder written in place as `candela fit` ends, with
+ * the event loop turned between the summaries and each figure: once `signal`
+ * is aborted (Ctrl-C after the sampling finished) the figures still to draw
+ * and report.html are left to `candela report`, so the command ends within
+ * about one figure's rendering instead of all of them.
+ * @param runDir the run folder.
+ * @param signal the fit's stop signal; null or aborted: the summaries only.
+ * @returns true when every output was written, false when the figures and report.html were left out.
+ * @throws as writeRunOutputs.
+ * @example await writeRunOutputsUnlessStopped('out/run', controller.signal) // true
+ */
+export async function writeRunOutputsUnlessStopped(runDir: string, signal: AbortSignal | null | undefined): Promise<boolean> {
+  const written = writeRunSummaries(readRunFolder(runDir), runDir);
+  if (signal === null) return false;
+  await turnEventLoop();
+  if (signal?.aborted) return false;
+  const steps = runFigureSteps(written, runDir);
+  for (let step = steps.next(); !step.done; step = steps.next()) {
+    await turnEventLoop();
+    // Left unfinished, the generator has written whole figures only, and no report.html.
+    if (signal?.aborted) return false;
+  }
+  return true;
 }
 
 /**
