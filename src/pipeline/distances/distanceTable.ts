@@ -1,25 +1,18 @@
 import { CandelaError } from '../../errors.js';
 import type { Issue } from '../../errors.js';
 import { CMB_TEMPERATURE_K, createCosmology } from '../../cosmology/index.js';
-import type { CosmologyParameters, DarkEnergyLaw } from '../../cosmology/index.js';
+import type { CosmologyParameters } from '../../cosmology/index.js';
 import { distanceTableCsv, distanceTableJson, distanceTableText } from '../../output/index.js';
 import type { DistanceTableRow } from '../../output/index.js';
 
-/** Plain options of a distance table (no configuration file involved). */
-export interface DistanceTableOptions {
-  darkEnergy: DarkEnergyLaw;
-  flat: boolean;
-  omegaMatter: number;
-  /** Required when flat = false. */
-  omegaDarkEnergy?: number;
-  w0?: number;
-  wa?: number;
-  h0KmPerSPerMpc: number;
-  /** Photons + massless neutrinos on (default T_CMB 2.7255 K) or off. */
+/**
+ * Plain options of a distance table (no configuration file involved): the
+ * cosmology's parameters, with radiation switched on or off as a whole
+ * (cmbTemperatureK, default 2.7255 K, is then read only when it is on).
+ */
+export interface DistanceTableOptions extends CosmologyParameters {
+  /** Photons + massless neutrinos on or off. */
   radiation: boolean;
-  /** T_CMB in K when radiation is on. */
-  cmbTemperatureK?: number;
-  effectiveNeutrinoSpecies?: number;
   /** Redshifts to tabulate, >= 0, in the order wanted. */
   redshifts: readonly number[];
 }
