@@ -32,6 +32,25 @@ function walkerSeries(trace: readonly EnsembleTrace[]): Float64Array[] {
 }
 
 /**
+ * Integrated autocorrelation time of each quantity over the whole of its
+ * ensemble traces (FFT autocorrelation averaged over walkers, Sokal's
+ * automatic window), in steps; NaN where it is undefined.
+ * Cost: the FFTs, O(walkers x steps log steps) per quantity.
+ * @param traces per quantity, its ensemble traces.
+ * @returns tau per quantity, steps.
+ * @example traceAutocorrelationTimes(traces)[0] // tau of the first quantity
+ */
+export function traceAutocorrelationTimes(traces: ReadonlyArray<readonly EnsembleTrace[]>): number[] {
+  return traces.map((trace) => {
+    try {
+      return integratedAutocorrelationTime(walkerSeries(trace)).tauSteps;
+    } catch {
+      return Number.NaN;
+    }
+  });
+}
+
+/**
  * The one convergence computation of candela, used by the stopping rule while
  * sampling and by the summaries afterwards, so both report the same numbers:
  * 1. tau per quantity from the whole chain (FFT autocorrelation averaged over
@@ -47,13 +66,7 @@ function walkerSeries(trace: readonly EnsembleTrace[]): Float64Array[] {
  */
 export function diagnoseTraces(traces: ReadonlyArray<readonly EnsembleTrace[]>, options: { burnInSteps?: number; burnInFrom?: number } = {}): TraceDiagnosis {
   const steps = traces[0][0].steps;
-  const tauSteps = traces.map((trace) => {
-    try {
-      return integratedAutocorrelationTime(walkerSeries(trace)).tauSteps;
-    } catch {
-      return Number.NaN;
-    }
-  });
+  const tauSteps = traceAutocorrelationTimes(traces);
   const governing = tauSteps.slice(0, options.burnInFrom ?? tauSteps.length);
   const usable = governing.filter((tau) => Number.isFinite(tau) && tau > 0);
   const burnInSteps = options.burnInSteps ?? (usable.length === governing.length && usable.length > 0 ? chooseBurnIn(usable, steps) : Math.floor(steps / 2));

@@ -29,3 +29,4 @@ export type { EnsembleTrace, ParameterDiagnostics } from './diagnoseEnsembleChai
 // Burn-in, tau, R-hat and ESS of a run's traces in one call.
 export type { TraceDiagnosis } from './diagnoseTraces.js';
 export { diagnoseTraces } from './diagnoseTraces.js';
+export { traceAutocorrelationTimes } from './diagnoseTraces.js';

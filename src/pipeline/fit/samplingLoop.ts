@@ -1,5 +1,5 @@
 import { acceptanceSummary, RELIABLE_STEPS_PER_TAU, type ParameterDiagnostics } from '../../diagnostics/index.js';
-import { diagnoseTraces } from '../../diagnostics/index.js';
+import { diagnoseTraces, traceAutocorrelationTimes } from '../../diagnostics/index.js';
 import type { EnsembleSampler } from '../../sampler/index.js';
 
 /** Why sampling ended. */
@@ -113,7 +113,7 @@ function halfChainTauGrowth(traces: Array<Array<{ steps: number; walkers: number
     const steps = Math.floor(trace.steps / 2);
     return { steps, walkers: trace.walkers, values: trace.values.subarray(0, steps * trace.walkers) };
   }));
-  const halfTaus = diagnoseTraces(halves).tauSteps;
+  const halfTaus = traceAutocorrelationTimes(halves);
   let growth = 0;
   for (let d = 0; d < taus.length; d++) {
     // Both taus are in trace steps (the stride cancels in the ratio).
