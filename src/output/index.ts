@@ -112,6 +112,14 @@ export type { FixedParameterFacts } from './summaries/fixedParameterNotes.js';
 export { fixedParameterNotes } from './summaries/fixedParameterNotes.js';
 export { massStepConvention } from './summaries/massStepConvention.js';
 export { binResiduals } from './summaries/binResiduals.js';
+// summary.json: the document of one run's numbers (plain facts in, JSON-ready object out).
+export { SUMMARY_SCHEMA } from './summaries/summaryJson.js';
+export type { SummaryJson } from './summaries/summaryJson.js';
+export type { SummaryJsonInput } from './summaries/summaryJson.js';
+export type { SummaryJsonBestFit } from './summaries/summaryJson.js';
+export type { SummaryJsonDiagnostics } from './summaries/summaryJson.js';
+export type { SummaryJsonNestedFacts } from './summaries/summaryJson.js';
+export { summaryJsonDocument } from './summaries/summaryJson.js';
 // Run-folder formats: the folder layout, the chains CSV, the binary sampler state, the checkpoint and chain record.
 export { RUN_FILES } from './run/runFolder.js';
 export { prepareRunFolder } from './run/runFolder.js';
