@@ -144,8 +144,18 @@ export { readCheckpointState } from './run/checkpointFile.js';
 export type { ChainRecordShape } from './run/chainRecordFile.js';
 export { visitChainRecord } from './run/chainRecordFile.js';
 export { appendChainRecord } from './run/chainRecordFile.js';
+export { writeChainRecordFrom } from './run/chainRecordFile.js';
 export { readChainRecordDraws } from './run/chainRecordFile.js';
 export { recordShapeOf } from './run/chainRecordFile.js';
+export type { StoredDraws } from './run/storedDraws.js';
+export { drawsInMemory } from './run/storedDraws.js';
+export { drawsFromChainRecord } from './run/storedDraws.js';
+export { shiftedDraws } from './run/storedDraws.js';
+export { forEachStoredBlock } from './run/storedDraws.js';
+export { bestStoredDraw } from './run/storedDraws.js';
+export { acceptedMoveCounts } from './run/storedDraws.js';
+export { ensemblesSideBySide } from './run/storedDraws.js';
+export type { BestStoredDraw } from './run/storedDraws.js';
 
 // Blinding: secret offsets, the sealed key, and the marks every page of a blinded run carries.
 export { drawBlindingOffsets } from './blinding/drawBlindingOffsets.js';

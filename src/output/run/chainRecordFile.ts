@@ -4,6 +4,7 @@ import { CandelaError, isCandelaError } from '../../errors.js';
 import { writeFailure } from '../writeFileAtomic.js';
 import type { SamplerSnapshot } from '../../sampler/index.js';
 import type { EnsembleDraws } from './chainsFile.js';
+import type { StoredDraws } from './storedDraws.js';
 import { RUN_FILES } from './runFolder.js';
 
 /*
@@ -20,7 +21,8 @@ import { RUN_FILES } from './runFolder.js';
  * steps count, and the next append cuts the rest first.
  */
 const RECORD_MAGIC = 'CNDLREC1';
-const RECORD_HEADER_BYTES = 32;
+/** Bytes of the record's header (magic, shape, padding). */
+export const RECORD_HEADER_BYTES = 32;
 /** Steps packed into one write or read of the chain record (bounds the buffer, not the file). */
 const STEPS_PER_BLOCK = 256;
 
@@ -28,6 +30,11 @@ const STEPS_PER_BLOCK = 256;
 export interface ChainRecordShape { ensembles: number; walkers: number; dimension: number; blobCount: number }
 
 const stepBytesOf = (shape: ChainRecordShape): number => shape.ensembles * shape.walkers * (shape.dimension + 1 + shape.blobCount) * 8;
+
+/** Bytes of one step of every ensemble in a chain record of this shape. Cost O(1). @throws nothing. @example recordStepBytes({ ensembles: 1, walkers: 2, dimension: 1, blobCount: 2 }) // 64 */
+export function recordStepBytes(shape: ChainRecordShape): number {
+  return stepBytesOf(shape);
+}
 
 /** The record shape of a sampler snapshot. Cost O(1). @throws nothing. @example recordShapeOf(sampler.snapshot()).walkers // 32 */
 export function recordShapeOf(snapshot: SamplerSnapshot): ChainRecordShape {
@@ -120,6 +127,21 @@ export function appendChainRecord(runDir: string, snapshot: SamplerSnapshot, opt
 }
 
 /**
+ * Checks that an open chain record was written for `shape`.
+ * Cost: one 32-byte read.
+ * @param path the record (for the message).
+ * @param descriptor the open file.
+ * @param shape the layout the record must have.
+ * @throws CandelaError `run.bad_checkpoint` when the header differs.
+ * @example checkChainRecordHeader(path, descriptor, shape) // no throw for the run's own record
+ */
+export function checkChainRecordHeader(path: string, descriptor: number, shape: ChainRecordShape): void {
+  const header = Buffer.alloc(RECORD_HEADER_BYTES);
+  readSync(descriptor, header, 0, RECORD_HEADER_BYTES, 0);
+  if (!header.equals(recordHeader(shape))) throw damagedRecord(path, 'the chain record does not match the run (ensembles, walkers, parameters or blobs)');
+}
+
+/**
  * Streams the first `steps` steps of the chain record of `runDir`, calling
  * `visit` once per step and ensemble with views (valid during the call only)
  * of that ensemble's walkers: positions (walkers x dimension), log
@@ -146,9 +168,7 @@ export function visitChainRecord(
     throw damagedRecord(recordPath, 'the chain record of the run is missing');
   }
   try {
-    const header = Buffer.alloc(RECORD_HEADER_BYTES);
-    readSync(descriptor, header, 0, RECORD_HEADER_BYTES, 0);
-    if (!header.equals(recordHeader(shape))) throw damagedRecord(recordPath, 'the chain record does not match the run (ensembles, walkers, parameters or blobs)');
+    checkChainRecordHeader(recordPath, descriptor, shape);
     if (fstatSync(descriptor).size < RECORD_HEADER_BYTES + steps * stepBytes) throw damagedRecord(recordPath, `the chain record holds fewer than the run's ${steps} steps`);
     const block = new Float64Array(Math.min(STEPS_PER_BLOCK, Math.max(1, steps)) * (stepBytes / 8));
     const bytes = Buffer.from(block.buffer);
@@ -196,4 +216,49 @@ export function readChainRecordDraws(runDir: string, shape: ChainRecordShape, st
     draws[ensemble].blobs.set(blobs, step * walkers * blobCount);
   });
   return draws;
+}
+
+/**
+ * Writes a new chain record in `runDir` from stored draws (for `candela
+ * merge`, from the parts' records), a block of steps at a time, and flushes
+ * it; an existing record is replaced. The result reads back as the source.
+ * Cost: O(source size) bytes read and written; memory one block of every ensemble.
+ * @param runDir the run folder.
+ * @param source the draws to store.
+ * @throws CandelaError `output.write_failed` naming the file and the cause (full disk, read-only); what the source throws.
+ * @example writeChainRecordFrom('out/merged', ensemblesSideBySide(parts, 800))
+ */
+export function writeChainRecordFrom(runDir: string, source: StoredDraws): void {
+  const recordPath = join(runDir, RUN_FILES.chainRecord);
+  const shape = { ensembles: source.ensembles, walkers: source.walkers, dimension: source.dimension, blobCount: source.blobCount };
+  const { walkers, dimension, blobCount } = shape;
+  const perEnsemble = walkers * (dimension + 1 + blobCount);
+  let descriptor: number | undefined;
+  try {
+    const target = openSync(recordPath, 'w');
+    descriptor = target;
+    writeAll(target, recordHeader(shape), 0);
+    for (let from = 0; from < source.steps; from += STEPS_PER_BLOCK) {
+      const to = Math.min(source.steps, from + STEPS_PER_BLOCK);
+      const packed = new Float64Array((to - from) * source.ensembles * perEnsemble);
+      for (let ensemble = 0; ensemble < source.ensembles; ensemble++) {
+        const block = source.block(ensemble, from, to);
+        for (let s = 0; s < to - from; s++) {
+          let offset = (s * source.ensembles + ensemble) * perEnsemble;
+          packed.set(block.positions.subarray(s * walkers * dimension, (s + 1) * walkers * dimension), offset);
+          offset += walkers * dimension;
+          packed.set(block.logProb.subarray(s * walkers, (s + 1) * walkers), offset);
+          offset += walkers;
+          packed.set(block.blobs.subarray(s * walkers * blobCount, (s + 1) * walkers * blobCount), offset);
+        }
+      }
+      writeAll(target, Buffer.from(packed.buffer), RECORD_HEADER_BYTES + from * stepBytesOf(shape));
+    }
+    fsyncSync(target);
+  } catch (error) {
+    if (isCandelaError(error)) throw error;
+    throw writeFailure(recordPath, error);
+  } finally {
+    if (descriptor !== undefined) closeSync(descriptor);
+  }
 }

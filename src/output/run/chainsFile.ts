@@ -1,5 +1,6 @@
 import { CandelaError } from '../../errors.js';
 import { writeFileAtomicBy } from '../writeFileAtomic.js';
+import { drawsInMemory, STORED_DRAWS_BLOCK_STEPS, type StoredDraws } from './storedDraws.js';
 
 export { readChainsFile } from './readChainsFile.js';
 
@@ -79,11 +80,11 @@ export function chainHeader(columns: ChainColumns, weighted = false): string[] {
 /**
  * Writes chains.csv atomically (writeFileAtomicBy: temporary file in the
  * same folder, fsync, rename), streaming rows so memory stays O(rows per
- * write); a failed write (full disk) leaves no temporary file and the
+ * write plus one block of draws); a failed write (full disk) leaves no temporary file and the
  * previous chains.csv, if any, untouched.
  * @param path the file to write.
  * @param columns sampled and derived names.
- * @param ensembles the draws, one entry per ensemble.
+ * @param draws the draws: a StoredDraws source (read a block at a time) or one EnsembleDraws per ensemble.
  * @param burnInSteps steps flagged as burn-in (0 for nested sampling).
  * @param weights optional posterior weight per row, in file order (all ensembles' rows
  *   concatenated); when given, a `weight` column is written before `burn_in`.
@@ -92,8 +93,9 @@ export function chainHeader(columns: ChainColumns, weighted = false): string[] {
  *   temporary file; `run.bad_weights` when the weight count differs from the row count.
  * @example writeChainsFile('out/chains.csv', { parameters: ['omega_m'], derived: [] }, [draws], 0, weights)
  */
-export function writeChainsFile(path: string, columns: ChainColumns, ensembles: EnsembleDraws[], burnInSteps: number, weights?: Float64Array, selection?: { first_step: number; every_steps: number; steps: number }): void {
-  const rowCount = ensembles.reduce((sum, draws) => sum + (selection ? selection.steps : draws.steps) * draws.walkers, 0);
+export function writeChainsFile(path: string, columns: ChainColumns, draws: StoredDraws | readonly EnsembleDraws[], burnInSteps: number, weights?: Float64Array, selection?: { first_step: number; every_steps: number; steps: number }): void {
+  const source = isStoredDraws(draws) ? draws : drawsInMemory(draws);
+  const rowCount = source.ensembles * (selection ? selection.steps : source.steps) * source.walkers;
   if (weights && weights.length !== rowCount) {
     throw new CandelaError({ code: 'run.bad_weights', file: path, message: 'one posterior weight per stored sample is needed', expected: `${rowCount} weights`, found: String(weights.length) });
   }
@@ -101,29 +103,40 @@ export function writeChainsFile(path: string, columns: ChainColumns, ensembles: 
   writeFileAtomicBy(path, (write) => {
     write(`${chainHeader(columns, weights !== undefined).join(',')}\n`);
     const derivedCount = columns.derived.length;
+    const { walkers, dimension, blobCount } = source;
+    const { first_step: first, every_steps: every, steps: count } = selection ?? { first_step: 0, every_steps: 1, steps: source.steps };
+    // Selected steps per read: a block spans at most STORED_DRAWS_BLOCK_STEPS steps (one step when thinned wider).
+    const span = Math.max(1, Math.floor(STORED_DRAWS_BLOCK_STEPS / every));
     let buffer: string[] = [];
-    ensembles.forEach((draws, ensembleIndex) => {
-      const { walkers, dimension, blobCount } = draws;
-      const { first_step: first, every_steps: every, steps: count } = selection ?? { first_step: 0, every_steps: 1, steps: draws.steps };
-      for (let step = first; step < first + count * every; step += every) {
-        for (let walker = 0; walker < walkers; walker++) {
-          const row = step * walkers + walker;
-          const parts: string[] = [String(ensembleIndex), String(walker), String(step)];
-          for (let d = 0; d < dimension; d++) parts.push(cell(draws.positions[row * dimension + d]));
-          const blobBase = row * blobCount;
-          for (let k = 0; k < derivedCount; k++) parts.push(cell(draws.blobs[blobBase + 2 + k]));
-          parts.push(cell(draws.blobs[blobBase]), cell(draws.blobs[blobBase + 1]), cell(draws.logProb[row]));
-          if (weights) parts.push(cell(weights[rowIndex]));
-          parts.push(step < burnInSteps ? '1' : '0');
-          rowIndex++;
-          buffer.push(parts.join(','));
-          if (buffer.length >= ROWS_PER_WRITE) {
-            write(`${buffer.join('\n')}\n`);
-            buffer = [];
+    for (let ensembleIndex = 0; ensembleIndex < source.ensembles; ensembleIndex++) {
+      for (let j = 0; j < count; j += span) {
+        const from = first + j * every;
+        const last = first + (Math.min(count, j + span) - 1) * every;
+        const block = source.block(ensembleIndex, from, last + 1);
+        for (let step = from; step <= last; step += every) {
+          for (let walker = 0; walker < walkers; walker++) {
+            const row = (step - from) * walkers + walker;
+            const parts: string[] = [String(ensembleIndex), String(walker), String(step)];
+            for (let d = 0; d < dimension; d++) parts.push(cell(block.positions[row * dimension + d]));
+            const blobBase = row * blobCount;
+            for (let k = 0; k < derivedCount; k++) parts.push(cell(block.blobs[blobBase + 2 + k]));
+            parts.push(cell(block.blobs[blobBase]), cell(block.blobs[blobBase + 1]), cell(block.logProb[row]));
+            if (weights) parts.push(cell(weights[rowIndex]));
+            parts.push(step < burnInSteps ? '1' : '0');
+            rowIndex++;
+            buffer.push(parts.join(','));
+            if (buffer.length >= ROWS_PER_WRITE) {
+              write(`${buffer.join('\n')}\n`);
+              buffer = [];
+            }
           }
         }
       }
-    });
+    }
     if (buffer.length) write(`${buffer.join('\n')}\n`);
   });
+}
+
+function isStoredDraws(draws: StoredDraws | readonly EnsembleDraws[]): draws is StoredDraws {
+  return typeof (draws as StoredDraws).block === 'function';
 }

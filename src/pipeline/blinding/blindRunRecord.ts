@@ -1,4 +1,4 @@
-import { blindValues, type EnsembleDraws } from '../../output/index.js';
+import { blindValues } from '../../output/index.js';
 import type { RunRecord } from '../run/runRecord.js';
 import type { RunBlinding } from './prepareRunBlinding.js';
 import { BLINDING_KEY_FILE, WITHHELD_WHILE_BLINDED, type RunBlindingSection } from './runBlinding.js';
@@ -29,24 +29,4 @@ export function blindRunRecord<T extends RunRecord>(record: T, blinding: RunBlin
       withheld: [...WITHHELD_WHILE_BLINDED], unblinded_at: null,
     },
   };
-}
-
-/**
- * The draws as a blinded chains.csv holds them: each blinded parameter's
- * positions plus its offset (copies; log posteriors and blobs are shared).
- * Cost: O(stored values).
- * @param ensembles the sampler's draws (true values).
- * @param parameterNames sampled names in theta order.
- * @param offsets offset per blinded parameter.
- * @returns the shown draws.
- * @throws nothing.
- * @example blindEnsembleDraws(ensembles, ['omega_m', 'w0'], { w0: 0.2 })[0].positions[1] // ensembles[0].positions[1] + 0.2
- */
-export function blindEnsembleDraws(ensembles: readonly EnsembleDraws[], parameterNames: readonly string[], offsets: Readonly<Record<string, number>>): EnsembleDraws[] {
-  const shifts = parameterNames.map((name) => offsets[name] ?? 0);
-  return ensembles.map((draws) => {
-    const positions = Float64Array.from(draws.positions);
-    for (let i = 0; i < positions.length; i++) positions[i] += shifts[i % draws.dimension];
-    return { ...draws, positions };
-  });
 }

@@ -2,7 +2,7 @@ import { existsSync, readFileSync, rmSync, unlinkSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { loadConfigFile } from '../../config/index.js';
 import { CandelaError } from '../../errors.js';
-import { blindingRunIdentity, readChainRecordDraws, RUN_FILES, runJsonText, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
+import { blindingRunIdentity, drawsFromChainRecord, RUN_FILES, runJsonText, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
 import { BLOB_FIRST_DERIVED, buildModel } from '../run/buildModel.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import type { StoredRunRecord } from '../run/runFiles.js';
@@ -49,7 +49,7 @@ function readRecord(dir: string): StoredRunRecord & BlindableRecord {
  * @returns what was unblinded.
  * @throws CandelaError `run.no_record`; `blinding.not_blinded` (never blinded, with the fix), `blinding.already_unblinded` (with its time);
  *   `blinding.missing_key`, `blinding.damaged_key`, `blinding.foreign_key`; the errors of loadConfigFile,
- *   loadSupernovae, buildModel and readChainRecordDraws.
+ *   loadSupernovae, buildModel and drawsFromChainRecord.
  * @example unblindRun('out/demo-blinded').parameters // ['omega_m', 'w0', 'wa']
  */
 export function unblindRun(runDir: string, now: Date = new Date()): UnblindOutcome {
@@ -72,7 +72,7 @@ export function unblindRun(runDir: string, now: Date = new Date()): UnblindOutco
   const model = buildModel(config, modelIndex, loadSupernovae(config));
   const { steps, walkers, ensembles: ensembleCount } = record.run;
   const shape = { ensembles: ensembleCount, walkers, dimension: record.parameters.sampled.length, blobCount: BLOB_FIRST_DERIVED + record.parameters.derived.length };
-  const ensembles = readChainRecordDraws(runDir, shape, steps);
+  const ensembles = drawsFromChainRecord(runDir, shape, steps);
   const burnInSteps = record.run.burn_in_steps;
   const names = record.parameters.sampled.map((entry) => entry.name);
   const selection = record.chains_csv;

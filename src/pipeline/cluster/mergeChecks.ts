@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { CandelaError, type Issue } from '../../errors.js';
 import type { SamplerSnapshot } from '../../sampler/index.js';
-import { readCheckpoint } from '../../output/index.js';
+import { drawsFromChainRecord, drawsInMemory, readCheckpointState, recordShapeOf, type StoredDraws } from '../../output/index.js';
 import { RUN_FILES } from '../../output/index.js';
 import type { RunRecord } from '../run/runRecord.js';
 import type { PartFacts } from './slurmPart.js';
@@ -14,8 +14,10 @@ export type PartRecord = RunRecord & { part: PartFacts };
 export interface PartOnDisk {
   dir: string;
   record: PartRecord;
-  /** The sampler state of the part's checkpoint (its chain is exact to the bit). */
+  /** The sampler state of the part's checkpoint, without its chain (chainFirstStep = stepCount; the steps are in the part's chain record). */
   snapshot: SamplerSnapshot;
+  /** The part's stored steps, read from its chain record a block at a time (bit for bit as sampled). */
+  draws: StoredDraws;
   wallSeconds: number;
   evaluations: number;
 }
@@ -35,10 +37,16 @@ function readPart(dir: string, issues: Issue[]): PartOnDisk | null {
   }
   const checkpointPath = join(dir, RUN_FILES.checkpoint);
   try {
-    const saved = readCheckpoint(dir);
-    return { dir, record, snapshot: saved.snapshot, wallSeconds: saved.wallSeconds, evaluations: saved.evaluations };
+    const saved = readCheckpointState(dir);
+    const snapshot = saved.snapshot;
+    // A part whose checkpoint still holds its chain (written before the chain record existed) is read from memory.
+    const draws = saved.earlierSteps ? drawsFromChainRecord(dir, recordShapeOf(snapshot), snapshot.stepCount) : drawsInMemory(snapshot.ensembles.map((ensemble) => ({
+      steps: snapshot.stepCount, walkers: snapshot.options.walkers, dimension: snapshot.options.dimension, blobCount: snapshot.blobCount,
+      positions: ensemble.chainPositions, logProb: ensemble.chainLogProb, blobs: ensemble.chainBlobs,
+    })));
+    return { dir, record, snapshot, draws, wallSeconds: saved.wallSeconds, evaluations: saved.evaluations };
   } catch {
-    issues.push({ code: 'merge.no_checkpoint', file: checkpointPath, message: `${dir} has no readable checkpoint.bin, which holds the part's exact chain`, fix: 'rerun the part with `candela fit CONFIG --part I --resume` (or without --resume, with --force)' });
+    issues.push({ code: 'merge.no_checkpoint', file: checkpointPath, message: `${dir} has no readable checkpoint.bin and chain-record.bin, which hold the part's sampler state and exact chain`, fix: 'rerun the part with `candela fit CONFIG --part I --resume` (or without --resume, with --force)' });
     return null;
   }
 }
@@ -51,7 +59,7 @@ function readPart(dir: string, issues: Issue[]): PartOnDisk | null {
  * contains none of them (preparing it with --force would delete them).
  * Every problem is collected, each naming the folder at fault.
  *
- * Cost: reading each part's run.json and checkpoint.
+ * Cost: reading each part's run.json and checkpoint state (the chains stay on disk, read later a block at a time).
  * @param dirs part folders.
  * @param outDir the merged run folder.
  * @returns the parts, sorted by their original ensemble index.

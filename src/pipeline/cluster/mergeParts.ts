@@ -6,7 +6,7 @@ import { runJsonText, writeFileAtomic } from '../../output/index.js';
 import { createInProcessEvaluator, EnsembleSampler, type EnsembleSnapshot, type SamplerSnapshot } from '../../sampler/index.js';
 import { buildModel } from '../run/buildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
-import { appendChainRecord, chainsSelection, writeChainsFile, type ChainsSelection } from '../../output/index.js';
+import { acceptedMoveCounts, chainsSelection, ensemblesSideBySide, forEachStoredBlock, writeChainRecordFrom, writeChainsFile, type ChainsSelection } from '../../output/index.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import { readPartsForMerge, type PartOnDisk, type PartRecord } from './mergeChecks.js';
@@ -78,24 +78,15 @@ function loadPartConfiguration(first: PartRecord, dir: string): CandelaConfig {
   return config;
 }
 
-/** One part's ensemble cut to `steps` stored steps. Acceptance counts of a cut chain are recounted from its moves. */
-function truncatedEnsemble(part: PartOnDisk, steps: number): EnsembleSnapshot {
+/**
+ * One part's sampler state as an ensemble of the merged run, holding no stored step (they stay in the part's
+ * chain record). A part cut to fewer steps than it ran gets its acceptance counts recounted over the kept steps.
+ */
+function mergedEnsemble(part: PartOnDisk, steps: number): EnsembleSnapshot {
   const saved = part.snapshot.ensembles[0];
-  const { walkers, dimension } = part.snapshot.options;
-  const blobCount = part.snapshot.blobCount;
-  let acceptedCounts = saved.acceptedCounts;
-  if (steps < part.snapshot.stepCount) {
-    acceptedCounts = new Float64Array(walkers);
-    for (let s = 1; s < steps; s++) {
-      for (let w = 0; w < walkers; w++) if (saved.chainLogProb[s * walkers + w] !== saved.chainLogProb[(s - 1) * walkers + w]) acceptedCounts[w] += 1;
-    }
-  }
-  return {
-    ...saved, acceptedCounts,
-    chainPositions: saved.chainPositions.subarray(0, steps * walkers * dimension),
-    chainLogProb: saved.chainLogProb.subarray(0, steps * walkers),
-    chainBlobs: saved.chainBlobs.subarray(0, steps * walkers * blobCount),
-  };
+  const empty = new Float64Array(0);
+  const acceptedCounts = steps < part.snapshot.stepCount ? acceptedMoveCounts(part.draws, steps) : saved.acceptedCounts;
+  return { ...saved, acceptedCounts, chainPositions: empty, chainLogProb: empty, chainBlobs: empty };
 }
 
 /**
@@ -140,18 +131,26 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
     throw new CandelaError({ code: 'merge.too_short', file: shortest.dir, message: `the part ${shortest.dir} holds ${steps} steps, too few to summarize`, expected: `>= ${MINIMUM_MERGED_STEPS} steps`, found: String(steps), fix: 'continue that part with `candela fit CONFIG --part I --resume --steps-per-part N` (or submit the plan again), then merge again' });
   }
   const indices = parts.map((part) => part.record.part.ensemble);
+  // Every step stays on disk: the merged chains are the parts' chain records side by side, read a block at a time,
+  // and the sampler's diagnostic traces are rebuilt by replaying them (as a resumed fit does), so merging needs memory
+  // for a block and the traces, not for the chains.
+  const ensembles = ensemblesSideBySide(parts.map((part) => part.draws), steps);
   const merged: SamplerSnapshot = {
-    ...first.snapshot, stepCount: steps,
+    ...first.snapshot, stepCount: steps, chainFirstStep: steps,
     options: { ...first.snapshot.options, ensembles: parts.length, ensembleIndices: indices },
-    ensembles: parts.map((part) => truncatedEnsemble(part, steps)),
+    ensembles: parts.map((part) => mergedEnsemble(part, steps)),
   };
   const evaluator = createInProcessEvaluator(model.logProbability);
-  const sampler = await EnsembleSampler.restore(merged, evaluator);
+  const sampler = await EnsembleSampler.restore(merged, evaluator, {
+    earlierSteps: (visit) => forEachStoredBlock(ensembles, (ensemble, firstStep, block) => {
+      const size = block.walkers * block.dimension;
+      for (let s = 0; s < block.steps; s++) visit(firstStep + s, ensemble, block.positions.subarray(s * size, (s + 1) * size));
+    }),
+  });
   const check = checkConvergence(sampler, { targetEss: config.sampler.targetEss, maxRhat: config.sampler.maxRhat });
   const wallSeconds = Math.max(...parts.map((part) => part.wallSeconds));
   const evaluations = parts.reduce((sum, part) => sum + part.evaluations, 0);
   const workers = Math.max(...parts.map((part) => part.record.run.worker_threads));
-  const ensembles = parts.map((_, k) => ({ ...sampler.chain(k) }));
   const base = createRunRecord({ config, modelIndex, model, data, check, stopReason: 'max_steps', wallSeconds, evaluations, steps, workers, draws: ensembles });
   const recorded = JSON.stringify(first.record.inputs.map((input) => input.sha256));
   if (JSON.stringify(base.inputs.map((input) => input.sha256)) !== recorded) {
@@ -180,7 +179,7 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   prepareRunFolder(request.outDir, { force: Boolean(request.force), resume: false });
   // Every step goes to the merged folder's chain record (what the summaries read when chains.csv is thinned);
   // chains.csv holds the steps output.chains asks for, chosen as a fit chooses them.
-  appendChainRecord(request.outDir, sampler.snapshot(), { sync: true });
+  writeChainRecordFrom(request.outDir, ensembles);
   const selection = chainsSelection(config.output.chains, steps, check.burnInSteps, check.maxTau);
   if (selection.keep !== 'all') record.chains_csv = selection;
   writeChainsFile(join(request.outDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps, undefined, selection);

@@ -9,7 +9,7 @@ import {
   type BatchEvaluator, type LogProbabilityModel, type WorkerModelSpec,
 } from '../../sampler/index.js';
 import { runJsonText, writeFileAtomic } from '../../output/index.js';
-import { appendChainRecord, readChainRecordDraws, readCheckpointState, recordShapeOf, writeCheckpoint } from '../../output/index.js';
+import { appendChainRecord, drawsFromChainRecord, readCheckpointState, recordShapeOf, shiftedDraws, writeCheckpoint } from '../../output/index.js';
 import { chainsSelection, type ChainsCsvOption, type ChainsSelection } from '../../output/index.js';
 import { buildModel, type BuiltModel } from '../run/buildModel.js';
 import { writeChainsFile } from '../../output/index.js';
@@ -20,7 +20,7 @@ import { createRunRecord, type RunRecord } from '../run/runRecord.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
 import { writeRunOutputsUnlessStopped } from '../report/buildRunOutputs.js';
-import { blindEnsembleDraws, blindRunRecord } from '../blinding/blindRunRecord.js';
+import { blindRunRecord } from '../blinding/blindRunRecord.js';
 import { checkBlindingSupported } from '../blinding/checkBlindingSupported.js';
 import { prepareRunBlinding } from '../blinding/prepareRunBlinding.js';
 import { workerModelUrl } from '../run/workerModel.js';
@@ -342,11 +342,12 @@ async function fitOneModel(
     }
     check = checkConvergence(sampler, rule);
     const wallSeconds = previousSeconds + (Date.now() - started) / 1000;
-    // Every step, from the chain record the checkpoint has just completed (the sampler holds none of them any more).
-    const ensembles = readChainRecordDraws(runDir, recordShapeOf(sampler.snapshot()), sampler.stepCount);
+    // Every step, streamed from the chain record the checkpoint has just completed (the sampler holds none of them
+    // any more): chains.csv, the best fit and the Hubble files read it a block at a time, so memory does not grow with the run.
+    const ensembles = drawsFromChainRecord(runDir, recordShapeOf(sampler.snapshot()), sampler.stepCount);
     const selection = chainsSelection(request.chainsCsv ?? config.output.chains, sampler.stepCount, check.burnInSteps, check.maxTau);
     // A blinded run's chains.csv shows the blinded parameters shifted and leaves the derived quantities out (docs/blinding.md).
-    const shownDraws = blinding ? blindEnsembleDraws(ensembles, model.parameterNames, blinding.offsets) : ensembles;
+    const shownDraws = blinding ? shiftedDraws(ensembles, model.parameterNames.map((name) => blinding.offsets[name] ?? 0)) : ensembles;
     writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: blinding ? [] : model.derivedNames }, shownDraws, check.burnInSteps, undefined, selection);
     const fullRecord = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, draws: ensembles });
     const stored: RunRecord & { chains_csv?: ChainsSelection } = selection.keep === 'all' ? fullRecord : { ...fullRecord, chains_csv: selection };

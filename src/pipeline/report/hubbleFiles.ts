@@ -4,7 +4,7 @@ import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, cosmologyParamet
 import { createRandomStream, curveQuantiles, deriveSeed, logSpacedGrid } from '../../math/index.js';
 import { hubbleDiagramCsv, hubbleModelCsv, writeFileAtomic } from '../../output/index.js';
 import type { BuiltModel } from '../run/buildModel.js';
-import type { EnsembleDraws } from '../../output/index.js';
+import { bestStoredDraw, drawsInMemory, type EnsembleDraws, type StoredDraws } from '../../output/index.js';
 import { arrayExtent } from '../../math/index.js';
 import { RUN_FILES } from '../../output/index.js';
 
@@ -27,24 +27,27 @@ const CURVE_POINTS = 120;
  * writes only those. `blinded`: only hubble_diagram.csv, with mu_obs and
  * mu_model left empty (docs/blinding.md).
  */
-export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: EnsembleDraws[], burnInSteps: number, seed: string, options: { blinded?: boolean } = {}): void {
+export function writeHubbleFiles(runDir: string, model: BuiltModel, stored: StoredDraws | EnsembleDraws[], burnInSteps: number, seed: string, options: { blinded?: boolean } = {}): void {
   const { posterior, supernovae } = model;
-  const dimension = posterior.dimension;
-  const rows: Array<{ ensemble: number; row: number }> = [];
-  let best = { ensemble: 0, row: burnInSteps * ensembles[0].walkers, logProb: -Infinity };
-  ensembles.forEach((draws, k) => {
-    for (let row = burnInSteps * draws.walkers; row < draws.steps * draws.walkers; row++) {
-      rows.push({ ensemble: k, row });
-      if (draws.logProb[row] > best.logProb) best = { ensemble: k, row, logProb: draws.logProb[row] };
-    }
-  });
-  const pointOf = (ensemble: number, row: number) => ensembles[ensemble].positions.slice(row * dimension, (row + 1) * dimension);
-  const bestValues = posterior.values(pointOf(best.ensemble, best.row));
+  // The draws are read from the source a block at a time (the best fit) and one step at a time (the seeded picks),
+  // never whole: a chain of any length gives these files in bounded memory.
+  const source = 'block' in stored ? stored : drawsInMemory(stored);
+  const perEnsemble = Math.max(0, source.steps - burnInSteps) * source.walkers;
+  const rowCount = source.ensembles * perEnsemble;
+  // Pick p of the post-burn-in rows, counted ensemble after ensemble (the order the draws are stored in).
+  const pointAt = (pick: number): Float64Array => {
+    const ensemble = Math.floor(pick / perEnsemble);
+    const row = pick % perEnsemble;
+    const step = burnInSteps + Math.floor(row / source.walkers);
+    const walker = row % source.walkers;
+    return source.block(ensemble, step, step + 1).positions.slice(walker * source.dimension, (walker + 1) * source.dimension);
+  };
+  const best = bestStoredDraw(source, burnInSteps);
+  const bestValues = posterior.values(best.theta);
   if (model.probes.length > 0 && !options.blinded) {
     const probeRandom = createRandomStream(deriveSeed(seed, 'probe-band'));
-    const probeDraws = Array.from({ length: Math.min(BAND_DRAWS, rows.length) }, () => {
-      const pick = rows[probeRandom.integer(rows.length)];
-      return posterior.values(pointOf(pick.ensemble, pick.row));
+    const probeDraws = Array.from({ length: Math.min(BAND_DRAWS, rowCount) }, () => {
+      return posterior.values(pointAt(probeRandom.integer(rowCount)));
     });
     writeProbeDiagrams(runDir, model, bestValues, probeDraws);
   }
@@ -74,11 +77,10 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, ensembles: E
   const bestCurve = new Float64Array(CURVE_POINTS);
   curve({ ...bestValues }, 0, bestCurve);
   const random = createRandomStream(deriveSeed(seed, 'hubble-band'));
-  const draws = Math.min(BAND_DRAWS, rows.length);
+  const draws = Math.min(BAND_DRAWS, rowCount);
   const curves: Float64Array[] = [];
   for (let d = 0; d < draws; d++) {
-    const pick = rows[random.integer(rows.length)];
-    const values = { ...posterior.values(pointOf(pick.ensemble, pick.row)) };
+    const values = { ...posterior.values(pointAt(random.integer(rowCount))) };
     const absMag = values.abs_mag ?? supernovae.bestFitOffset(values);
     const out = new Float64Array(CURVE_POINTS);
     if (Number.isFinite(absMag) && curve(values, absMag - diagram.absoluteMagnitudeMag, out)) curves.push(out);

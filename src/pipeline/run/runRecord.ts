@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { configToPlainObject, type CandelaConfig } from '../../config/index.js';
-import type { EnsembleDraws } from '../../output/index.js';
+import { bestStoredDraw, drawsInMemory, type EnsembleDraws, type StoredDraws } from '../../output/index.js';
 import { VERSION } from './version.js';
 import type { BuiltModel } from './buildModel.js';
 import { probeInputFiles } from './loadProbes.js';
@@ -148,7 +148,7 @@ export function commonRunSections(input: { config: CandelaConfig; modelIndex: nu
 /** Assembles run.json for a finished (or interrupted) ensemble run; `draws` are its stored steps, one entry per ensemble (for the best fit). */
 export function createRunRecord(input: {
   config: CandelaConfig; modelIndex: number; model: BuiltModel; data: LoadedSupernovae; check: ConvergenceCheck;
-  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; draws: readonly EnsembleDraws[];
+  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; draws: StoredDraws | readonly EnsembleDraws[];
 }): RunRecord {
   const { config, check, draws } = input;
   const best = locateBestSample(draws, check.burnInSteps);
@@ -163,20 +163,9 @@ export function createRunRecord(input: {
   };
 }
 
-/** The stored sample with the highest log posterior after the burn-in (the first of equal values, in ensemble, step, walker order). */
-export function locateBestSample(draws: readonly EnsembleDraws[], burnInSteps: number): BestSample {
-  let bestLogProb = -Infinity;
-  let theta = new Float64Array(draws[0]?.dimension ?? 0);
-  let logLikelihood = Number.NaN;
-  for (const chain of draws) {
-    const { walkers, dimension } = chain;
-    for (let row = burnInSteps * walkers; row < chain.steps * walkers; row++) {
-      if (chain.logProb[row] > bestLogProb) {
-        bestLogProb = chain.logProb[row];
-        theta = chain.positions.slice(row * dimension, (row + 1) * dimension);
-        logLikelihood = chain.blobs[row * chain.blobCount + 1];
-      }
-    }
-  }
-  return { theta, logProb: bestLogProb, logLikelihood };
+/** The stored sample with the highest log posterior after the burn-in (the first of equal values, in ensemble, step, walker order), streamed from the draws (bestStoredDraw). */
+export function locateBestSample(draws: StoredDraws | readonly EnsembleDraws[], burnInSteps: number): BestSample {
+  const source = 'block' in draws ? draws : drawsInMemory(draws);
+  const best = bestStoredDraw(source, burnInSteps);
+  return { theta: best.theta, logProb: best.logProb, logLikelihood: best.logLikelihood };
 }

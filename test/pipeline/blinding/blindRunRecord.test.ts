@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { blindEnsembleDraws, blindRunRecord } from '../../../src/pipeline/blinding/blindRunRecord.js';
+import { blindRunRecord } from '../../../src/pipeline/blinding/blindRunRecord.js';
 import type { RunRecord } from '../../../src/pipeline/run/runRecord.js';
 
 const record = {
@@ -19,15 +19,5 @@ describe('blindRunRecord', () => {
 
   it('shifts the best-fit absolute magnitude when abs_mag is blinded', () => {
     expect(blindRunRecord(record, { parameters: ['abs_mag'], offsets: { abs_mag: 0.1 }, widths: { abs_mag: 0.2 } }).best_fit.abs_mag).toBeCloseTo(-19.2, 12);
-  });
-});
-
-describe('blindEnsembleDraws', () => {
-  it('adds each offset to its dimension of every stored position and shares the rest', () => {
-    const draws = { steps: 1, walkers: 2, dimension: 2, blobCount: 2, positions: Float64Array.of(0.3, -1, 0.31, -0.9), logProb: Float64Array.of(1, 2), blobs: Float64Array.of(0, 1, 0, 2) };
-    const [shown] = blindEnsembleDraws([draws], ['omega_m', 'w0'], { w0: 0.25 });
-    expect(Array.from(shown.positions)).toEqual([0.3, -0.75, 0.31, -0.65]);
-    expect(shown.logProb).toBe(draws.logProb);
-    expect(draws.positions[1]).toBe(-1);
   });
 });
