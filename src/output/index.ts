@@ -120,6 +120,10 @@ export type { SummaryJsonBestFit } from './summaries/summaryJson.js';
 export type { SummaryJsonDiagnostics } from './summaries/summaryJson.js';
 export type { SummaryJsonNestedFacts } from './summaries/summaryJson.js';
 export { summaryJsonDocument } from './summaries/summaryJson.js';
+// The terminal text after a fit (plain facts in, text out).
+export { TERMINAL_COLUMNS } from './summaries/runTerminalText.js';
+export type { RunTerminalFacts } from './summaries/runTerminalText.js';
+export { runTerminalText } from './summaries/runTerminalText.js';
 // Run-folder formats: the folder layout, the chains CSV, the binary sampler state, the checkpoint and chain record.
 export { RUN_FILES } from './run/runFolder.js';
 export { prepareRunFolder } from './run/runFolder.js';
