@@ -53,9 +53,10 @@ export type { MarginalDensity1D, DensityGrid2D, BandwidthRule, HardBounds, Margi
 // Text
 export { editDistance } from './text/editDistance.js';
 export { closestWord } from './text/closestWord.js';
-// Extent of an array; resampling weighted (nested) draws to equal weights.
+// Extent of an array; log-spaced grids and interpolation in ln x on them; resampling weighted (nested) draws to equal weights.
 export { arrayExtent } from './arrayExtent.js';
 export { logSpacedGrid } from './logSpacedGrid.js';
+export { interpolateLogSpaced } from './interpolateLogSpaced.js';
 export { resampleRowsByWeight } from './nestedResampleRows.js';
 export { equalWeightRows } from './equalWeightRows.js';
 

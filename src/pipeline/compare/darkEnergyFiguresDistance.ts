@@ -5,7 +5,7 @@ import type { BuiltModel } from '../run/buildModel.js';
 import { binResiduals } from '../report/buildRunOutputs.js';
 import type { AnalyzedRun } from './compareInputs.js';
 import type { RebuiltRunModel } from './compareRebuildModel.js';
-import { curveBands, equalWeightRows, logSpacedGrid } from '../../math/index.js';
+import { curveBands, equalWeightRows, interpolateLogSpaced, logSpacedGrid } from '../../math/index.js';
 
 /** Posterior draws behind each model's distance-modulus band (68% band from ~300 draws: ~2% noise on its edges; common practice). */
 export const DISTANCE_BAND_DRAWS = 300;
@@ -116,15 +116,10 @@ export function distanceDifferenceBands(runs: readonly AnalyzedRun[], rebuilt: R
   if (columns && bestCurve) {
     const rows = columns.z.map((_, i) => i).filter((i) => columns.calibrator?.[i] !== '1');
     const z = Float64Array.from(rows, (i) => Number(columns.z[i]));
-    const shift = (redshift: number) => {
-      // Linear interpolation in ln z of m_best - m_ref on the grid (the helio-centric term cancels in the difference).
-      const position = Math.log(Math.max(redshift, zMin) / zMin) / Math.log(zHigh / zMin) * (grid.length - 1);
-      const low = Math.max(0, Math.min(grid.length - 2, Math.floor(position)));
-      const fraction = Math.min(1, Math.max(0, position - low));
-      const at = (i: number) => bestCurve[i] - reference[i];
-      return at(low) + fraction * (at(low + 1) - at(low));
-    };
-    const residual = Float64Array.from(rows, (i, k) => Number(columns.residual[i]) + shift(z[k]));
+    // m_best - m_ref at each supernova, interpolated in ln z on the grid (the helio-centric term cancels in the difference).
+    const difference = bestCurve.map((value, i) => value - reference[i]);
+    const shift = interpolateLogSpaced(difference, zMin, zHigh, z);
+    const residual = Float64Array.from(rows, (i, k) => Number(columns.residual[i]) + shift[k]);
     const error = Float64Array.from(rows, (i) => Number(columns.sigma_mu[i]));
     const binned = binResiduals(z, residual, error, DISTANCE_RESIDUAL_BINS);
     input.points = { x: binned.map((bin) => bin.z), y: binned.map((bin) => bin.mean), error: binned.map((bin) => bin.err), label: `binned data (${record.model.label} residuals)` };
