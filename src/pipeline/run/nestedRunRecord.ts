@@ -1,29 +1,12 @@
 import type { CandelaConfig } from '../../config/index.js';
+import { nestedRunJson, type NestedRunJsonSections } from '../../output/index.js';
 import type { NestedResult } from '../../sampler/index.js';
 import type { BuiltModel } from './buildModel.js';
 import type { LoadedSupernovae } from './loadSupernovae.js';
 import { commonRunSections, type RunRecord } from './runRecord.js';
 
-/** What run.json adds for a nested-sampling run (snake_case, as written). */
-export interface NestedRunFacts {
-  sampler: {
-    method: 'nested';
-    live_points: number;
-    /** The configured bound on the ln Z the live points could still add, nats (`sampler.nested.max_unexplored_ln_z`). */
-    max_unexplored_ln_z: number;
-    max_iterations: number;
-    /** Volume enlargement of the bounding ellipsoids. */
-    enlargement: number;
-    /** `max_unexplored_ln_z`: the unexplored ln Z fell below its bound; `max_iterations`: the iteration cap was reached first. */
-    stop: 'max_unexplored_ln_z' | 'max_iterations';
-    /** Remaining-evidence estimate ln(Z + L_max X) - ln Z when the run stopped, nats. */
-    remaining_log_z: number;
-    /** Kish (1965) effective sample size of the posterior weights. */
-    effective_sample_size: number;
-  };
-  /** ln Z with its error sqrt(H / N), the information H (nats), iterations and likelihood calls (Skilling 2006). */
-  evidence: { log_z: number; log_z_error: number; information_nats: number; iterations: number; likelihood_calls: number };
-}
+/** What run.json adds for a nested-sampling run (snake_case, as written; the layout lives in output/run/nestedRunJson). */
+export type NestedRunFacts = NestedRunJsonSections;
 
 /** run.json of a nested-sampling run. */
 export type NestedRunRecord = RunRecord & NestedRunFacts;
@@ -36,13 +19,10 @@ export interface NestedBestSample {
 }
 
 /**
- * Assembles run.json for a nested-sampling run: the same facts as an
- * ensemble run's record, where the chain layout reads as one ensemble of one
- * walker whose `steps` are the stored samples (dead points, then the final
- * live points), no burn-in, `stop_reason` `converged` when the unexplored-ln Z
- * criterion was met and `max_steps` when the iteration cap stopped the run;
- * plus `sampler` (method, settings, stop, Kish effective sample size) and
- * `evidence` (ln Z, its error, the information, iterations, likelihood calls).
+ * Assembles run.json for a nested-sampling run: the sections every run
+ * record has (commonRunSections), then the nested-sampling `run`, `sampler`
+ * and `evidence` sections of the output layer's nestedRunJson, mapped from
+ * the configuration and the nested result.
  *
  * Cost: one likelihood evaluation at the best sample plus hashing the input files.
  * @param input configuration and model index, the built model and data, the
@@ -56,31 +36,26 @@ export function createNestedRunRecord(input: {
   result: NestedResult; best: NestedBestSample; enlargement: number; wallSeconds: number;
 }): NestedRunRecord {
   const { config, result, best } = input;
-  const rows = result.logLikelihoods.length;
   return {
     ...commonRunSections({ ...input, best: { theta: best.theta, logProb: best.logPosterior, logLikelihood: best.logLikelihood } }),
-    run: {
-      seed: String(config.seed), steps: rows, burn_in_steps: 0, walkers: 1, ensembles: 1,
-      evaluations: result.likelihoodCalls, wall_seconds: Math.round(input.wallSeconds * 1000) / 1000, worker_threads: 1,
-      stop_reason: result.stopReason === 'evidence_settled' ? 'converged' : 'max_steps',
-      target_ess: config.sampler.targetEss, max_rhat: config.sampler.maxRhat,
-    },
-    sampler: {
-      method: 'nested',
-      live_points: config.sampler.nested.livePoints,
-      max_unexplored_ln_z: config.sampler.nested.maxUnexploredLnZ,
-      max_iterations: config.sampler.nested.maxIterations,
+    ...nestedRunJson({
+      seed: String(config.seed),
+      storedSamples: result.logLikelihoods.length,
+      likelihoodCalls: result.likelihoodCalls,
+      wallSeconds: input.wallSeconds,
+      evidenceSettled: result.stopReason === 'evidence_settled',
+      targetEss: config.sampler.targetEss,
+      maxRhat: config.sampler.maxRhat,
+      livePoints: config.sampler.nested.livePoints,
+      maxUnexploredLnZ: config.sampler.nested.maxUnexploredLnZ,
+      maxIterations: config.sampler.nested.maxIterations,
       enlargement: input.enlargement,
-      stop: result.stopReason === 'evidence_settled' ? 'max_unexplored_ln_z' : 'max_iterations',
-      remaining_log_z: result.remainingLogZ,
-      effective_sample_size: result.effectiveSampleSize,
-    },
-    evidence: {
-      log_z: result.logZ,
-      log_z_error: result.logZError,
-      information_nats: result.information,
+      remainingLogZ: result.remainingLogZ,
+      effectiveSampleSize: result.effectiveSampleSize,
+      logZ: result.logZ,
+      logZError: result.logZError,
+      informationNats: result.information,
       iterations: result.iterations,
-      likelihood_calls: result.likelihoodCalls,
-    },
+    }),
   };
 }
