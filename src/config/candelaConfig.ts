@@ -235,6 +235,12 @@ export interface OutputOptions {
    * chain record (chain-record.bin) always holds every step.
    */
   chains: { keep: 'after_burn_in' | 'all'; thinTauFraction: number };
+  /**
+   * Memory the chains of an ensemble run may take as numbers when the run is
+   * summarized (end of the fit, `report`, `compare`, `budget`), MB; a longer
+   * run is read keeping every k-th step. Null: the reader's default (1024 MB).
+   */
+  chainMemoryMb: number | null;
 }
 
 /**

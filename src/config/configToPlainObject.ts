@@ -79,6 +79,7 @@ export function configToPlainObject(config: CandelaConfig, options: PlainConfigO
       triangle_parameters: output.triangleParameters === 'auto' ? 'auto' : [...output.triangleParameters],
       ...(output.truthFile ? { truth_file: path(output.truthFile) } : {}),
       chains: { keep: output.chains.keep, spacing_tau: output.chains.thinTauFraction },
+      ...(output.chainMemoryMb !== null ? { chain_memory_mb: output.chainMemoryMb } : {}),
     },
     ...(config.blinding ? { blinding: { parameters: [...config.blinding.parameters], offset_widths: { ...config.blinding.offsetWidths } } } : {}),
   };

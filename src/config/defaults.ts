@@ -142,6 +142,7 @@ export const DEFAULT_OUTPUT: Omit<OutputOptions, 'dir'> & { dir: string } = {
   // chains.csv: the thinned steps after the burn-in, half an autocorrelation time apart (common practice: draws that
   // close are still correlated, so little is lost); `keep: all` writes every step.
   chains: { keep: 'after_burn_in', thinTauFraction: 0.5 },
+  chainMemoryMb: null,
 };
 
 /** Parameters blinded when the `blinding` block names none: the dark-energy and expansion parameters a survey's headline is about. */

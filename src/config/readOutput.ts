@@ -7,7 +7,7 @@ import type { ConfigReader, Located } from './configReader.js';
 import { DEFAULT_OUTPUT } from './defaults.js';
 import { resolveConfigPath } from './resolveConfigPath.js';
 
-const KEYS = ['dir', 'contour_pairs', 'smoothing', 'figures', 'png', 'figure_width', 'font', 'pdf', 'png_dpi', 'triangle_parameters', 'truth_file', 'chains'] as const;
+const KEYS = ['dir', 'contour_pairs', 'smoothing', 'figures', 'png', 'figure_width', 'font', 'pdf', 'png_dpi', 'triangle_parameters', 'truth_file', 'chains', 'chain_memory_mb'] as const;
 const CHAINS_KEYS = ['keep', 'spacing_tau'] as const;
 /** Widest figure accepted, inches (a full page is about 7 in; twice that is surely a typo). */
 const MAX_FIGURE_INCHES = 14;
@@ -87,6 +87,8 @@ export function readOutput(reader: ConfigReader, at: Located): OutputOptions {
     options.chains.keep = reader.choice(chains.get('keep'), ['after_burn_in', 'all'] as const) ?? options.chains.keep;
     options.chains.thinTauFraction = reader.number(chains.get('spacing_tau'), { min: 0, exclusiveMin: true, max: 100, fix: 'write spacing_tau: 0.5 (half an autocorrelation time between kept steps)' }) ?? options.chains.thinTauFraction;
   }
+  const memory = reader.number(fields.get('chain_memory_mb'), { min: 16, max: 16 * 1024 * 1024, fix: 'write chain_memory_mb: 1024 (MB the chains may take when a run is summarized; at least 16)' });
+  if (memory !== undefined) options.chainMemoryMb = memory;
   return options;
 }
 

@@ -20,6 +20,8 @@ export interface AutocorrelationSeries {
   correlation: ArrayLike<number>;
   /** Integrated autocorrelation time (steps), marked on the curve; null when undefined. */
   tauSteps: number | null;
+  /** Steps between consecutive entries of `correlation` (default 1; k for a chain read every k-th step). */
+  lagStepSize?: number;
 }
 
 /** Optional settings of {@link autocorrelationFigure}. */
@@ -71,12 +73,13 @@ export function autocorrelationFigure(series: readonly AutocorrelationSeries[], 
   }
   const widthPx = figureWidthPx(options.width, options.widthPx ?? 560);
   const heightPx = Math.round(options.heightPx ?? 360);
-  const longest = Math.max(...series.map((entry) => entry.correlation.length)) - 1;
+  const sizeOf = (entry: AutocorrelationSeries): number => entry.lagStepSize ?? 1;
+  const longest = Math.max(...series.map((entry) => (entry.correlation.length - 1) * sizeOf(entry)));
   const taus = series.map((entry) => entry.tauSteps).filter((tau): tau is number => tau !== null && Number.isFinite(tau) && tau > 0);
   const lastLag = Math.min(longest, Math.max(MINIMUM_LAGS, Math.ceil(LAGS_PER_LARGEST_TAU * Math.max(0, ...taus))));
   const shown = series.map((entry, index) => {
-    const count = Math.min(entry.correlation.length, lastLag + 1);
-    const lags = Float64Array.from({ length: count }, (_, lag) => lag);
+    const count = Math.min(entry.correlation.length, Math.floor(lastLag / sizeOf(entry)) + 1);
+    const lags = Float64Array.from({ length: count }, (_, lag) => lag * sizeOf(entry));
     const values = Float64Array.from({ length: count }, (_, lag) => entry.correlation[lag]);
     return { ...entry, lags, values, color: seriesColor(index), shape: seriesMarkerShape(index) };
   });
@@ -98,8 +101,8 @@ export function autocorrelationFigure(series: readonly AutocorrelationSeries[], 
   }
   for (const entry of shown) {
     const tau = entry.tauSteps;
-    if (tau === null || !Number.isFinite(tau) || tau > entry.lags.length - 1) continue;
-    const at = valueAtLag(entry.values, tau);
+    if (tau === null || !Number.isFinite(tau) || tau > entry.lags[entry.lags.length - 1]) continue;
+    const at = valueAtLag(entry.values, tau / sizeOf(entry));
     layers.push(svgElement('path', { class: 'tau-drop', fill: 'none', stroke: entry.color, 'stroke-width': FIGURE_STYLE.thinStrokePx, d: linePathData([tau, tau], [0, at], xScale, yScale) }));
     layers.push(svgElement('path', { class: 'tau-marker', fill: entry.color, stroke: FIGURE_STYLE.background, 'stroke-width': 0.6, 'data-parameter': entry.parameter, d: shapedMarkersPathData([tau], [at], xScale, yScale, TAU_MARKER_RADIUS_PX, entry.shape) }));
   }

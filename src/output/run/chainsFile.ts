@@ -52,6 +52,16 @@ export interface ChainTable {
   /** Posterior weight per row (the `weight` column of a nested-sampling run), or null for equally weighted chains. */
   weights: Float64Array | null;
   rows: number;
+  /**
+   * The table keeps every stepStride-th step of an ensemble run (0, k, 2k, ...; absent or 1: every step), when the
+   * whole chain would exceed the memory budget of the reader; the rows keep their true step numbers.
+   */
+  stepStride?: number;
+  /**
+   * Acceptance fraction of each walker over every step of the run (ensemble-major: k x walkers + w), counted while
+   * reading, so that it is exact when the table keeps fewer steps; absent when the reader did not count it.
+   */
+  walkerAcceptance?: Float64Array;
 }
 
 /** Rows buffered before each write. */

@@ -57,28 +57,43 @@ function parseCell(text: string): number {
   return Number(text);
 }
 
+/** What readChainsFile knows of an ensemble run beforehand (from run.json), to check the layout and keep fewer steps. */
+export interface ChainsReadOptions {
+  /**
+   * The run's layout: every row must then be in place (ensemble, then step, then walker, one row each of
+   * ensembles x steps x walkers), the walkers' acceptance is counted over every row (ChainTable.walkerAcceptance),
+   * and the message of a short or disordered file says what run.json counts.
+   */
+  layout?: { ensembles: number; walkers: number; steps: number };
+  /** Keep only the rows of every stepStride-th step (0, k, 2k, ...), default 1; every row is still read and checked. */
+  stepStride?: number;
+}
+
 /**
  * Reads chains.csv back (with or without a weight column), streaming: the
  * file is read in chunks of READ_CHUNK_BYTES and parsed row by row into
  * column arrays, so no string ever holds the whole file (a single string
  * stops at about 512 MB in Node.js) and the memory is the numbers
  * themselves: 8 bytes per value cell and 13 per row for the layout columns,
- * about half the size of the text.
+ * about half the size of the text, divided by `stepStride` when only every
+ * stepStride-th step is kept.
  *
  * The file must be whole: every row ends with a newline and has one field
  * per header name, and every cell is a number, empty (an undefined derived
  * quantity) or `-inf`. A file cut inside a row (a crash during a copy, a
- * full disk) is refused naming the line; a file cut at a row boundary is
- * caught by the layout check of readRunFolder against run.json.
+ * full disk) is refused naming the line; with `layout`, a file cut at a row
+ * boundary, or missing or disordered rows, is refused too (the row counts,
+ * or the first row out of place).
  *
- * Cost: O(file size) time; memory O(rows x columns) numbers plus one chunk.
+ * Cost: O(file size) time; memory O(rows / stepStride x columns) numbers plus one chunk.
  * @param path the chains file.
+ * @param options the run's layout and the step stride (see ChainsReadOptions).
  * @returns the columns, with `weights` set when the file has a weight column.
  * @throws CandelaError `run.no_chains` when unreadable, `run.bad_chains` naming the line of a malformed,
- *   incomplete or non-numeric row or the missing columns.
+ *   incomplete, non-numeric or (with `layout`) misplaced row, the missing columns, or the row counts.
  * @example readChainsFile('out/run/chains.csv').columns.omega_m
  */
-export function readChainsFile(path: string): ChainTable {
+export function readChainsFile(path: string, options: ChainsReadOptions = {}): ChainTable {
   let descriptor: number;
   let size: number;
   try {
@@ -88,13 +103,60 @@ export function readChainsFile(path: string): ChainTable {
     throw new CandelaError({ code: 'run.no_chains', file: path, message: 'cannot read the chains file', fix: 'point to a run folder written by `candela fit` (it holds chains.csv)' });
   }
   try {
-    return parseChains(path, descriptor, size);
+    return parseChains(path, descriptor, size, options);
   } finally {
     closeSync(descriptor);
   }
 }
 
-function parseChains(path: string, descriptor: number, size: number): ChainTable {
+/** The layout check and acceptance count of an ensemble run's rows, as they stream by. */
+class LayoutTracker {
+  dataRows = 0;
+  misplaced: { line: number; expected: string; found: string } | null = null;
+  readonly moves: Float64Array;
+  private readonly previous: Float64Array;
+
+  constructor(private readonly layout: { ensembles: number; walkers: number; steps: number }) {
+    this.moves = new Float64Array(layout.ensembles * layout.walkers);
+    this.previous = new Float64Array(layout.ensembles * layout.walkers);
+  }
+
+  /** Checks one row's place (the first misplaced row is kept) and counts its walker's move. */
+  see(line: number, ensemble: number, step: number, walker: number, logPosterior: number): void {
+    const { walkers, steps } = this.layout;
+    const r = this.dataRows++;
+    const expected = { walker: r % walkers, step: Math.floor(r / walkers) % steps, ensemble: Math.floor(r / (walkers * steps)) };
+    if (this.misplaced === null && (expected.ensemble !== ensemble || expected.step !== step || expected.walker !== walker)) {
+      this.misplaced = { line, expected: `ensemble ${expected.ensemble}, step ${expected.step}, walker ${expected.walker}`, found: `ensemble ${ensemble}, step ${step}, walker ${walker}` };
+    }
+    if (this.misplaced !== null) return;
+    const slot = ensemble * walkers + walker;
+    // NaN (an empty cell) compares unequal to itself: counted as a move, as the whole-table count does.
+    if (step > 0 && logPosterior !== this.previous[slot]) this.moves[slot] += 1;
+    this.previous[slot] = logPosterior;
+  }
+
+  /** Throws when the rows do not cover the layout or one was out of place; returns each walker's acceptance fraction. */
+  finish(path: string): Float64Array {
+    const { ensembles, walkers, steps } = this.layout;
+    const fix = 'the file is incomplete or damaged; rerun `candela fit --resume` in its run folder to rewrite it';
+    if (this.dataRows !== ensembles * walkers * steps) {
+      throw new CandelaError({
+        code: 'run.bad_chains', file: path, message: 'the chains file does not hold every stored step of the run',
+        expected: `${ensembles * walkers * steps} rows (${ensembles} ensembles x ${steps} steps x ${walkers} walkers, from run.json)`, found: `${this.dataRows} rows`, fix,
+      });
+    }
+    if (this.misplaced) {
+      throw new CandelaError({ code: 'run.bad_chains', file: path, line: this.misplaced.line, message: 'a row is out of place in the chains file', expected: this.misplaced.expected, found: this.misplaced.found, fix });
+    }
+    return this.moves.map((count) => (steps > 1 ? count / (steps - 1) : 0));
+  }
+}
+
+function parseChains(path: string, descriptor: number, size: number, options: ChainsReadOptions): ChainTable {
+  const stride = options.stepStride ?? 1;
+  const tracker = options.layout ? new LayoutTracker(options.layout) : null;
+  let logPosteriorIndex = -1;
   const chunk = Buffer.allocUnsafe(READ_CHUNK_BYTES);
   let position = 0;
   let carry = '';
@@ -114,6 +176,7 @@ function parseChains(path: string, descriptor: number, size: number): ChainTable
       valueNames = names.filter((name) => !LAYOUT_COLUMNS.includes(name));
       valueIndex = valueNames.map((name) => names.indexOf(name));
       layoutIndex = LAYOUT_COLUMNS.map((name) => names.indexOf(name));
+      logPosteriorIndex = names.indexOf('log_posterior');
       return;
     }
     const parts = text.split(',');
@@ -127,6 +190,15 @@ function parseChains(path: string, descriptor: number, size: number): ChainTable
     const step = Number(parts[is]);
     if (!Number.isInteger(ensemble) || !Number.isInteger(walker) || !Number.isInteger(step) || parts[ie] === '' || parts[iw] === '' || parts[is] === '' || (parts[ib] !== '0' && parts[ib] !== '1')) {
       throw damaged(path, line, 'the ensemble, walker and step cells must be whole numbers and burn_in 0 or 1');
+    }
+    if (tracker) tracker.see(line, ensemble, step, walker, parseCell(parts[logPosteriorIndex]));
+    if (stride > 1 && step % stride !== 0) {
+      // A row of a step that is not kept: checked like any other, then dropped.
+      for (let k = 0; k < valueIndex.length; k++) {
+        const cellText = parts[valueIndex[k]];
+        if (Number.isNaN(parseCell(cellText)) && cellText !== '') throw damaged(path, line, `the ${valueNames[k]} cell "${cellText.slice(0, 40)}" is not a number`);
+      }
+      return;
     }
     target.ensemble[r] = ensemble;
     target.walker[r] = walker;
@@ -151,7 +223,7 @@ function parseChains(path: string, descriptor: number, size: number): ChainTable
       if (table === null && header !== null) {
         // Estimate the rows from the first chunk's average row length, so the columns are allocated about once.
         const rowBytes = Math.max(1, read / Math.max(1, lines.length));
-        table = new GrowingTable(valueNames.length, Math.ceil((size / rowBytes) * ROW_ESTIMATE_MARGIN) + 16);
+        table = new GrowingTable(valueNames.length, Math.ceil((size / rowBytes / stride) * ROW_ESTIMATE_MARGIN) + 16);
       }
     }
   }
@@ -167,5 +239,7 @@ function parseChains(path: string, descriptor: number, size: number): ChainTable
     columns: Object.fromEntries(valueNames.map((name, k) => [name, finalTable.values[k].subarray(0, rows)])), weights: null, rows,
   };
   if ((header as string[]).includes(WEIGHT_COLUMN)) result.weights = result.columns[WEIGHT_COLUMN];
+  if (tracker) result.walkerAcceptance = tracker.finish(path);
+  if (stride > 1) result.stepStride = stride;
   return result;
 }

@@ -16,11 +16,12 @@ import { blindedParametersOf, type BlindableRecord } from './runBlinding.js';
  * Cost: O(steps x walkers x ensembles x columns) and one key read.
  * @param dir the run folder.
  * @param record its run.json (state blinded).
+ * @param stepStride keep every stepStride-th step (readRunFolder's memory budget; default 1).
  * @returns the shown chains, in the layout of readChainsFile.
  * @throws CandelaError `run.bad_checkpoint` (chainRecordTable), `blinding.missing_key`, `blinding.damaged_key` or `blinding.foreign_key` (unsealBlindingKey).
  * @example blindedChainTable('out/demo-blinded', record).columns.w0[0]
  */
-export function blindedChainTable(dir: string, record: StoredRunRecord & BlindableRecord): ChainTable {
+export function blindedChainTable(dir: string, record: StoredRunRecord & BlindableRecord, stepStride = 1): ChainTable {
   const parameters = blindedParametersOf(record);
   const keyPath = join(dir, record.blinding!.key_file);
   let text: string;
@@ -33,7 +34,7 @@ export function blindedChainTable(dir: string, record: StoredRunRecord & Blindab
     });
   }
   const key = unsealBlindingKey(text, keyPath, blindingRunIdentity(record.run.seed, record.model.label, parameters));
-  const table = chainRecordTable(dir, record);
+  const table = chainRecordTable(dir, record, stepStride);
   const sampled = record.parameters.sampled.map((entry) => entry.name);
   const kept = [...sampled, 'log_prior', 'log_likelihood', 'log_posterior'];
   const columns = blindColumns(Object.fromEntries(kept.map((name) => [name, table.columns[name]])), key.offsets);

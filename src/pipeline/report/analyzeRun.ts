@@ -40,6 +40,13 @@ export interface RunAnalysis {
   /** Posterior weight of each kept row (nested runs), or null for equally weighted chains. */
   keptWeights: Float64Array | null;
   keptSamples: number;
+  /**
+   * The chains were read keeping every stepStride-th step (readRunFolder's memory budget; 1: every step). Summaries,
+   * densities and figures use the kept steps; tau is in steps of the run; acceptance is over every step.
+   */
+  stepStride: number;
+  /** Steps per walker the chains as read hold: ceil(steps / stepStride). */
+  storedSteps: number;
   /** Kish (1965) effective sample size of the kept weights (nested runs), else null. */
   effectiveSampleSize: number | null;
   steps: number;
@@ -131,28 +138,36 @@ export function keptRowsOf(run: RunOnDisk): Int32Array {
   return Int32Array.from(kept);
 }
 
-function ensembleDiagnostics(run: RunOnDisk, names: string[], layout: { ensembles: number; walkers: number; steps: number; burnInSteps: number }) {
+function ensembleDiagnostics(run: RunOnDisk, names: string[], layout: { ensembles: number; walkers: number; storedSteps: number; storedBurnInSteps: number; stride: number }) {
   const { chains } = run;
-  const { ensembles, walkers, steps, burnInSteps } = layout;
+  const { ensembles, walkers, storedSteps: steps, storedBurnInSteps: burnInSteps, stride } = layout;
   const diagnostics: Record<string, ParameterDiagnostics> = {};
   // Same computation as the stopping rule (diagnoseTraces): burn-in from the file, thinning from the sampled parameters' tau.
+  // On chains read every stride-th step, tau comes out in kept steps and is scaled back to steps of the run; R-hat and ESS
+  // are computed on steps a fifth of tau apart anyway, so a stride below that changes them little (diagnoseTraces).
   const usable = names.filter((name) => chains.columns[name].every((v) => Number.isFinite(v)));
   const sampledCount = usable.filter((name) => run.record.parameters.sampled.some((p) => p.name === name)).length;
   const ordered = [...usable.slice(0, sampledCount), ...usable.slice(sampledCount)];
   if (ordered.length > 0 && steps - burnInSteps >= 6) {
     const traces = ordered.map((name) => Array.from({ length: ensembles }, (_, k) => ({ steps, walkers, values: chains.columns[name].subarray(k * steps * walkers, (k + 1) * steps * walkers) })));
     const diagnosis = diagnoseTraces(traces, { burnInSteps, burnInFrom: Math.max(1, sampledCount) });
-    ordered.forEach((name, index) => { diagnostics[name] = diagnosis.diagnostics[index]; });
+    ordered.forEach((name, index) => {
+      const entry = diagnosis.diagnostics[index];
+      diagnostics[name] = stride === 1 ? entry : { ...entry, tau: entry.tau === null ? null : entry.tau * stride };
+    });
   }
-  const acceptance = new Float64Array(ensembles * walkers);
-  for (let k = 0; k < ensembles; k++) {
-    for (let w = 0; w < walkers; w++) {
-      let moves = 0;
-      for (let s = 1; s < steps; s++) {
-        const row = (k * steps + s) * walkers + w;
-        if (chains.columns.log_posterior[row] !== chains.columns.log_posterior[row - walkers]) moves++;
+  let acceptance = chains.walkerAcceptance;
+  if (!acceptance) {
+    acceptance = new Float64Array(ensembles * walkers);
+    for (let k = 0; k < ensembles; k++) {
+      for (let w = 0; w < walkers; w++) {
+        let moves = 0;
+        for (let s = 1; s < steps; s++) {
+          const row = (k * steps + s) * walkers + w;
+          if (chains.columns.log_posterior[row] !== chains.columns.log_posterior[row - walkers]) moves++;
+        }
+        acceptance[k * walkers + w] = steps > 1 ? moves / (steps - 1) : 0;
       }
-      acceptance[k * walkers + w] = steps > 1 ? moves / (steps - 1) : 0;
     }
   }
   return { diagnostics, accept: acceptanceSummary(acceptance) };
@@ -180,9 +195,13 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
   const derived = record.parameters.derived;
   const ensembles = arrayExtent(chains.ensemble)[1] + 1;
   const walkers = arrayExtent(chains.walker)[1] + 1;
-  const steps = arrayExtent(chains.step)[1] + 1;
+  const stride = chains.stepStride ?? 1;
+  // Chains read every stride-th step (readRunFolder's memory budget) hold fewer steps than the run: run.json counts them.
+  const steps = stride > 1 ? record.run.steps : arrayExtent(chains.step)[1] + 1;
   let burnInSteps = 0;
-  for (let r = 0; r < chains.rows; r++) if (chains.burnIn[r] === 1) burnInSteps = Math.max(burnInSteps, chains.step[r] + 1);
+  if (stride > 1) burnInSteps = record.run.burn_in_steps;
+  else for (let r = 0; r < chains.rows; r++) if (chains.burnIn[r] === 1) burnInSteps = Math.max(burnInSteps, chains.step[r] + 1);
+  const storedSteps = Math.ceil(steps / stride);
   const keptRows = keptRowsOf(run);
   const kept = Array.from(keptRows);
   const keptWeights = chains.weights ? Float64Array.from(kept, (r) => (chains.weights as Float64Array)[r]) : null;
@@ -196,12 +215,15 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
     ...(record.data.warnings ?? []).map((message) => runWarning('data', null, message)),
     ...((record.likelihood as { warnings?: string[] }).warnings ?? []).map((message) => runWarning('likelihood_approximation', null, message)),
   ];
+  if (stride > 1) {
+    warnings.push(runWarning('chains_thinned_to_fit_memory', null, `the chains (${steps} steps x ${walkers} walkers x ${ensembles} ensemble(s)) are larger than the memory budget of the reader: the summaries, diagnostics and figures use every ${stride}th step (${storedSteps} steps per walker; the acceptance counts every step); raise output.chain_memory_mb or pass candela report --chain-memory MB to use more steps`, { step_stride: stride, stored_steps: storedSteps }));
+  }
   let diagnostics: Record<string, ParameterDiagnostics> = {};
   let acceptanceMean: number | null = null;
   let stuckWalkers = 0;
   const stuckWalkersByEnsemble: number[][] = Array.from({ length: ensembles }, () => []);
   if (method === 'ensemble') {
-    const result = ensembleDiagnostics(run, [...sampled, ...derived], { ensembles, walkers, steps, burnInSteps });
+    const result = ensembleDiagnostics(run, [...sampled, ...derived], { ensembles, walkers, storedSteps, storedBurnInSteps: Math.ceil(burnInSteps / stride), stride });
     diagnostics = result.diagnostics;
     acceptanceMean = result.accept.mean;
     stuckWalkers = result.accept.stuckWalkers.length;
@@ -281,7 +303,7 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
     ...(smoothing.bandwidth !== undefined ? { bandwidthX: smoothing.bandwidth, bandwidthY: smoothing.bandwidth } : {}),
   })));
   return {
-    method, sampled, derived, summary, diagnostics, keptRows, keptWeights, keptSamples: kept.length, effectiveSampleSize, steps, burnInSteps, walkers, ensembles,
+    method, sampled, derived, summary, diagnostics, keptRows, keptWeights, keptSamples: kept.length, stepStride: stride, storedSteps, effectiveSampleSize, steps, burnInSteps, walkers, ensembles,
     acceptanceMean, stuckWalkers, stuckWalkersByEnsemble, marginals, contours, pairs, warnings, goodness, converged,
   };
 }

@@ -21,7 +21,8 @@ import type { RunOnDisk } from '../run/runFiles.js';
  */
 export function autocorrelationFigureOfRun(run: RunOnDisk, analysis: RunAnalysis, look: Pick<AutocorrelationFigureOptions, 'width' | 'fontFace'> = {}): string | null {
   if (analysis.method !== 'ensemble') return null;
-  const { steps, walkers, ensembles } = analysis;
+  // Chains read every k-th step (the memory budget): the series hold the kept steps, k steps apart.
+  const { storedSteps: steps, walkers, ensembles, stepStride } = analysis;
   const series: AutocorrelationSeries[] = [];
   for (const name of analysis.sampled) {
     const column = run.chains.columns[name];
@@ -30,7 +31,7 @@ export function autocorrelationFigureOfRun(run: RunOnDisk, analysis: RunAnalysis
       for (let w = 0; w < walkers; w++) walkerSeries.push(Float64Array.from({ length: steps }, (_, s) => column[(k * steps + s) * walkers + w]));
     }
     try {
-      series.push({ parameter: name, correlation: ensembleAutocorrelation(walkerSeries).correlation, tauSteps: analysis.diagnostics[name]?.tau ?? null });
+      series.push({ parameter: name, correlation: ensembleAutocorrelation(walkerSeries).correlation, tauSteps: analysis.diagnostics[name]?.tau ?? null, ...(stepStride > 1 ? { lagStepSize: stepStride } : {}) });
     } catch (error) {
       if (!isCandelaError(error)) throw error;
     }

@@ -105,11 +105,11 @@ function hubbleSvg(run: RunOnDisk, settings: FigureSettings): string | null {
 }
 
 function traceSvg(run: RunOnDisk, analysis: RunAnalysis, settings: FigureSettings): string {
-  const { steps, walkers, ensembles } = analysis;
+  const { storedSteps: steps, walkers, ensembles, stepStride } = analysis;
   // Individual walkers, not their mean: a stuck walker shows as a flat line, and the acceptance summary's stuck walkers are always drawn.
   const panels: TraceParameterPanel[] = analysis.sampled.map((name) => ({
     parameter: name,
-    ensembles: sampleWalkerTraces(run.chains.columns[name], { steps, walkers, ensembles }, { stuckWalkers: analysis.stuckWalkersByEnsemble }),
+    ensembles: sampleWalkerTraces(run.chains.columns[name], { steps, walkers, ensembles }, { stuckWalkers: analysis.stuckWalkersByEnsemble, ...(stepStride > 1 ? { stepStride } : {}) }),
   }));
   return traceStackFigure(panels, analysis.burnInSteps, { width: settings.width, fontFace: settings.fontFace });
 }
@@ -134,6 +134,8 @@ function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
 export interface RunOutputOptions {
   /** Figures and report.html (default true); false writes the summaries, tables, marginals and contours only. */
   figures?: boolean;
+  /** Memory the chains of each run may take, MB (see readRunFolder; default the run's `output.chain_memory_mb`). */
+  chainMemoryMb?: number;
 }
 
 /** What the summaries of one run leave for its figures: the run, its analysis, figure settings and page marks. */
@@ -345,7 +347,7 @@ function refreshModelsIndex(run: RunOnDisk, analysis: RunAnalysis): void {
  * @example buildRunOutputs(['out/run'], 'out/run')
  */
 export function buildRunOutputs(runDirs: string[], outDir: string, options: RunOutputOptions = {}): RunAnalysis[] {
-  const runs = runDirs.map(readRunFolder);
+  const runs = runDirs.map((dir) => readRunFolder(dir, { chainMemoryMb: options.chainMemoryMb }));
   if (runs.length === 1) return [writeRunOutputs(runs[0], outDir, options)];
   const analyses = runs.map((run) => analyzeRun(run));
   const settings = figureSettings(runs[0]);

@@ -7,37 +7,53 @@ import { BLOB_FIRST_DERIVED, BLOB_LOG_LIKELIHOOD, BLOB_LOG_PRIOR } from './build
 const asInCsv = (value: number): number => (Number.isFinite(value) || value === -Infinity ? value : Number.NaN);
 
 /**
- * Every step of an ensemble run read from its chain record
+ * The steps of an ensemble run read from its chain record
  * (chain-record.bin, see checkpointFile.ts), as the rows and columns that
  * chains.csv holds when it keeps every step: same names, same order
  * (ensemble, then step, then walker), the burn-in flagged from run.json,
  * the same numbers bit for bit. The summaries read this when chains.csv
  * holds only the thinned steps after the burn-in.
- * Cost: O(steps x walkers x ensembles x columns) time and memory (the columns), one block of the record at a time.
+ *
+ * With `stepStride` k > 1 only every k-th step (0, k, 2k, ...) is kept, so
+ * that a run of any length fits a memory budget (readRunFolder); the
+ * acceptance of each walker is still counted over every step
+ * (`walkerAcceptance`), as the record streams by.
+ * Cost: O(steps x walkers x ensembles x columns) time; memory O(steps / k x walkers x ensembles x columns), one block of the record at a time.
  * @param dir the run folder.
  * @param record run.json of the folder (steps, walkers, ensembles, burn-in, parameter names).
- * @returns the chains in the layout of readChainsFile.
+ * @param stepStride keep every stepStride-th step (default 1: every step).
+ * @returns the chains in the layout of readChainsFile (with stepStride and walkerAcceptance set).
  * @throws CandelaError `run.bad_checkpoint` when the record is missing, of another shape, or shorter than the run.
  * @example chainRecordTable('out/run', record).columns.omega_m.length // ensembles x steps x walkers
  */
-export function chainRecordTable(dir: string, record: RunRecord): ChainTable {
+export function chainRecordTable(dir: string, record: RunRecord, stepStride = 1): ChainTable {
   const { steps, walkers, ensembles, burn_in_steps: burnInSteps } = record.run;
   const parameters = record.parameters.sampled.map((entry) => entry.name);
   const derived = record.parameters.derived;
   const dimension = parameters.length;
   const blobCount = BLOB_FIRST_DERIVED + derived.length;
-  const rows = ensembles * steps * walkers;
+  const keptSteps = Math.ceil(steps / stepStride);
+  const rows = ensembles * keptSteps * walkers;
   const columns: Record<string, Float64Array> = {};
   for (const name of [...parameters, ...derived, 'log_prior', 'log_likelihood', 'log_posterior']) columns[name] = new Float64Array(rows);
+  const moves = new Float64Array(ensembles * walkers);
+  const previous = new Float64Array(ensembles * walkers);
   const table: ChainTable = {
     header: chainHeader({ parameters, derived }),
     ensemble: new Int32Array(rows), walker: new Int32Array(rows), step: new Int32Array(rows), burnIn: new Uint8Array(rows), columns, weights: null, rows,
+    stepStride, walkerAcceptance: moves,
   };
   const parameterColumns = parameters.map((name) => columns[name]);
   const derivedColumns = derived.map((name) => columns[name]);
   visitChainRecord(dir, { ensembles, walkers, dimension, blobCount }, steps, (step, ensemble, positions, logProb, blobs) => {
     for (let walker = 0; walker < walkers; walker++) {
-      const row = (ensemble * steps + step) * walkers + walker;
+      const slot = ensemble * walkers + walker;
+      if (step > 0 && logProb[walker] !== previous[slot]) moves[slot] += 1;
+      previous[slot] = logProb[walker];
+    }
+    if (step % stepStride !== 0) return;
+    for (let walker = 0; walker < walkers; walker++) {
+      const row = (ensemble * keptSteps + step / stepStride) * walkers + walker;
       table.ensemble[row] = ensemble;
       table.walker[row] = walker;
       table.step[row] = step;
@@ -50,5 +66,6 @@ export function chainRecordTable(dir: string, record: RunRecord): ChainTable {
       columns.log_posterior[row] = asInCsv(logProb[walker]);
     }
   });
+  for (let slot = 0; slot < moves.length; slot++) moves[slot] = steps > 1 ? moves[slot] / (steps - 1) : 0;
   return table;
 }

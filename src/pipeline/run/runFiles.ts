@@ -58,28 +58,75 @@ function readCsvColumns(path: string): Record<string, string[]> | null {
   return columns;
 }
 
+/** What readRunFolder may be told. */
+export interface RunReadOptions {
+  /**
+   * Memory the chains may take as numbers, MB (default: the run's `output.chain_memory_mb`, else
+   * DEFAULT_CHAIN_MEMORY_MB). An ensemble run whose every step would take more is read keeping every k-th step
+   * (the smallest k that fits; chainStepStride).
+   */
+  chainMemoryMb?: number;
+}
+
+/** Memory budget of a run's chains as read back, MB, when neither the command nor the configuration sets one (fits a laptop; common practice). */
+export const DEFAULT_CHAIN_MEMORY_MB = 1024;
+/** Bytes per row of the chain table beside its value columns: ensemble, walker and step (int32) and burn_in (uint8). */
+const LAYOUT_BYTES_PER_ROW = 13;
+
+/**
+ * The step stride that fits an ensemble run's chains into `memoryMb`: 1 when
+ * every step fits, else the smallest k such that every k-th step does
+ * (8 bytes per value, 13 per row for the layout columns).
+ * Cost: O(1).
+ * @param record run.json of the run.
+ * @param memoryMb the budget, MB (> 0).
+ * @returns the stride (1 for nested-sampling runs, whose weighted rows are never thinned).
+ * @throws nothing.
+ * @example chainStepStride(record, 1024) // 1 for the demo's 3,000 steps x 32 walkers
+ */
+export function chainStepStride(record: StoredRunRecord, memoryMb: number): number {
+  if (samplerMethodOf(record) !== 'ensemble') return 1;
+  const { ensembles, walkers, steps } = record.run;
+  const values = record.parameters.sampled.length + record.parameters.derived.length + 3;
+  const bytes = ensembles * walkers * steps * (values * 8 + LAYOUT_BYTES_PER_ROW);
+  return Math.max(1, Math.ceil(bytes / (memoryMb * 2 ** 20)));
+}
+
+/** The chain memory budget of a run, MB: the command's, else the stored configuration's `output.chain_memory_mb`, else the default. */
+function chainMemoryOf(record: StoredRunRecord, options: RunReadOptions): number {
+  const stored = (record.configuration as { output?: { chain_memory_mb?: unknown } }).output?.chain_memory_mb;
+  return options.chainMemoryMb ?? (typeof stored === 'number' && stored > 0 ? stored : DEFAULT_CHAIN_MEMORY_MB);
+}
+
 /**
  * Reads run.json, chains.csv and the Hubble-diagram files of a run folder
  * (ensemble or nested-sampling run).
- * @param dir the run folder.
+ * An ensemble run whose chains would take more than the memory budget
+ * (RunReadOptions.chainMemoryMb) is read keeping every k-th step
+ * (chains.stepStride = k; the walkers' acceptance is still counted over
+ * every step): the summaries then say so, and no run length exhausts the
+ * memory.
  * A blinded run (run.json `blinding.state: blinded`) is read as its outputs
  * show it: blinded chains from the chain record, no derived quantity, no
  * Hubble model curve (docs/blinding.md), so no command unblinds it silently.
+ * @param dir the run folder.
+ * @param options the memory budget of the chains.
  * @returns the record, the chains (with weights for nested runs) and the Hubble files (null when absent).
- * @throws CandelaError `run.no_record` without a readable run.json; the errors of readChainsFile and checkChainLayout;
- *   for a blinded run those of blindedChainTable (a missing or damaged key).
+ * @throws CandelaError `run.no_record` without a readable run.json; the errors of readChainsFile (a damaged, short or
+ *   disordered file); for a blinded run those of blindedChainTable (a missing or damaged key).
  * @example readRunFolder('out/pantheon/flat_lcdm').record.model.label // 'flat_lcdm'
  */
-export function readRunFolder(dir: string): RunOnDisk {
+export function readRunFolder(dir: string, options: RunReadOptions = {}): RunOnDisk {
   let record: StoredRunRecord;
   try {
     record = JSON.parse(readFileSync(join(dir, RUN_FILES.run), 'utf8')) as StoredRunRecord;
   } catch {
     throw new CandelaError({ code: 'run.no_record', file: join(dir, RUN_FILES.run), message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
   }
+  const stride = chainStepStride(record, chainMemoryOf(record, options));
   // A blinded run is shown blinded to every command (docs/blinding.md): chains from the chain record plus the offsets.
   const blinded = blindedParametersOf(record).length > 0;
-  const chains = blinded ? blindedChainTable(dir, record) : readRunChains(dir, record);
+  const chains = blinded ? blindedChainTable(dir, record, stride) : readRunChains(dir, record, stride);
   const hubble = readCsvColumns(join(dir, RUN_FILES.hubbleData));
   const model = blinded ? null : readCsvColumns(join(dir, RUN_FILES.hubbleModel));
   const hubbleModel = model ? Object.fromEntries(Object.entries(model).map(([name, values]) => [name, Float64Array.from(values, Number)])) : null;
@@ -87,10 +134,11 @@ export function readRunFolder(dir: string): RunOnDisk {
 }
 
 /**
- * The chains the summaries use: chains.csv when it holds every step (checked
- * against run.json for ensemble runs), else every step from the chain record.
+ * The chains the summaries use: chains.csv when it holds every step (its
+ * layout checked against run.json for ensemble runs), else every step from
+ * the chain record; every `stride`-th step kept.
  */
-function readRunChains(dir: string, record: StoredRunRecord): ChainTable {
+function readRunChains(dir: string, record: StoredRunRecord, stride: number): ChainTable {
   const path = join(dir, RUN_FILES.chains);
   if (samplerMethodOf(record) !== 'ensemble') return readChainsFile(path);
   if (record.chains_csv && record.chains_csv.keep !== 'all') {
@@ -101,45 +149,8 @@ function readRunChains(dir: string, record: StoredRunRecord): ChainTable {
         fix: 'restore chain-record.bin from the run folder as `candela fit` wrote it',
       });
     }
-    return chainRecordTable(dir, record);
+    return chainRecordTable(dir, record, stride);
   }
-  const chains = readChainsFile(path);
-  checkChainLayout(path, chains, record);
-  return chains;
-}
-
-/**
- * Checks that an ensemble run's chains are whole: exactly one row per
- * ensemble, step and walker that run.json counts (ensembles x steps x
- * walkers), in file order (ensemble, then step, then walker). A file cut at
- * a row boundary, or missing rows in the middle, is refused here instead of
- * being summarized as if it were the whole run.
- * Cost: O(rows).
- * @param path the chains file (for the message).
- * @param chains the chains as read.
- * @param record run.json of the same folder.
- * @throws CandelaError `run.bad_chains` naming the first row out of place, or the row counts.
- * @example checkChainLayout('out/run/chains.csv', chains, record) // no throw for a whole file
- */
-export function checkChainLayout(path: string, chains: ChainTable, record: StoredRunRecord): void {
   const { ensembles, walkers, steps } = record.run;
-  const expected = ensembles * walkers * steps;
-  const fix = 'the file is incomplete or damaged; rerun `candela fit --resume` in its run folder to rewrite it';
-  if (chains.rows !== expected) {
-    throw new CandelaError({
-      code: 'run.bad_chains', file: path, message: 'the chains file does not hold every stored step of the run',
-      expected: `${expected} rows (${ensembles} ensembles x ${steps} steps x ${walkers} walkers, from run.json)`, found: `${chains.rows} rows`, fix,
-    });
-  }
-  for (let r = 0; r < chains.rows; r++) {
-    const walker = r % walkers;
-    const step = Math.floor(r / walkers) % steps;
-    const ensemble = Math.floor(r / (walkers * steps));
-    if (chains.ensemble[r] !== ensemble || chains.step[r] !== step || chains.walker[r] !== walker) {
-      throw new CandelaError({
-        code: 'run.bad_chains', file: path, line: r + 2, message: 'a row is out of place in the chains file',
-        expected: `ensemble ${ensemble}, step ${step}, walker ${walker}`, found: `ensemble ${chains.ensemble[r]}, step ${chains.step[r]}, walker ${chains.walker[r]}`, fix,
-      });
-    }
-  }
+  return readChainsFile(path, { layout: { ensembles, walkers, steps }, stepStride: stride });
 }
