@@ -5,7 +5,7 @@ import { CandelaError } from '../../errors.js';
 import { blindingRunIdentity, drawsFromChainRecord, RUN_FILES, runJsonText, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
 import { BLOB_FIRST_DERIVED, buildModel } from '../run/buildModel.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
-import type { StoredRunRecord } from '../run/runFiles.js';
+import { readRunRecord, type StoredRunRecord } from '../run/runFiles.js';
 import { locateBestSample } from '../run/runRecord.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
@@ -19,15 +19,6 @@ export interface UnblindOutcome {
   parameters: string[];
   /** When (ISO 8601, UTC), as run.json records it. */
   unblindedAt: string;
-}
-
-function readRecord(dir: string): StoredRunRecord & BlindableRecord {
-  const path = join(dir, RUN_FILES.run);
-  try {
-    return JSON.parse(readFileSync(path, 'utf8')) as StoredRunRecord & BlindableRecord;
-  } catch {
-    throw new CandelaError({ code: 'run.no_record', file: path, message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
-  }
 }
 
 /**
@@ -53,7 +44,7 @@ function readRecord(dir: string): StoredRunRecord & BlindableRecord {
  * @example unblindRun('out/demo-blinded').parameters // ['omega_m', 'w0', 'wa']
  */
 export function unblindRun(runDir: string, now: Date = new Date()): UnblindOutcome {
-  const record = readRecord(runDir);
+  const record = readRunRecord<StoredRunRecord & BlindableRecord>(runDir);
   const section = record.blinding;
   const runJson = join(runDir, RUN_FILES.run);
   if (!section) {

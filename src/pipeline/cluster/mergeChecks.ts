@@ -1,10 +1,10 @@
-import { readFileSync } from 'node:fs';
 import { isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { CandelaError, type Issue } from '../../errors.js';
 import type { SamplerSnapshot } from '../../sampler/index.js';
 import { drawsFromChainRecord, drawsInMemory, readCheckpointState, recordShapeOf, type StoredDraws } from '../../output/index.js';
 import { RUN_FILES } from '../../output/index.js';
 import type { RunRecord } from '../run/runRecord.js';
+import { readRunRecord, type StoredRunRecord } from '../run/runFiles.js';
 import type { PartFacts } from './slurmPart.js';
 
 /** run.json of a part folder. */
@@ -26,7 +26,7 @@ function readPart(dir: string, issues: Issue[]): PartOnDisk | null {
   const runPath = join(dir, RUN_FILES.run);
   let record: PartRecord;
   try {
-    record = JSON.parse(readFileSync(runPath, 'utf8')) as PartRecord;
+    record = readRunRecord<StoredRunRecord & PartRecord>(dir);
   } catch {
     issues.push({ code: 'merge.no_record', file: runPath, message: `${dir} holds no readable run.json`, fix: 'give the folders written by `candela fit CONFIG --part I` (under <out>/parts/<model>/ensemble-<k>)' });
     return null;

@@ -99,6 +99,25 @@ function chainMemoryOf(record: StoredRunRecord, options: RunReadOptions): number
 }
 
 /**
+ * run.json of a run folder, parsed: the one reader of the record, for every
+ * command that needs a run's facts without its chains (merge, unblind) and
+ * for readRunFolder.
+ * Cost: one small file read.
+ * @param dir the run folder.
+ * @returns the record as stored (blinded runs' values as written, blinded).
+ * @throws CandelaError `run.no_record` naming run.json when it is missing or not JSON.
+ * @example readRunRecord('out/demo').run.steps // 3000
+ */
+export function readRunRecord<T extends StoredRunRecord = StoredRunRecord>(dir: string): T {
+  const path = join(dir, RUN_FILES.run);
+  try {
+    return JSON.parse(readFileSync(path, 'utf8')) as T;
+  } catch {
+    throw new CandelaError({ code: 'run.no_record', file: path, message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
+  }
+}
+
+/**
  * Reads run.json, chains.csv and the Hubble-diagram files of a run folder
  * (ensemble or nested-sampling run).
  * An ensemble run whose chains would take more than the memory budget
@@ -117,12 +136,7 @@ function chainMemoryOf(record: StoredRunRecord, options: RunReadOptions): number
  * @example readRunFolder('out/pantheon/flat_lcdm').record.model.label // 'flat_lcdm'
  */
 export function readRunFolder(dir: string, options: RunReadOptions = {}): RunOnDisk {
-  let record: StoredRunRecord;
-  try {
-    record = JSON.parse(readFileSync(join(dir, RUN_FILES.run), 'utf8')) as StoredRunRecord;
-  } catch {
-    throw new CandelaError({ code: 'run.no_record', file: join(dir, RUN_FILES.run), message: 'this folder holds no readable run record', fix: 'point to a run folder written by `candela fit`' });
-  }
+  const record = readRunRecord(dir);
   const stride = chainStepStride(record, chainMemoryOf(record, options));
   // A blinded run is shown blinded to every command (docs/blinding.md): chains from the chain record plus the offsets.
   const blinded = blindedParametersOf(record).length > 0;

@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { closeSync, copyFileSync, mkdirSync, openSync, readFileSync, rmSync, statSync, writeFileSync, writeSync } from 'node:fs';
+import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -7,11 +7,13 @@ import { runFit } from '../../../src/pipeline/index.js';
 import { analyzeRun } from '../../../src/pipeline/report/analyzeRun.js';
 import { chainStepStride, readRunFolder } from '../../../src/pipeline/run/runFiles.js';
 import { pantheonBinnedConfig } from '../../support/pantheonBinnedConfig.js';
+import { recordStepBytesOf, syntheticAcceptance, writeSyntheticRecordRun } from '../../../bench/support/syntheticChainRecord.js';
 
 // readRunFolder keeps a run's chains within a memory budget: a run whose every step would take more is read
 // every k-th step (the acceptance still over every step). Checked on a short fit of the Pantheon 2018 binned
 // Hubble diagram (../shared/data-real/pantheon2018, Scolnic et al. 2018) read whole and thinned, and on synthetic
-// chain records of two sizes written in the layout of that run, whose peak memory must not follow the file size.
+// chain records of two sizes written in the layout of that run (bench/support/syntheticChainRecord.ts), whose peak
+// memory must not follow the file size.
 const scratch = resolve('.candela-tmp/run-files');
 let runDir = '';
 
@@ -68,58 +70,6 @@ describe('readRunFolder within a chain budget', () => {
   });
 });
 
-/**
- * A copy of the run folder whose chain record holds `steps` synthetic steps in the record layout (header copied):
- * every walker's coordinates follow an AR(1) process (coefficient 0.9) and stay put on a refused move (probability
- * 0.7, a fixed pattern of 10 steps), so that each walker's acceptance is exactly 3 / 10 of its moves. The stored
- * configuration sets `output.chain_memory_mb`.
- */
-function syntheticRecordRun(name: string, steps: number, memoryMb: number): string {
-  const dir = join(scratch, name);
-  mkdirSync(dir, { recursive: true });
-  const record = JSON.parse(readFileSync(join(runDir, 'run.json'), 'utf8'));
-  record.run.steps = steps;
-  record.run.burn_in_steps = Math.floor(steps / 10);
-  record.chains_csv = { keep: 'after_burn_in', first_step: record.run.burn_in_steps, every_steps: 1000, steps: 1 };
-  record.configuration.output.chain_memory_mb = memoryMb;
-  writeFileSync(join(dir, 'run.json'), JSON.stringify(record));
-  for (const file of ['config.resolved.yaml', 'hubble_diagram.csv', 'hubble_model.csv', 'chains.csv']) copyFileSync(join(runDir, file), join(dir, file));
-  const header = readFileSync(join(runDir, 'chain-record.bin')).subarray(0, 32);
-  const [ensembles, walkers, dimension, blobCount] = [0, 1, 2, 3].map((k) => header.readUInt32LE(8 + 4 * k));
-  const perWalker = dimension + 1 + blobCount;
-  const BLOCK = 4096;
-  const state = new Float64Array(ensembles * walkers * perWalker);
-  let seed = 987654321;
-  const uniform = () => { seed ^= seed << 13; seed >>>= 0; seed ^= seed >>> 17; seed ^= seed << 5; seed >>>= 0; return seed / 4294967296; }; // xorshift32 (Marsaglia 2003)
-  const descriptor = openSync(join(dir, 'chain-record.bin'), 'w');
-  try {
-    writeSync(descriptor, header);
-    for (let from = 0; from < steps; from += BLOCK) {
-      const count = Math.min(BLOCK, steps - from);
-      const block = new Float64Array(count * ensembles * walkers * perWalker);
-      for (let s = 0; s < count; s++) {
-        const moved = [1, 4, 8].includes((from + s) % 10);
-        for (let k = 0; k < ensembles; k++) {
-          for (let w = 0; w < walkers; w++) {
-            const slot = k * walkers + w;
-            if (moved || from + s === 0) {
-              for (let d = 0; d < perWalker; d++) state[slot * perWalker + d] = 0.9 * state[slot * perWalker + d] + 0.75 * (2 * uniform() - 1);
-            }
-            const base = (s * ensembles + k) * walkers * perWalker;
-            for (let d = 0; d < dimension; d++) block[base + w * dimension + d] = 0.3 + 0.02 * state[slot * perWalker + d];
-            block[base + walkers * dimension + w] = -10 + state[slot * perWalker + dimension];
-            for (let b = 0; b < blobCount; b++) block[base + walkers * (dimension + 1) + w * blobCount + b] = -5 + state[slot * perWalker + dimension + 1 + b];
-          }
-        }
-      }
-      writeSync(descriptor, Buffer.from(block.buffer));
-    }
-  } finally {
-    closeSync(descriptor);
-  }
-  return dir;
-}
-
 /** `candela report` in its own process; its peak resident set (getrusage ru_maxrss), MB. */
 function reportPeakMb(dir: string): number {
   const mainUrl = pathToFileURL(resolve('dist/src/cli/main.js')).href;
@@ -138,18 +88,16 @@ describe('report on chain records of 170 MB and 700 MB under one chain budget', 
   const GROWTH_LIMIT_MB = 60;
 
   it('summarizes both within the same bounded memory, with every walker\'s acceptance exact over every step', () => {
-    const shapeBytes = statSync(join(runDir, 'chain-record.bin')).size - 32;
-    const stepBytes = shapeBytes / 1200;
+    const stepBytes = recordStepBytesOf(runDir);
     const peaks = [170, 700].map((mb) => {
       const steps = Math.floor((mb * 2 ** 20) / stepBytes);
-      const dir = syntheticRecordRun(`record-${mb}`, steps, BUDGET_MB);
+      const dir = join(scratch, `record-${mb}`);
+      writeSyntheticRecordRun(runDir, dir, steps, BUDGET_MB);
       const peak = reportPeakMb(dir);
       const summary = JSON.parse(readFileSync(join(dir, 'summary.json'), 'utf8'));
       console.info(`report on a ${mb} MB chain record (${steps.toLocaleString('en')} steps) under a ${BUDGET_MB} MB chain budget: peak RSS ${peak.toFixed(0)} MB`);
-      // Steps 1..steps-1 of every walker: a move on 3 of every 10 (steps 1, 4, 8 mod 10), counted exactly.
-      let moves = 0;
-      for (let s = 1; s < steps; s++) if ([1, 4, 8].includes(s % 10)) moves++;
-      expect(summary.convergence.acceptance_mean).toBeCloseTo(moves / (steps - 1), 12);
+      // Every synthetic walker moves on 3 of every 10 steps, so its acceptance is known exactly.
+      expect(summary.convergence.acceptance_mean).toBeCloseTo(syntheticAcceptance(steps), 12);
       expect(summary.warnings.some((w: { code: string }) => w.code === 'chains_thinned_to_fit_memory')).toBe(true);
       rmSync(join(dir, 'chain-record.bin'));
       return peak;
