@@ -10,6 +10,11 @@ export { cosmologyParametersFromValues } from './cosmologyFromValues.js';
 export type { CosmologyFamily } from './cosmologyFromValues.js';
 export { derivedCosmologyQuantities } from './derivedCosmologyQuantities.js';
 export type { DerivedCosmologyQuantities } from './derivedCosmologyQuantities.js';
+// Distance-modulus curves of parameter records (posterior draws) and their median and 68% band.
+export { distanceModulusCurve, distanceModulusCurves } from './distanceModulusCurves.js';
+export type { DistanceModulusCurveDraw, DistanceModulusCurveOptions } from './distanceModulusCurves.js';
+export { distanceModulusBand } from './distanceModulusBand.js';
+export type { DistanceModulusBand } from './distanceModulusBand.js';
 
 // Dark-energy laws
 export { darkEnergyEvolution } from './darkEnergyEvolution.js';

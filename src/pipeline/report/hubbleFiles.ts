@@ -1,7 +1,7 @@
 import { writeProbeDiagrams } from './probeDiagramFiles.js';
 import { join } from 'node:path';
-import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, cosmologyParametersFromValues, createCosmology } from '../../cosmology/index.js';
-import { createRandomStream, curveQuantiles, deriveSeed, logSpacedGrid } from '../../math/index.js';
+import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, distanceModulusBand, distanceModulusCurve, type DistanceModulusCurveDraw } from '../../cosmology/index.js';
+import { createRandomStream, deriveSeed, logSpacedGrid } from '../../math/index.js';
 import { hubbleDiagramCsv, hubbleModelCsv, writeFileAtomic } from '../../output/index.js';
 import type { BuiltModel } from '../run/buildModel.js';
 import { bestStoredDraw, drawsInMemory, type EnsembleDraws, type StoredDraws } from '../../output/index.js';
@@ -66,26 +66,18 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, stored: Stor
     darkEnergy: model.cosmologyModel.darkEnergy, flat: model.cosmologyModel.flat,
     cmbTemperatureK: model.cosmologyModel.radiation ? CMB_TEMPERATURE_K : 0, effectiveNeutrinoSpecies: DEFAULT_EFFECTIVE_NEUTRINO_SPECIES,
   };
-  const curve = (values: Record<string, number>, shift: number, out: Float64Array): boolean => {
-    // The curve uses the H0 of the Hubble diagram (the likelihood's), whatever h0 the values hold.
-    const outcome = createCosmology(cosmologyParametersFromValues(family, { ...values, h0: diagram.h0KmPerSPerMpc }, diagram.h0KmPerSPerMpc), { maxRedshift: zMax });
-    if (!outcome.ok) return false;
-    outcome.cosmology.distanceModuliMag(grid, undefined, out);
-    for (let i = 0; i < out.length; i++) out[i] += shift;
-    return true;
-  };
+  // The curves use the H0 of the Hubble diagram (the likelihood's), whatever h0 the values hold.
+  const curveOptions = { h0KmPerSPerMpc: diagram.h0KmPerSPerMpc, maxRedshift: zMax };
   const bestCurve = new Float64Array(CURVE_POINTS);
-  curve({ ...bestValues }, 0, bestCurve);
+  distanceModulusCurve(family, { values: bestValues, shiftMag: 0 }, grid, curveOptions, bestCurve);
+  // The seeded picks, in order; each draw is shifted by its own absolute magnitude minus the best fit's (a draw without a finite one is left out).
   const random = createRandomStream(deriveSeed(seed, 'hubble-band'));
-  const draws = Math.min(BAND_DRAWS, rowCount);
-  const curves: Float64Array[] = [];
-  for (let d = 0; d < draws; d++) {
-    const values = { ...posterior.values(pointAt(random.integer(rowCount))) };
+  const draws: DistanceModulusCurveDraw[] = [];
+  for (let d = 0; d < Math.min(BAND_DRAWS, rowCount); d++) {
+    const values = posterior.values(pointAt(random.integer(rowCount)));
     const absMag = values.abs_mag ?? supernovae.bestFitOffset(values);
-    const out = new Float64Array(CURVE_POINTS);
-    if (Number.isFinite(absMag) && curve(values, absMag - diagram.absoluteMagnitudeMag, out)) curves.push(out);
+    if (Number.isFinite(absMag)) draws.push({ values, shiftMag: absMag - diagram.absoluteMagnitudeMag });
   }
-  // Median and 68% equal-tailed band (cumulative 0.158655 and 0.841345) of the shifted curves.
-  const [medianMag, low68Mag, high68Mag] = curveQuantiles(curves, CURVE_POINTS, [0.5, 0.158655, 0.841345]);
+  const { medianMag, low68Mag, high68Mag } = distanceModulusBand(family, draws, grid, curveOptions);
   writeFileAtomic(join(runDir, RUN_FILES.hubbleModel), hubbleModelCsv({ redshift: grid, bestMag: bestCurve, medianMag, low68Mag, high68Mag }));
 }
