@@ -89,6 +89,8 @@ export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './figure
 // Report page: one self-contained HTML file per run.
 export { reportHtml } from './report/index.js';
 export { convergenceVerdicts } from './report/index.js';
+export { runFactsForReport } from './report/index.js';
+export type { RunFactsForReportInput, EnsembleSamplerFacts, NestedSamplerFacts, ReportTermFacts } from './report/index.js';
 export type { ReportInput, ReportRunFacts, ReportSummaryTable, ReportDiagnostics, ReportDiagnosticRow, ReportFigure, ReportInputFile, ReportWarning } from './report/index.js';
 export type { ConvergenceVerdicts, ParameterVerdict } from './report/index.js';
 export { summaryCells } from './tables/summaryCells.js';

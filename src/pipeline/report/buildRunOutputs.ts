@@ -3,7 +3,7 @@ import { dirname, join, resolve } from 'node:path';
 import {
   contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, densityGridCsv, hubbleFigure,
   marginalDensityCsv, measurementRatioFigure, reportHtml, sampleWalkerTraces, summaryCells, summaryLatex, summaryMarkdown, svgToPdf, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
-  type BinnedResidual, type ContourSet2D, type ReportFigure, type ReportRunFacts, type TraceParameterPanel,
+  type BinnedResidual, type ContourSet2D, type ReportFigure, type TraceParameterPanel,
 } from '../../output/index.js';
 import { figureSettings, TRUTH_LABEL, type FigureSettings } from './figureSettings.js';
 import { reportInputFiles } from './reportInputFiles.js';
@@ -16,7 +16,7 @@ import { readProbeDiagrams } from './probeDiagramFiles.js';
 import { RUN_FILES } from '../../output/index.js';
 import { summaryDocument } from './summaryDocument.js';
 import { blindingMarks, blindingMarksOfRuns } from '../blinding/blindingMarks.js';
-import { nestedReportFacts } from './nestedReportFacts.js';
+import { reportFactsOfRun } from './reportFactsOfRun.js';
 import { binResiduals } from '../../output/index.js';
 import { residualsFigureOfRun } from './residualsFigureOfRun.js';
 import { autocorrelationFigureOfRun } from './autocorrelationFigureOfRun.js';
@@ -112,22 +112,6 @@ function traceSvg(run: RunOnDisk, analysis: RunAnalysis, settings: FigureSetting
     ensembles: sampleWalkerTraces(run.chains.columns[name], { steps, walkers, ensembles }, { stuckWalkers: analysis.stuckWalkersByEnsemble, ...(stepStride > 1 ? { stepStride } : {}) }),
   }));
   return traceStackFigure(panels, analysis.burnInSteps, { width: settings.width, fontFace: settings.fontFace });
-}
-
-function reportFacts(run: RunOnDisk, analysis: RunAnalysis): ReportRunFacts {
-  const { record } = run;
-  if (analysis.method === 'nested') return nestedReportFacts(record, analysis);
-  return {
-    seed: record.run.seed, steps: record.run.steps, walkers: record.run.walkers, ensembles: record.run.ensembles,
-    stopReason: record.run.stop_reason, wallTimeSeconds: record.run.wall_seconds, version: record.tool.version, model: record.model.label,
-    extra: [
-      { label: 'supernovae', value: String(record.data.supernovae) },
-      { label: 'chi-square at best fit', value: record.best_fit.chi_square === null ? 'n/a' : `${record.best_fit.chi_square.toFixed(2)} for ${record.best_fit.degrees_of_freedom} degrees of freedom` },
-      ...(analysis.goodness ? [{ label: 'chi-square per degree of freedom', value: `${analysis.goodness.reducedChiSquare.toFixed(3)} (p-value ${analysis.goodness.pValue.toPrecision(3)})` }] : []),
-      ...termRows(record),
-      { label: 'likelihood evaluations', value: String(record.run.evaluations) },
-    ],
-  };
 }
 
 /** Which outputs of a run folder to write. */
@@ -227,7 +211,7 @@ export function* runFigureSteps(written: RunSummaries, outDir: string): Generato
   if (autocorrelation) yield draw('Normalized autocorrelation per parameter; markers: integrated autocorrelation time', autocorrelation, 'autocorrelation');
   writeFileAtomic(join(outDir, RUN_FILES.report), reportHtml({
     title: marks.title(`${run.record.title} — ${run.record.model.label}`),
-    facts: reportFacts(run, analysis),
+    facts: reportFactsOfRun(run.record, analysis),
     summary: {
       columns: ['Mean ± sd', 'Median, 68.27% errors', '95.45% interval', '68.27% HDI', 'MAP'],
       rows: analysis.summary.parameters.map((parameter) => {
@@ -370,16 +354,6 @@ export function buildRunOutputs(runDirs: string[], outDir: string, options: RunO
   writeFileAtomic(join(outDir, 'overlay_summary.md'), marks.markdown(runs.map((run, k) => `## ${run.record.model.label}\n\n${summaryMarkdown(analyses[k].summary)}`).join('\n')));
   writeModelsIndex(runs.map((run, k) => modelColumn(run, analyses[k], resolve(outDir))), outDir, marks.title(runs[0].record.title), runs[0].record.tool.version);
   return analyses;
-}
-
-/** One report row per likelihood term when the posterior has more than one: its chi-square and degrees of freedom. */
-function termRows(record: RunOnDisk['record']): Array<{ label: string; value: string }> {
-  const terms = record.best_fit.terms ?? [];
-  if (terms.length < 2) return [];
-  return terms.map((term) => ({
-    label: `chi-square of ${term.name}`,
-    value: term.chi_square === null ? 'n/a' : `${term.chi_square.toFixed(2)} for ${term.n_data} data points, ${term.degrees_of_freedom} degrees of freedom`,
-  }));
 }
 
 /** The sentence under the report's parameter table: weighted samples, one-sided limits. */
