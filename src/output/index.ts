@@ -73,6 +73,8 @@ export { autocorrelationFigure } from './figures/index.js';
 export type { AutocorrelationFigureOptions, AutocorrelationSeries } from './figures/index.js';
 export { measurementRatioFigure } from './figures/index.js';
 export type { MeasurementGroup, MeasurementRatioFigureInput } from './figures/index.js';
+export { probeDiagramFileName, probeDiagramKey, probeDiagramJson, parseProbeDiagramJson } from './diagrams/probeDiagramJson.js';
+export type { ProbeDiagramDocument } from './diagrams/probeDiagramJson.js';
 export { svgToPng } from './figures/index.js';
 export { svgToPdf } from './figures/index.js';
 export { sampleWalkerTraces } from './figures/index.js';
