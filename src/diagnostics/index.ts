@@ -9,6 +9,8 @@ export { essTail, essQuantile, TAIL_LOWER_PROBABILITY, TAIL_UPPER_PROBABILITY } 
 export { essBasic } from './essBasic.js';
 export { essMean } from './essMean.js';
 export { mcseMean } from './mcseMean.js';
+// Monte Carlo errors of correlated draws: sqrt(draws / ESS), never below 1.
+export { essErrorInflation } from './essErrorInflation.js';
 
 // Building blocks
 export { splitChains } from './splitChains.js';

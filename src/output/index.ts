@@ -190,6 +190,8 @@ export { budgetFigure } from './budget/budgetFigure.js';
 export type { BudgetFigureOptions } from './budget/budgetFigure.js';
 export type { BudgetTable, BudgetTableRow } from './budget/budgetTable.js';
 export { budgetTableFromJson } from './budget/budgetTableFromJson.js';
+export { budgetMethod } from './budget/budgetMethod.js';
+export type { BudgetMethodFacts } from './budget/budgetMethod.js';
 export type { ReportBudget } from './report/budgetSection.js';
 
 // Tables a command prints: the distance table (text, JSON, CSV) and the Fisher forecast (text, JSON).

@@ -2,7 +2,8 @@ import { mkdirSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { CandelaError, isCandelaError } from '../../errors.js';
 import { closestWord, systematicBudget } from '../../math/index.js';
-import { budgetFigure, budgetJson, budgetLatex, budgetMarkdown, RUN_FILES, svgToPng, writeFileAtomic, type BudgetTable } from '../../output/index.js';
+import { essErrorInflation } from '../../diagnostics/index.js';
+import { budgetFigure, budgetJson, budgetLatex, budgetMarkdown, budgetMethod, RUN_FILES, svgToPng, writeFileAtomic, type BudgetTable } from '../../output/index.js';
 import { rebuildRunModel } from '../compare/compareRebuildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
 import { storedConfiguration } from '../run/storedConfiguration.js';
@@ -121,12 +122,8 @@ export async function runBudget(request: BudgetRequest): Promise<BudgetOutcome> 
     full.push(fit);
   }
   const ess = smallestBulkEss(request.runDir, model.parameterNames);
-  const inflation = ess === null ? 1 : Math.sqrt(Math.max(1, draws.count / ess));
-  const errorBasis = ess === null ? 'for independent draws' : `for independent draws, times sqrt(draws / bulk ESS) = ${inflation.toFixed(2)} (smallest bulk ESS of the run ${Math.round(ess)})`;
-  const method = `importance reweighting of ${draws.count} draws of this run (stat + every systematic) by L_variant / L_all, ` +
-    `Monte Carlo errors by the delta method ${errorBasis}, a variant flagged when its weights are worth fewer than ${minEffective} draws (Kish count); ` +
-    'cross-check: the Gaussian linear response of the same draws (mean and covariance, and a quadratic fit of ln L_variant - ln L_all)' +
-    (request.full ? '; full fits of each stat + all-but-one variant for comparison' : '');
+  const inflation = ess === null ? 1 : essErrorInflation(draws.count, ess);
+  const method = budgetMethod({ draws: draws.count, minEffectiveDraws: minEffective, inflation: ess === null ? null : { factor: inflation, smallestBulkEss: ess }, fullFits: request.full === true });
   const table = budgetTable(budget, shown, full, { title: run.record.title, model: run.record.model.label, method, minEffective, inflation });
   const files = writeBudgetFiles(request.runDir, table, config.output.png);
   if (request.report !== false) {
