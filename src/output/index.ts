@@ -122,6 +122,7 @@ export type { SummaryJson } from './summaries/summaryJson.js';
 export type { SummaryJsonInput } from './summaries/summaryJson.js';
 export type { SummaryJsonBestFit } from './summaries/summaryJson.js';
 export type { SummaryJsonDiagnostics } from './summaries/summaryJson.js';
+export { smallestBulkEssInSummaryJson } from './summaries/summaryJsonBulkEss.js';
 export type { SummaryJsonNestedFacts } from './summaries/summaryJson.js';
 export { summaryJsonDocument } from './summaries/summaryJson.js';
 // The terminal text after a fit (plain facts in, text out).

@@ -3,7 +3,7 @@ import { dirname, join } from 'node:path';
 import { CandelaError, isCandelaError } from '../../errors.js';
 import { closestWord, systematicBudget } from '../../math/index.js';
 import { essErrorInflation } from '../../diagnostics/index.js';
-import { budgetFigure, budgetJson, budgetLatex, budgetMarkdown, budgetMethod, RUN_FILES, svgToPng, writeFileAtomic, type BudgetTable } from '../../output/index.js';
+import { budgetFigure, budgetJson, budgetLatex, budgetMarkdown, budgetMethod, RUN_FILES, smallestBulkEssInSummaryJson, svgToPng, writeFileAtomic, type BudgetTable } from '../../output/index.js';
 import { rebuildRunModel } from '../compare/compareRebuildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
 import { storedConfiguration } from '../run/storedConfiguration.js';
@@ -172,13 +172,13 @@ function shownParameters(asked: string[] | undefined, sampled: readonly string[]
  * errors are scaled by sqrt(draws / ESS) when the draws outnumber it (common practice).
  */
 function smallestBulkEss(runDir: string, names: readonly string[]): number | null {
+  let text: string;
   try {
-    const summary = JSON.parse(readFileSync(join(runDir, RUN_FILES.summaryJson), 'utf8')) as { diagnostics?: Record<string, { ess_bulk?: number }> };
-    const values = names.map((name) => summary.diagnostics?.[name]?.ess_bulk).filter((value): value is number => typeof value === 'number' && value > 0);
-    return values.length > 0 ? Math.min(...values) : null;
+    text = readFileSync(join(runDir, RUN_FILES.summaryJson), 'utf8');
   } catch {
     return null;
   }
+  return smallestBulkEssInSummaryJson(text, names);
 }
 
 function checkCount(value: number, option: string, expected: string, minimum: number): void {
