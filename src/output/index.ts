@@ -92,6 +92,7 @@ export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './figure
 export { reportHtml } from './report/index.js';
 export { convergenceVerdicts } from './report/index.js';
 export { runFactsForReport } from './report/index.js';
+export { summaryTableNote, nestedChainChecksNote } from './report/index.js';
 export type { RunFactsForReportInput, EnsembleSamplerFacts, NestedSamplerFacts, ReportTermFacts } from './report/index.js';
 export type { ReportInput, ReportRunFacts, ReportSummaryTable, ReportDiagnostics, ReportDiagnosticRow, ReportFigure, ReportInputFile, ReportWarning } from './report/index.js';
 export type { ConvergenceVerdicts, ParameterVerdict } from './report/index.js';

@@ -5,6 +5,7 @@ export { convergenceVerdicts } from './convergenceVerdicts.js';
 export type { ConvergenceVerdicts, ParameterVerdict } from './convergenceVerdicts.js';
 export { runFactsForReport } from './runFactsForReport.js';
 export type { RunFactsForReportInput, EnsembleSamplerFacts, NestedSamplerFacts, ReportTermFacts } from './runFactsForReport.js';
+export { summaryTableNote, nestedChainChecksNote } from './sampleNotes.js';
 export { formatWallTime } from './formatWallTime.js';
 export { namespaceSvgIds } from './namespaceSvgIds.js';
 export { richTextToHtml } from './richTextHtml.js';

@@ -2,7 +2,7 @@ import { mkdirSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import {
   contourGeoJson, contourPathsCsv, contourThresholdsJson, credibleContours, densityGridCsv, hubbleFigure,
-  marginalDensityCsv, measurementRatioFigure, reportHtml, sampleWalkerTraces, summaryCells, summaryLatex, summaryMarkdown, svgToPdf, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
+  marginalDensityCsv, measurementRatioFigure, nestedChainChecksNote, reportHtml, sampleWalkerTraces, summaryTableNote, summaryCells, summaryLatex, summaryMarkdown, svgToPdf, svgToPng, traceStackFigure, triangleFigure, writeFileAtomic,
   type BinnedResidual, type ContourSet2D, type ReportFigure, type TraceParameterPanel,
 } from '../../output/index.js';
 import { figureSettings, TRUTH_LABEL, type FigureSettings } from './figureSettings.js';
@@ -228,7 +228,7 @@ export function* runFigureSteps(written: RunSummaries, outDir: string): Generato
       }),
       chainLengthSteps: analysis.steps, rHatMax: run.record.run.max_rhat, essMin: run.record.run.target_ess, tauMultiple: RELIABLE_STEPS_PER_TAU,
       ...(analysis.acceptanceMean !== null ? { acceptanceFraction: analysis.acceptanceMean } : {}),
-      ...(analysis.method === 'nested' ? { notApplicable: `Nested sampling draws independent weighted samples: R-hat and autocorrelation times do not apply. Kish effective sample size of the weights: ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}.` } : {}),
+      ...(analysis.method === 'nested' ? { notApplicable: nestedChainChecksNote(analysis.effectiveSampleSize ?? 0) } : {}),
     },
     figures,
     configurationYaml: stringify(run.record.configuration),
@@ -356,11 +356,11 @@ export function buildRunOutputs(runDirs: string[], outDir: string, options: RunO
   return analyses;
 }
 
-/** The sentence under the report's parameter table: weighted samples, one-sided limits. */
+/** The sentence under the report's parameter table (output's summaryTableNote): weighted samples, one-sided limits. */
 function summaryNote(analysis: RunAnalysis): { note?: string } {
-  const sentences = [
-    ...(analysis.method === 'nested' ? [`Weighted nested-sampling samples (Kish effective sample size ${(analysis.effectiveSampleSize ?? 0).toFixed(0)}).`] : []),
-    ...(analysis.summary.parameters.some((p) => p.oneSidedLimit) ? ['A marginal cut by a hard prior edge is quoted as a one-sided 95% limit instead of mean ± sd (see the warnings).'] : []),
-  ];
-  return sentences.length ? { note: sentences.join(' ') } : {};
+  const note = summaryTableNote({
+    kishEffectiveSampleSize: analysis.method === 'nested' ? analysis.effectiveSampleSize ?? 0 : null,
+    oneSidedLimits: analysis.summary.parameters.some((p) => p.oneSidedLimit),
+  });
+  return note ? { note } : {};
 }
