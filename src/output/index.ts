@@ -231,6 +231,7 @@ export { covarianceMatrixText } from './mock/systematicsText.js';
 export { systematicModesCsv } from './mock/systematicsText.js';
 export type { MockSurveyFacts, MockSampleFacts, MockTruthFacts } from './mock/mockTruthJson.js';
 export { mockTruthJson } from './mock/mockTruthJson.js';
+export { mockTruthValues } from './mock/mockTruthValues.js';
 export type { MockSurveyFiles, MockSurveyFilesInput } from './mock/mockSurveyFiles.js';
 export { mockSurveyFiles } from './mock/mockSurveyFiles.js';
 

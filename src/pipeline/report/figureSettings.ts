@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { runWarning, type FigureWidth, type FontFace, type RunWarning } from '../../output/index.js';
+import { mockTruthValues, runWarning, type FigureWidth, type FontFace, type RunWarning } from '../../output/index.js';
 import type { RunOnDisk } from '../run/runFiles.js';
 
 /** Figure kinds drawn when a run's configuration names none (the configuration's own default). */
@@ -55,8 +55,7 @@ export function figureSettings(run: RunOnDisk): FigureSettings {
   let truth: Record<string, number> | null = null;
   if (output.truth_file) {
     try {
-      const document = JSON.parse(readFileSync(output.truth_file, 'utf8')) as { truth?: Record<string, unknown> };
-      truth = Object.fromEntries(Object.entries(document.truth ?? {}).filter((entry): entry is [string, number] => typeof entry[1] === 'number' && Number.isFinite(entry[1])));
+      truth = mockTruthValues(readFileSync(output.truth_file, 'utf8'));
     } catch (error) {
       warnings.push(runWarning('truth_file_unreadable', null, `output.truth_file ${output.truth_file} could not be read (${(error as Error).message}): the triangle figure shows no truth`));
     }
