@@ -8,7 +8,9 @@
  * read the record.
  *
  * Every walker's values follow an AR(1) process (coefficient 0.9, uniform
- * innovations) and stay put on a refused move: a walker moves on steps 1, 4
+ * innovations, stationary sd about 1) around the template's best fit, each
+ * parameter scaled by 0.02 x max(0.1, |best fit|) so that it stays inside
+ * its prior, and stay put on a refused move: a walker moves on steps 1, 4
  * and 8 of every 10 (ACCEPTED_STEPS_MOD_10), so its acceptance is known
  * exactly. Written a block of steps at a time; nothing holds the file.
  */
@@ -48,6 +50,8 @@ export function writeSyntheticRecordRun(templateDir: string, dir: string, steps:
   const header = readFileSync(join(templateDir, 'chain-record.bin')).subarray(0, 32);
   const [ensembles, walkers, dimension, blobCount] = [0, 1, 2, 3].map((k) => header.readUInt32LE(8 + 4 * k));
   const perWalker = dimension + 1 + blobCount;
+  const centres = (record.parameters.sampled as Array<{ name: string }>).map((entry) => Number(record.best_fit.parameters[entry.name]));
+  const widths = centres.map((centre) => 0.02 * Math.max(0.1, Math.abs(centre)));
   const state = new Float64Array(ensembles * walkers * perWalker);
   let seed = 987654321;
   // xorshift32 (Marsaglia 2003): reproducible, no dependency.
@@ -65,7 +69,7 @@ export function writeSyntheticRecordRun(templateDir: string, dir: string, steps:
           for (let w = 0; w < walkers; w++) {
             const slot = (k * walkers + w) * perWalker;
             if (moved) for (let d = 0; d < perWalker; d++) state[slot + d] = 0.9 * state[slot + d] + 0.75 * (2 * uniform() - 1);
-            for (let d = 0; d < dimension; d++) block[base + w * dimension + d] = 0.3 + 0.02 * state[slot + d];
+            for (let d = 0; d < dimension; d++) block[base + w * dimension + d] = centres[d] + widths[d] * state[slot + d];
             block[base + walkers * dimension + w] = -10 + state[slot + dimension];
             for (let b = 0; b < blobCount; b++) block[base + walkers * (dimension + 1) + w * blobCount + b] = -5 + state[slot + dimension + 1 + b];
           }
