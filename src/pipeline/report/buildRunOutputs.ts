@@ -18,7 +18,7 @@ import { summaryDocument } from './summaryDocument.js';
 import { blindingMarks, blindingMarksOfRuns } from '../blinding/blindingMarks.js';
 import { reportFactsOfRun } from './reportFactsOfRun.js';
 import { binResiduals } from '../../output/index.js';
-import { residualsFigureOfRun } from './residualsFigureOfRun.js';
+import { RESIDUAL_FIGURE_BINS, residualsFigureOfRun } from './residualsFigureOfRun.js';
 import { autocorrelationFigureOfRun } from './autocorrelationFigureOfRun.js';
 import { storedBudget } from '../budget/storedBudget.js';
 import { stringify } from 'yaml';
@@ -28,8 +28,6 @@ import { PARAMETERS, parameterRank, parseParameterName } from '../../parameters/
 const PNG_WIDTH_PX = 1600;
 /** The triangle figure shows every sampled parameter up to this many, else the cosmological ones. */
 const TRIANGLE_MAX_PARAMETERS = 7;
-/** Redshift bins of the binned Hubble residuals (equal in log z). */
-const RESIDUAL_BINS = 12;
 
 /** The PNG of a figure: at the configured dots per inch, else {@link PNG_WIDTH_PX} wide. */
 function pngOf(svg: string, settings: FigureSettings): Buffer {
@@ -97,7 +95,7 @@ function hubbleSvg(run: RunOnDisk, settings: FigureSettings): string | null {
     redshift: z, muObsMag: muObs, muErrMag: muErr, sample: columns.sample, bestFitMuMag: muModel,
     modelCurve: { z: model.z, median: model.mu_median, low68: model.mu_low68, high68: model.mu_high68 },
     // Already-binned data are not binned again: the points are the bins.
-    ...(settings.dataAreBinned ? {} : { binnedResiduals: binResiduals(z, residual, muErr, RESIDUAL_BINS) }),
+    ...(settings.dataAreBinned ? {} : { binnedResiduals: binResiduals(z, residual, muErr, RESIDUAL_FIGURE_BINS) }),
   }, {
     modelLabel: `${run.record.model.label} (best fit)`, width: settings.width, fontFace: settings.fontFace,
     sampleNames: settings.sampleNames, dataAreBinned: settings.dataAreBinned,

@@ -2,7 +2,7 @@ import { residualsFigure, type ResidualsFigureOptions } from '../../output/index
 import { binResiduals } from '../../output/index.js';
 import type { RunOnDisk } from '../run/runFiles.js';
 
-/** Redshift bins of the binned Hubble residuals (equal in ln z), as in the Hubble figure's residual panel. */
+/** Redshift bins of the binned Hubble residuals (equal in ln z): the residuals figure and the Hubble figure's residual panel. */
 export const RESIDUAL_FIGURE_BINS = 12;
 
 /**
