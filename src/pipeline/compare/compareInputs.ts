@@ -23,7 +23,8 @@ export function readComparedRuns(runDirs: readonly string[]): AnalyzedRun[] {
   if (runDirs.length === 0) {
     throw new CandelaError({ code: 'compare.no_runs', message: 'no run folder was given', expected: 'one or more run folders written by `candela fit`', fix: 'list the run folders to compare' });
   }
-  const runs = runDirs.map((dir) => readRunFolder(dir));
+  // Every run is held until the comparison is written: they share one chain budget (readRunFolder).
+  const runs = runDirs.map((dir) => readRunFolder(dir, { sharedBy: runDirs.length }));
   const seen = new Map<string, string>();
   for (const run of runs) {
     const label = run.record.model.label;

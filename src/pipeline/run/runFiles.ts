@@ -66,6 +66,8 @@ export interface RunReadOptions {
    * (the smallest k that fits; chainStepStride).
    */
   chainMemoryMb?: number;
+  /** The budget is shared by this many runs read and held together (`compare`, an overlay): each gets its share (default 1). */
+  sharedBy?: number;
 }
 
 /** Memory budget of a run's chains as read back, MB, when neither the command nor the configuration sets one (fits a laptop; common practice). */
@@ -92,10 +94,11 @@ export function chainStepStride(record: StoredRunRecord, memoryMb: number): numb
   return Math.max(1, Math.ceil(bytes / (memoryMb * 2 ** 20)));
 }
 
-/** The chain memory budget of a run, MB: the command's, else the stored configuration's `output.chain_memory_mb`, else the default. */
+/** The chain memory budget of a run, MB: the command's, else the stored configuration's `output.chain_memory_mb`, else the default; divided among the runs read together. */
 function chainMemoryOf(record: StoredRunRecord, options: RunReadOptions): number {
   const stored = (record.configuration as { output?: { chain_memory_mb?: unknown } }).output?.chain_memory_mb;
-  return options.chainMemoryMb ?? (typeof stored === 'number' && stored > 0 ? stored : DEFAULT_CHAIN_MEMORY_MB);
+  const budget = options.chainMemoryMb ?? (typeof stored === 'number' && stored > 0 ? stored : DEFAULT_CHAIN_MEMORY_MB);
+  return budget / Math.max(1, options.sharedBy ?? 1);
 }
 
 /**

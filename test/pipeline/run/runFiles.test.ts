@@ -50,6 +50,8 @@ describe('readRunFolder within a chain budget', () => {
     const budget = whole.chains.rows * (whole.chains.header.length - 4 + 13 / 8) * 8 / 2 ** 20 / 5;
     const thinned = readRunFolder(runDir, { chainMemoryMb: budget });
     expect(thinned.chains.stepStride).toBe(5);
+    // Runs read together (compare) share the budget: five runs each get a fifth.
+    expect(readRunFolder(runDir, { chainMemoryMb: budget * 5, sharedBy: 5 }).chains.stepStride).toBe(5);
     expect(thinned.chains.rows).toBe(2 * 8 * 240);
     for (let r = 0; r < thinned.chains.rows; r += 37) {
       const step = thinned.chains.step[r];
