@@ -76,6 +76,7 @@ export type { MeasurementGroup, MeasurementRatioFigureInput } from './figures/in
 export { probeDiagramFileName, probeDiagramKey, probeDiagramJson, parseProbeDiagramJson } from './diagrams/probeDiagramJson.js';
 export type { ProbeDiagramDocument } from './diagrams/probeDiagramJson.js';
 export { svgToPng } from './figures/index.js';
+export { DEFAULT_PNG_WIDTH_PX } from './figures/index.js';
 export { svgToPdf } from './figures/index.js';
 export { sampleWalkerTraces } from './figures/index.js';
 export { pruneContourIslands } from './density/pruneContourIslands.js';

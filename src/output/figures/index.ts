@@ -18,7 +18,7 @@ export type { AutocorrelationFigureOptions, AutocorrelationSeries } from './auto
 export type { BandFigureInput, BandFigureOptions, ReferenceLine } from './bandFigure.js';
 export { measurementRatioFigure } from './measurementRatioFigure.js';
 export type { MeasurementGroup, MeasurementRatioFigureInput } from './measurementRatioFigure.js';
-export { svgToPng } from './svgToPng.js';
+export { svgToPng, DEFAULT_PNG_WIDTH_PX } from './svgToPng.js';
 export { svgToPdf } from './pdf/svgToPdf.js';
 export { withPngResolution } from './pngResolution.js';
 // Figure inputs (density types come from ../density/densityTypes.ts)

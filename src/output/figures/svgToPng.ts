@@ -2,6 +2,8 @@ import { Resvg } from '@resvg/resvg-js';
 import { CandelaError } from '../../errors.js';
 import { withPngResolution } from './pngResolution.js';
 
+/** Width of a figure's PNG when no print resolution is configured, px: print quality for a figure of about 640 px design width. */
+export const DEFAULT_PNG_WIDTH_PX = 1600;
 /** Largest PNG width accepted (px): 8000 px is 67 cm at 300 dpi, far more than any journal column. */
 const MAX_PNG_WIDTH_PX = 8000;
 /** Family used for any text whose font stack resolves to nothing on this machine. */

@@ -3,7 +3,7 @@ import { dirname, join } from 'node:path';
 import { CandelaError, isCandelaError } from '../../errors.js';
 import { closestWord, systematicBudget } from '../../math/index.js';
 import { essErrorInflation } from '../../diagnostics/index.js';
-import { budgetFigure, budgetJson, budgetLatex, budgetMarkdown, budgetMethod, RUN_FILES, smallestBulkEssInSummaryJson, svgToPng, writeFileAtomic, type BudgetTable } from '../../output/index.js';
+import { budgetFigure, budgetJson, budgetLatex, budgetMarkdown, budgetMethod, DEFAULT_PNG_WIDTH_PX, RUN_FILES, smallestBulkEssInSummaryJson, svgToPng, writeFileAtomic, type BudgetTable } from '../../output/index.js';
 import { rebuildRunModel } from '../compare/compareRebuildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
 import { storedConfiguration } from '../run/storedConfiguration.js';
@@ -20,8 +20,6 @@ import { variantLogLikelihoods } from './variantLogLikelihoods.js';
 export const DEFAULT_BUDGET_DRAWS = 4000;
 /** Kish effective count below which a reweighted variant is flagged (a mean to ~5% of sigma, common practice). */
 export const DEFAULT_MIN_EFFECTIVE_DRAWS = 400;
-/** Width of the PNG copy of the figure (px), as the run's other figures. */
-const PNG_WIDTH_PX = 1600;
 
 /** What `candela budget` is asked to do. */
 export interface BudgetRequest {
@@ -141,7 +139,7 @@ function writeBudgetFiles(dir: string, table: BudgetTable, png: boolean): string
     [join(dir, BUDGET_FILES.latex), budgetLatex(table)],
     [join(dir, BUDGET_FILES.json), budgetJson(table)],
     [join(dir, BUDGET_FILES.figure), svg],
-    ...(png ? [[join(dir, BUDGET_FILES.figure.replace(/\.svg$/, '.png')), svgToPng(svg, PNG_WIDTH_PX)] as [string, Uint8Array]] : []),
+    ...(png ? [[join(dir, BUDGET_FILES.figure.replace(/\.svg$/, '.png')), svgToPng(svg, DEFAULT_PNG_WIDTH_PX)] as [string, Uint8Array]] : []),
   ];
   mkdirSync(dirname(join(dir, BUDGET_FILES.figure)), { recursive: true });
   for (const [path, content] of files) writeFileAtomic(path, content);

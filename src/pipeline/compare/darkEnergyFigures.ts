@@ -1,5 +1,5 @@
 import { join } from 'node:path';
-import { bandFigure, darkEnergyBandsFigure, svgToPng, triangleFigure, writeFileAtomic } from '../../output/index.js';
+import { bandFigure, darkEnergyBandsFigure, DEFAULT_PNG_WIDTH_PX, svgToPng, triangleFigure, writeFileAtomic } from '../../output/index.js';
 import { COSMOLOGICAL_PARAMETERS } from '../report/analyzeRun.js';
 import { contoursForTriangle } from '../report/buildRunOutputs.js';
 import type { AnalyzedRun } from './compareInputs.js';
@@ -10,8 +10,6 @@ import { equationOfStateBand } from './darkEnergyFiguresEquationOfState.js';
 /** Largest redshift of the w(z) band for runs without supernovae (BAO reach z ~ 2.3; common practice). */
 const PROBES_ONLY_MAX_REDSHIFT = 2.5;
 
-/** Width of PNG renderings, px (as for the run figures). */
-const PNG_WIDTH_PX = 1600;
 
 /** What {@link writeDarkEnergyFigures} drew, and what it could not. */
 export interface DarkEnergyFigureFiles {
@@ -48,7 +46,7 @@ export function writeDarkEnergyFigures(runs: readonly AnalyzedRun[], rebuilt: Re
   const skipped: string[] = [];
   const save = (stem: string, svg: string) => {
     writeFileAtomic(join(outDir, `${stem}.svg`), svg);
-    if (options.png) writeFileAtomic(join(outDir, `${stem}.png`), svgToPng(svg, PNG_WIDTH_PX));
+    if (options.png) writeFileAtomic(join(outDir, `${stem}.png`), svgToPng(svg, DEFAULT_PNG_WIDTH_PX));
     written.push(stem);
   };
   const shared = runs[0].analysis.sampled.filter((name) => runs.every((entry) => entry.analysis.sampled.includes(name)));

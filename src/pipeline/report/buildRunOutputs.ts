@@ -13,7 +13,7 @@ import { densityGrid2D } from '../../math/index.js';
 import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
 import { readRunFolder, type RunOnDisk } from '../run/runFiles.js';
 import { readProbeDiagrams } from './probeDiagramFiles.js';
-import { RUN_FILES } from '../../output/index.js';
+import { DEFAULT_PNG_WIDTH_PX, RUN_FILES } from '../../output/index.js';
 import { summaryDocument } from './summaryDocument.js';
 import { blindingMarks, blindingMarksOfRuns } from '../blinding/blindingMarks.js';
 import { reportFactsOfRun } from './reportFactsOfRun.js';
@@ -24,14 +24,12 @@ import { storedBudget } from '../budget/storedBudget.js';
 import { stringify } from 'yaml';
 import { PARAMETERS, parameterRank, parseParameterName } from '../../parameters/index.js';
 
-/** Width of PNG renderings, px (print quality for a figure of ~640 px design width). */
-const PNG_WIDTH_PX = 1600;
 /** The triangle figure shows every sampled parameter up to this many, else the cosmological ones. */
 const TRIANGLE_MAX_PARAMETERS = 7;
 
-/** The PNG of a figure: at the configured dots per inch, else {@link PNG_WIDTH_PX} wide. */
+/** The PNG of a figure: at the configured dots per inch, else {@link DEFAULT_PNG_WIDTH_PX} wide. */
 function pngOf(svg: string, settings: FigureSettings): Buffer {
-  return svgToPng(svg, settings.pngDpi === null ? PNG_WIDTH_PX : { dotsPerInch: settings.pngDpi });
+  return svgToPng(svg, settings.pngDpi === null ? DEFAULT_PNG_WIDTH_PX : { dotsPerInch: settings.pngDpi });
 }
 
 /** The truth values of the shown parameters, for the triangle figure's reference marks (none without a truth file). */
