@@ -38,3 +38,4 @@ export { readSystematicModes } from './readSystematicModes.js';
 export type { SystematicModeReadOptions } from './readSystematicModes.js';
 export { subsetSystematicModes } from './subsetSystematicModes.js';
 export { appendModeColumns } from './appendModeColumns.js';
+export { withoutModeColumns } from './withoutModeColumns.js';

@@ -1,5 +1,5 @@
 import type { CandelaConfig } from '../../config/index.js';
-import { readSystematicModes } from '../../data/index.js';
+import { readSystematicModes, withoutModeColumns } from '../../data/index.js';
 import type { LoadedSupernovae } from '../run/loadSupernovae.js';
 
 /** One systematic of the budget: its name and what of the loaded data carries it. */
@@ -75,8 +75,6 @@ export function variantData(data: LoadedSupernovae, all: readonly BudgetSystemat
   const modes = data.systematicModes;
   if (!modes || removedColumns.size === 0) return { ...data, covariances };
   const { systematicModes: _dropped, ...rest } = data;
-  if (removedColumns.size >= modes.modeCount) return { ...rest, covariances };
-  const values = Float64Array.from(modes.values);
-  for (let i = 0; i < modes.count; i++) for (const j of removedColumns) values[i * modes.modeCount + j] = 0;
-  return { ...rest, covariances, systematicModes: { ...modes, values } };
+  const keptModes = withoutModeColumns(modes, removedColumns);
+  return keptModes ? { ...rest, covariances, systematicModes: keptModes } : { ...rest, covariances };
 }
