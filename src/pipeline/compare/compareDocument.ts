@@ -1,4 +1,5 @@
-import type { ModelComparison } from '../../compare/index.js';
+import { logBayesFactor, type ModelComparison } from '../../compare/index.js';
+import { isCandelaError } from '../../errors.js';
 import { COMPARISON_SCHEMA, type ComparisonJson, type SavageDickeyJson } from '../../output/index.js';
 import type { AnalyzedRun } from './compareInputs.js';
 import type { ComparedModel } from './compareModelRecord.js';
@@ -22,10 +23,11 @@ function finiteOrNull(value: number | null | undefined): number | null {
 
 /**
  * ln B01 = ln Z(simpler) - ln Z(extended) of a nested pair from the two
- * runs' evidences, with the errors added in quadrature (independent runs).
+ * runs' evidences, with the errors added in quadrature (independent runs):
+ * the compare layer's logBayesFactor.
  * Cost: O(1).
  * @param pair a detected pair.
- * @returns ln B01 and its error (nats), or null when either run lacks an evidence (ensemble runs).
+ * @returns ln B01 and its error (nats), or null when either run lacks a usable evidence (ensemble runs).
  * @throws nothing.
  * @example evidenceLogBayesFactor01(pair) // { value: 1.56, error: 0.17 }
  */
@@ -33,7 +35,13 @@ export function evidenceLogBayesFactor01(pair: DetectedNestedPair): { value: num
   const simple = pair.base.run.record.evidence;
   const wide = pair.extended.run.record.evidence;
   if (!simple || !wide) return null;
-  return { value: simple.log_z - wide.log_z, error: Math.hypot(simple.log_z_error, wide.log_z_error) };
+  try {
+    const { logBayesFactor: value, error } = logBayesFactor({ logZ: simple.log_z, logZError: simple.log_z_error }, { logZ: wide.log_z, logZError: wide.log_z_error });
+    return { value, error };
+  } catch (failure) {
+    if (isCandelaError(failure)) return null; // a stored ln Z or error that is not a finite number
+    throw failure;
+  }
 }
 
 /**
