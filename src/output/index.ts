@@ -120,6 +120,7 @@ export { massStepConvention } from './summaries/massStepConvention.js';
 export { binResiduals } from './summaries/binResiduals.js';
 // summary.json: the document of one run's numbers (plain facts in, JSON-ready object out).
 export { SUMMARY_SCHEMA } from './summaries/summaryJson.js';
+export { summaryJsonText } from './summaries/summaryJson.js';
 export type { SummaryJson } from './summaries/summaryJson.js';
 export type { SummaryJsonInput } from './summaries/summaryJson.js';
 export type { SummaryJsonBestFit } from './summaries/summaryJson.js';

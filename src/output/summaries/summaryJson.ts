@@ -94,7 +94,7 @@ export interface SummaryJsonInput {
  *
  * Cost: O(parameters^2) (the correlation matrix).
  * @param input the run's facts.
- * @returns the JSON-ready document (write it with JSON.stringify(document, null, 2)).
+ * @returns the JSON-ready document (its text: summaryJsonText).
  * @throws nothing.
  * @example summaryJsonDocument(input).schema // 'candela-summary-1'
  */
@@ -181,3 +181,16 @@ export function summaryJsonDocument(input: SummaryJsonInput) {
 
 /** summary.json as a document (the return type of summaryJsonDocument). */
 export type SummaryJson = ReturnType<typeof summaryJsonDocument>;
+
+/**
+ * summary.json's text: the document (summaryJsonDocument, with any blinding
+ * block the caller added after its keys) as JSON indented by two spaces,
+ * ending in a line break; keys keep the document's order.
+ * @param document the summary document, JSON-ready (finite numbers or null).
+ * @returns the file's text.
+ * @throws nothing (a document with a cycle throws TypeError from JSON.stringify).
+ * @example summaryJsonText({ schema: 'candela-summary-1' }) // => '{\n  "schema": "candela-summary-1"\n}\n'
+ */
+export function summaryJsonText(document: Partial<SummaryJson> & object): string {
+  return `${JSON.stringify(document, null, 2)}\n`;
+}

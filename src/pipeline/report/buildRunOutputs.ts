@@ -13,7 +13,7 @@ import { densityGrid2D } from '../../math/index.js';
 import { analyzeRun, priorBounds, type RunAnalysis } from './analyzeRun.js';
 import { readRunFolder, type RunOnDisk } from '../run/runFiles.js';
 import { readProbeDiagrams } from './probeDiagramFiles.js';
-import { DEFAULT_PNG_WIDTH_PX, RUN_FILES } from '../../output/index.js';
+import { DEFAULT_PNG_WIDTH_PX, RUN_FILES, summaryJsonText } from '../../output/index.js';
 import { summaryDocument } from './summaryDocument.js';
 import { blindingMarks, blindingMarksOfRuns } from '../blinding/blindingMarks.js';
 import { reportFactsOfRun } from './reportFactsOfRun.js';
@@ -145,7 +145,7 @@ export function writeRunSummaries(run: RunOnDisk, outDir: string): RunSummaries 
   mkdirSync(join(outDir, 'contours'), { recursive: true });
   mkdirSync(join(outDir, 'figures'), { recursive: true });
   const marks = blindingMarks(run.record);
-  writeFileAtomic(join(outDir, RUN_FILES.summaryJson), `${JSON.stringify(marks.summaryJson(summaryDocument(run, analysis)), null, 2)}\n`);
+  writeFileAtomic(join(outDir, RUN_FILES.summaryJson), summaryJsonText(marks.summaryJson(summaryDocument(run, analysis))));
   writeFileAtomic(join(outDir, RUN_FILES.summaryMarkdown), marks.markdown(summaryMarkdown(analysis.summary)));
   writeFileAtomic(join(outDir, RUN_FILES.tableLatex), marks.latex(summaryLatex(analysis.summary)));
   for (const marginal of analysis.marginals) writeFileAtomic(join(outDir, 'marginals', `${marginal.parameter}.csv`), marginalDensityCsv(marginal));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { SUMMARY_SCHEMA, summaryJsonDocument, type SummaryJsonInput } from '../../../src/output/index.js';
+import { SUMMARY_SCHEMA, summaryJsonDocument, summaryJsonText, type SummaryJsonInput } from '../../../src/output/index.js';
 import type { SampleStatistics } from '../../../src/output/index.js';
 
 // summary.json's layout is candela's own (README, "summary.json (schema
@@ -121,5 +121,15 @@ describe('summaryJsonDocument', () => {
     expect(document.evidence).not.toBe(evidence);
     const noEvidence = summaryJsonDocument(ensembleInput({ nested: { livePoints: null, maxUnexploredLnZ: null, stop: null, remainingLogZ: null, effectiveSampleSize: null, evidence: null } }));
     expect('evidence' in noEvidence).toBe(false);
+  });
+});
+
+describe('summaryJsonText', () => {
+  it('writes the document as two-space JSON in its key order, ending in one line break, and reads back equal', () => {
+    const document = { ...summaryJsonDocument(ensembleInput()), blinding: { state: 'blinded' } };
+    const text = summaryJsonText(document);
+    expect(text.startsWith('{\n  "schema": "candela-summary-1",\n  "title": "Kestrel layout test",\n')).toBe(true);
+    expect(text.endsWith('\n  "blinding": {\n    "state": "blinded"\n  }\n}\n')).toBe(true);
+    expect(JSON.parse(text)).toEqual(JSON.parse(JSON.stringify(document)));
   });
 });
