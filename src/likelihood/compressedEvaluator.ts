@@ -117,11 +117,8 @@ export function createCompressedEvaluator(model: SupernovaModel, tolerance: numb
   const marginal = createOffsetMarginal();
   const tailGuard = Math.max(TAIL_GUARD_FACTOR * choice.referenceTail, TAIL_GUARD_FLOOR_MAG);
   const inputs = new Float64Array(model.covariance.inputCount);
-  let evaluations = 0;
-  let fallbacks = 0;
 
   const exact = (p: ParameterValues, out: SupernovaEvaluation): void => {
-    fallbacks++;
     const unphysical = model.offsetFreeResidual(p, residual);
     if (unphysical) return rejectEvaluation(out, unphysical);
     whitener.whitenInPlace(residual);
@@ -131,7 +128,6 @@ export function createCompressedEvaluator(model: SupernovaModel, tolerance: numb
   return {
     path: 'compressed',
     evaluate(p, out) {
-      evaluations++;
       model.readCovarianceInputs(p, inputs);
       for (let k = 0; k < inputs.length; k++) {
         if (inputs[k] !== covarianceInputs[k]) {
@@ -189,7 +185,9 @@ export function createCompressedEvaluator(model: SupernovaModel, tolerance: numb
           `${columns} coefficients, O(${columns}^2/2) multiply-adds + ${nodeCount} distances per call`,
         `compression error bound |delta chi^2| <= ${choice.chiSquareBound.toExponential(2)} (target ${tolerance}) at ${choice.referenceCount} reference cosmologies; ` +
           `largest interpolation error ${choice.maxErrorMag.toExponential(2)} mag`,
-        `exact evaluations when the top Chebyshev coefficients exceed ${tailGuard.toExponential(2)} mag: ${fallbacks} of ${evaluations} calls so far`,
+        // No call counts here: with worker threads each thread counts only its own share, which varies from run to run,
+        // and the description goes into run.json and summary.json, which the same configuration and seed must reproduce.
+        `exact evaluations when the top Chebyshev coefficients exceed ${tailGuard.toExponential(2)} mag`,
       ];
     },
   };
