@@ -198,7 +198,7 @@ export function registerFitCommand(program: Command): void {
             process.stdout.write(`== ${outcome.model}: interrupted after ${outcome.record.run.steps} steps; chains and summaries so far in ${outcome.runDir}\n`);
             for (const warning of outcome.warnings) process.stderr.write(`${formatIssue(warning)}\n`);
           } else {
-            process.stdout.write(`${terminalRunReport(outcome.runDir)}\n`);
+            process.stdout.write(`${outcome.terminalReport ?? terminalRunReport(outcome.runDir)}\n`);
           }
         }
       };

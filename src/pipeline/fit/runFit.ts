@@ -20,6 +20,7 @@ import { createRunRecord, type RunRecord } from '../run/runRecord.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
 import { writeRunOutputsUnlessStopped } from '../report/buildRunOutputs.js';
+import { terminalRunReport } from '../report/terminalRunReport.js';
 import { blindRunRecord } from '../blinding/blindRunRecord.js';
 import { checkBlindingSupported } from '../blinding/checkBlindingSupported.js';
 import { prepareRunBlinding } from '../blinding/prepareRunBlinding.js';
@@ -131,6 +132,8 @@ export interface FitOutcome {
   warnings: Issue[];
   /** False when the run was interrupted before it had steps enough for summaries: only the checkpoint, chains.csv and run.json are written. */
   summarized?: boolean;
+  /** The terminal report of a finished run (terminalRunReport), made from the analysis its outputs were written from. */
+  terminalReport?: string;
 }
 
 /** Output folder of model `index`: the configured folder itself for one model, a subfolder per label for several. */
@@ -368,10 +371,13 @@ async function fitOneModel(
     // A signal asks to stop soon: the figures and report.html are left to `candela report` (or to the resumed run),
     // also when it comes while they are being drawn after the sampling finished.
     const interrupted = stopReason === 'interrupted';
-    const complete = await writeRunOutputsUnlessStopped(runDir, interrupted ? null : request.signal);
+    let terminalReport: string | undefined;
+    const complete = await writeRunOutputsUnlessStopped(runDir, interrupted ? null : request.signal, (written) => {
+      if (!interrupted) terminalReport = terminalRunReport(runDir, written);
+    });
     if (!complete) say(`model ${model.label}${partNote}: figures and report.html${interrupted ? ' of the steps so far' : ' left out on the signal'}: candela report ${runDir}`);
     say(`model ${model.label}${partNote}: ${stopReason} after ${sampler.stepCount} steps in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
-    return { model: model.label, runDir, record, warnings, summarized: true };
+    return { model: model.label, runDir, record, warnings, summarized: true, ...(terminalReport !== undefined ? { terminalReport } : {}) };
   } finally {
     await evaluator.close();
   }

@@ -271,12 +271,15 @@ const turnEventLoop = (): Promise<void> => new Promise((done) => setImmediate(do
  * about one figure's rendering instead of all of them.
  * @param runDir the run folder.
  * @param signal the fit's stop signal; null or aborted: the summaries only.
+ * @param onSummaries receives the run as read back and its analysis once the summaries are written (the fit prints
+ *   its terminal report from them instead of reading the run again).
  * @returns true when every output was written, false when the figures and report.html were left out.
  * @throws as writeRunOutputs.
  * @example await writeRunOutputsUnlessStopped('out/run', controller.signal) // true
  */
-export async function writeRunOutputsUnlessStopped(runDir: string, signal: AbortSignal | null | undefined): Promise<boolean> {
+export async function writeRunOutputsUnlessStopped(runDir: string, signal: AbortSignal | null | undefined, onSummaries?: (written: RunSummaries) => void): Promise<boolean> {
   const written = writeRunSummaries(readRunFolder(runDir), runDir);
+  onSummaries?.(written);
   if (signal === null) return false;
   await turnEventLoop();
   if (signal?.aborted) return false;

@@ -1,20 +1,21 @@
 import { runTerminalText } from '../../output/index.js';
-import { analyzeRun } from './analyzeRun.js';
+import { analyzeRun, type RunAnalysis } from './analyzeRun.js';
 import { blindedParametersOf } from '../blinding/runBlinding.js';
-import { readRunFolder } from '../run/runFiles.js';
+import { readRunFolder, type RunOnDisk } from '../run/runFiles.js';
 
 /**
  * What `candela fit` prints after a run: reads the run folder, analyzes it
  * and hands the facts to the output layer's runTerminalText (the layout
  * lives there: table, text marginals, chi-square, warnings, outputs).
  * @param runDir the run folder.
+ * @param prepared the run as already read back and analysed (the end of a fit), to avoid reading it twice.
  * @returns the text, no final line break.
  * @throws CandelaError when the folder cannot be read back (see readRunFolder).
  * @example process.stdout.write(`${terminalRunReport('out/demo')}\n`)
  */
-export function terminalRunReport(runDir: string): string {
-  const run = readRunFolder(runDir);
-  const analysis = analyzeRun(run);
+export function terminalRunReport(runDir: string, prepared?: { run: RunOnDisk; analysis: RunAnalysis }): string {
+  const run = prepared?.run ?? readRunFolder(runDir);
+  const analysis = prepared?.analysis ?? analyzeRun(run);
   const { record } = run;
   return runTerminalText({
     blindedParameters: blindedParametersOf(record),
