@@ -169,6 +169,7 @@ export { drawsFromChainRecord } from './run/storedDraws.js';
 export { shiftedDraws } from './run/storedDraws.js';
 export { forEachStoredBlock } from './run/storedDraws.js';
 export { bestStoredDraw } from './run/storedDraws.js';
+export { drawsAfterBurnIn } from './run/storedDraws.js';
 export { acceptedMoveCounts } from './run/storedDraws.js';
 export { ensemblesSideBySide } from './run/storedDraws.js';
 export type { BestStoredDraw } from './run/storedDraws.js';

@@ -253,3 +253,29 @@ export function ensemblesSideBySide(sources: readonly StoredDraws[], steps: numb
     block: (ensemble, from, to) => sources[ensemble].block(0, from, to),
   };
 }
+
+/**
+ * Draws after the burn-in counted one by one, ensemble after ensemble, then
+ * step, then walker (the order chains.csv lists them): how many there are,
+ * and the parameters of the pick-th, read from the source one step at a
+ * time (for seeded random picks that must not load the chain).
+ * Cost: O(1) for the count; one single-step block read per draw.
+ * @param source the stored draws.
+ * @param fromStep first step after the burn-in.
+ * @returns `count`, and `at(pick)` giving a copy of draw pick's parameters (0 <= pick < count).
+ * @throws what the source throws.
+ * @example const draws = drawsAfterBurnIn(source, 500); draws.at(draws.count - 1) // the last walker of the last step of the last ensemble
+ */
+export function drawsAfterBurnIn(source: StoredDraws, fromStep: number): { count: number; at: (pick: number) => Float64Array } {
+  const perEnsemble = Math.max(0, source.steps - fromStep) * source.walkers;
+  return {
+    count: source.ensembles * perEnsemble,
+    at(pick) {
+      const ensemble = Math.floor(pick / perEnsemble);
+      const row = pick % perEnsemble;
+      const step = fromStep + Math.floor(row / source.walkers);
+      const walker = row % source.walkers;
+      return source.block(ensemble, step, step + 1).positions.slice(walker * source.dimension, (walker + 1) * source.dimension);
+    },
+  };
+}

@@ -4,7 +4,7 @@ import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, distanceModulusB
 import { createRandomStream, deriveSeed, logSpacedGrid } from '../../math/index.js';
 import { hubbleDiagramCsv, hubbleModelCsv, writeFileAtomic } from '../../output/index.js';
 import type { BuiltModel } from '../run/buildModel.js';
-import { bestStoredDraw, drawsInMemory, type EnsembleDraws, type StoredDraws } from '../../output/index.js';
+import { bestStoredDraw, drawsAfterBurnIn, drawsInMemory, type EnsembleDraws, type StoredDraws } from '../../output/index.js';
 import { arrayExtent } from '../../math/index.js';
 import { RUN_FILES } from '../../output/index.js';
 
@@ -32,16 +32,8 @@ export function writeHubbleFiles(runDir: string, model: BuiltModel, stored: Stor
   // The draws are read from the source a block at a time (the best fit) and one step at a time (the seeded picks),
   // never whole: a chain of any length gives these files in bounded memory.
   const source = 'block' in stored ? stored : drawsInMemory(stored);
-  const perEnsemble = Math.max(0, source.steps - burnInSteps) * source.walkers;
-  const rowCount = source.ensembles * perEnsemble;
-  // Pick p of the post-burn-in rows, counted ensemble after ensemble (the order the draws are stored in).
-  const pointAt = (pick: number): Float64Array => {
-    const ensemble = Math.floor(pick / perEnsemble);
-    const row = pick % perEnsemble;
-    const step = burnInSteps + Math.floor(row / source.walkers);
-    const walker = row % source.walkers;
-    return source.block(ensemble, step, step + 1).positions.slice(walker * source.dimension, (walker + 1) * source.dimension);
-  };
+  // Seeded picks among the draws after the burn-in, counted ensemble after ensemble (the order the draws are stored in).
+  const { count: rowCount, at: pointAt } = drawsAfterBurnIn(source, burnInSteps);
   const best = bestStoredDraw(source, burnInSteps);
   const bestValues = posterior.values(best.theta);
   if (model.probes.length > 0 && !options.blinded) {

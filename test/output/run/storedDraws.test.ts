@@ -6,7 +6,7 @@ import { createRandomStream } from '../../../src/math/index.js';
 import { EnsembleSampler, createInProcessEvaluator } from '../../../src/sampler/index.js';
 import { appendChainRecord } from '../../../src/output/run/chainRecordFile.js';
 import { writeChainsFile, type EnsembleDraws } from '../../../src/output/run/chainsFile.js';
-import { bestStoredDraw, drawsFromChainRecord, drawsInMemory, forEachStoredBlock, shiftedDraws, STORED_DRAWS_BLOCK_STEPS } from '../../../src/output/run/storedDraws.js';
+import { bestStoredDraw, drawsAfterBurnIn, drawsFromChainRecord, drawsInMemory, forEachStoredBlock, shiftedDraws, STORED_DRAWS_BLOCK_STEPS } from '../../../src/output/run/storedDraws.js';
 import { createGaussianTarget } from '../../sampler/fixtures/gaussianTarget.mjs';
 
 // Reading a run's stored steps a block at a time must give the numbers the sampler stored, bit for bit, so that
@@ -74,6 +74,19 @@ describe('writeChainsFile from stored draws', () => {
       expect(text.trimEnd().split('\n').length).toBe(1 + 3 * WALKERS * (selection?.steps ?? STEPS));
     });
   }
+});
+
+describe('drawsAfterBurnIn', () => {
+  it('counts the draws after the burn-in and gives each in chains.csv order (ensemble, step, walker)', () => {
+    const draws = drawsAfterBurnIn(drawsFromChainRecord(scratch, { ensembles: 3, walkers: WALKERS, dimension: 2, blobCount: inMemory[0].blobCount }, STEPS), 40);
+    expect(draws.count).toBe(3 * (STEPS - 40) * WALKERS);
+    const perEnsemble = (STEPS - 40) * WALKERS;
+    for (const pick of [0, 1, WALKERS, perEnsemble - 1, perEnsemble, draws.count - 1]) {
+      const ensemble = Math.floor(pick / perEnsemble);
+      const row = 40 * WALKERS + (pick % perEnsemble);
+      expect(Array.from(draws.at(pick))).toEqual(Array.from(inMemory[ensemble].positions.subarray(row * 2, row * 2 + 2)));
+    }
+  });
 });
 
 describe('bestStoredDraw and shiftedDraws', () => {
