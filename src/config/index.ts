@@ -58,6 +58,8 @@ export { TRUNCATION_MAX_DISTANCE_SD } from './readParameters.js';
 export { resolvedConfigToYaml } from './resolvedConfigToYaml.js';
 export { resolvedConfigToJson } from './resolvedConfigToJson.js';
 export { configToPlainObject } from './configToPlainObject.js';
+export { plainConfiguration } from './plainConfiguration.js';
+export type { PlainConfiguration } from './plainConfiguration.js';
 export type { PlainConfigOptions } from './configToPlainObject.js';
 export { describeConfig } from './describeConfig.js';
 export { describePrior } from './describeConfig.js';

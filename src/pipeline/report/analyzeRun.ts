@@ -1,3 +1,4 @@
+import { plainConfiguration } from '../../config/index.js';
 import { acceptanceSummary, RELIABLE_STEPS_PER_TAU, type ParameterDiagnostics } from '../../diagnostics/index.js';
 import { diagnoseTraces } from '../../diagnostics/index.js';
 import { densityGrid2D, kishEffectiveCount, marginalDensity1D, type HardBounds, type MarginalDensity1D } from '../../math/index.js';
@@ -83,20 +84,16 @@ export function priorBounds(run: RunOnDisk, name: string): HardBounds {
   return { lower: prior.min, upper: prior.max };
 }
 
-interface SmoothingSettings { kernel?: string; bandwidth?: string | number; factor?: number }
-
 /** The kernel-width settings of a run (`output.smoothing`), as the marginals, the contours and the Savage-Dickey ratio use them. */
 export function smoothingOf(run: RunOnDisk): { bandwidthRule?: 'scott' | 'silverman'; bandwidth?: number; bandwidthFactor: number } {
-  const configuration = run.record.configuration as { output?: { smoothing?: SmoothingSettings } };
-  const smoothing = configuration.output?.smoothing ?? {};
+  const smoothing = plainConfiguration(run.record.configuration).output?.smoothing ?? {};
   const factor = typeof smoothing.factor === 'number' ? smoothing.factor : 1;
   if (typeof smoothing.bandwidth === 'number') return { bandwidth: smoothing.bandwidth, bandwidthFactor: factor };
   return { bandwidthRule: smoothing.bandwidth === 'silverman' ? 'silverman' : 'scott', bandwidthFactor: factor };
 }
 
 function contourPairsOf(run: RunOnDisk, sampled: string[]): Array<[string, string]> {
-  const configuration = run.record.configuration as { output?: { contour_pairs?: 'auto' | Array<[string, string]> } };
-  const requested = configuration.output?.contour_pairs ?? 'auto';
+  const requested = plainConfiguration(run.record.configuration).output?.contour_pairs ?? 'auto';
   if (requested !== 'auto') return requested.filter(([x, y]) => sampled.includes(x) && sampled.includes(y));
   const cosmological = sampled.filter((name) => COSMOLOGICAL_PARAMETERS.includes(name));
   const pairs: Array<[string, string]> = [];
@@ -288,7 +285,7 @@ export function analyzeRun(run: RunOnDisk): RunAnalysis {
     const termWarning = termFit ? goodnessOfFitWarning(termFit) : null;
     if (termWarning) warnings.push({ ...termWarning, message: `${term.name}: ${termWarning.message}`, numbers: { ...termWarning.numbers } });
   }
-  const configuration = record.configuration as { reference_h0?: number; standardization?: { host_mass_step?: { split_log_mass?: number } } };
+  const configuration = plainConfiguration(record.configuration);
   const fixedNote = fixedParameterNotes(summary.parameters, {
     sampled, fixed: record.parameters.fixed, referenceH0KmPerSPerMpc: configuration.reference_h0 ?? Number.NaN, radiation: record.model.radiation,
   });

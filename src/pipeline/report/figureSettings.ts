@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { mockTruthValues, runWarning, type FigureWidth, type FontFace, type RunWarning } from '../../output/index.js';
 import type { RunOnDisk } from '../run/runFiles.js';
+import { plainConfiguration } from '../../config/index.js';
 
 /** Figure kinds drawn when a run's configuration names none (the configuration's own default). */
 const FALLBACK_FIGURES = ['triangle', 'hubble', 'trace'];
@@ -29,12 +30,6 @@ export interface FigureSettings {
   warnings: RunWarning[];
 }
 
-interface StoredOutput {
-  figures?: string[]; png?: boolean; figure_width?: string | number; font?: string; pdf?: boolean; png_dpi?: number;
-  triangle_parameters?: 'auto' | string[]; truth_file?: string;
-}
-interface StoredDataSet { sample_names?: Record<string, string>; binned?: boolean }
-
 /**
  * Reads the figure settings of a run from the configuration stored in its
  * run.json (older runs without the newer keys get their defaults), and the
@@ -47,7 +42,7 @@ interface StoredDataSet { sample_names?: Record<string, string>; binned?: boolea
  * @example figureSettings(readRunFolder('out/run')).fontFace // 'sans'
  */
 export function figureSettings(run: RunOnDisk): FigureSettings {
-  const configuration = run.record.configuration as { output?: StoredOutput; supernovae?: StoredDataSet[] };
+  const configuration = plainConfiguration(run.record.configuration);
   const output = configuration.output ?? {};
   const sets = configuration.supernovae ?? [];
   const width = output.figure_width;

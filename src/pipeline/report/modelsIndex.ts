@@ -4,6 +4,7 @@ import { akaikeInformationCriterion, bayesianInformationCriterion } from '../../
 import { modelsIndexHtml, modelsLatex, writeFileAtomic, type ModelColumn } from '../../output/index.js';
 import type { RunAnalysis } from './analyzeRun.js';
 import type { RunOnDisk } from '../run/runFiles.js';
+import { plainConfiguration } from '../../config/index.js';
 import { RUN_FILES } from '../../output/index.js';
 
 /** File names of the multi-model pages, in the folder that holds the models' run folders. */
@@ -64,7 +65,7 @@ export function writeModelsIndex(columns: readonly ModelColumn[], indexDir: stri
  * @example siblingModelFolders(readRunFolder('out/kestrel/flat_lcdm')) // ['out/kestrel/flat_lcdm', 'out/kestrel/flat_wcdm']
  */
 export function siblingModelFolders(run: RunOnDisk): string[] {
-  const models = (run.record.configuration as { models?: Array<{ label?: string }> }).models ?? [];
+  const models = plainConfiguration(run.record.configuration).models ?? [];
   if (models.length < 2 || basename(run.dir) !== run.record.model.label) return [];
   const parent = dirname(run.dir);
   return models.map((model) => join(parent, String(model.label))).filter((dir) => existsSync(join(dir, RUN_FILES.run)));

@@ -2,13 +2,7 @@ import { statSync } from 'node:fs';
 import { isAbsolute, normalize, sep } from 'node:path';
 import type { ReportInputFile } from '../../output/index.js';
 import type { RunOnDisk } from '../run/runFiles.js';
-
-interface StoredDataSet {
-  label?: string;
-  table?: { file?: string };
-  covariances?: Array<{ file?: string; applies_to?: string }>;
-  systematic_modes?: Array<{ file?: string }>;
-}
+import { plainConfiguration } from '../../config/index.js';
 
 /**
  * The report's input-file table: every input of run.json with its path as
@@ -23,7 +17,7 @@ interface StoredDataSet {
  * @example reportInputFiles(run)[0].role // 'configuration'
  */
 export function reportInputFiles(run: RunOnDisk): ReportInputFile[] {
-  const configuration = run.record.configuration as { supernovae?: StoredDataSet[]; probes?: Record<string, Record<string, unknown>> };
+  const configuration = plainConfiguration(run.record.configuration);
   const known: Array<{ resolved: string; role: string }> = [];
   for (const set of configuration.supernovae ?? []) {
     const label = set.label ? ` (${set.label})` : '';

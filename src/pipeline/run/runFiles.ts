@@ -1,6 +1,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { CandelaError } from '../../errors.js';
+import { plainConfiguration } from '../../config/index.js';
 import { readChainsFile, type ChainTable } from '../../output/index.js';
 import { chainRecordTable } from './chainRecordTable.js';
 import type { ChainsSelection } from '../../output/index.js';
@@ -96,7 +97,7 @@ export function chainStepStride(record: StoredRunRecord, memoryMb: number): numb
 
 /** The chain memory budget of a run, MB: the command's, else the stored configuration's `output.chain_memory_mb`, else the default; divided among the runs read together. */
 function chainMemoryOf(record: StoredRunRecord, options: RunReadOptions): number {
-  const stored = (record.configuration as { output?: { chain_memory_mb?: unknown } }).output?.chain_memory_mb;
+  const stored = plainConfiguration(record.configuration).output?.chain_memory_mb;
   const budget = options.chainMemoryMb ?? (typeof stored === 'number' && stored > 0 ? stored : DEFAULT_CHAIN_MEMORY_MB);
   return budget / Math.max(1, options.sharedBy ?? 1);
 }
