@@ -29,8 +29,8 @@ export function writeFinalModelsIndex(folders: readonly string[], indexDir: stri
     }
   });
   if (runs.length < 2) return 0;
-  const last = runs[runs.length - 1].run.record;
-  writeModelsIndex(runs.map((entry) => entry.column), resolve(indexDir), last.title, last.tool.version);
+  // Marked BLINDED when any model is, as the pages the models' own processes write (writeModelsIndex).
+  writeModelsIndex(runs.map((entry) => entry.column), resolve(indexDir), runs.map((entry) => entry.run.record));
   return runs.length;
 }
 

@@ -316,7 +316,7 @@ function refreshModelsIndex(run: RunOnDisk, analysis: RunAnalysis): void {
       return [];
     }
   });
-  if (columns.length >= 2) writeModelsIndex(columns, indexDir, blindingMarksOfRuns(records).title(run.record.title), run.record.tool.version);
+  if (columns.length >= 2) writeModelsIndex(columns, indexDir, records);
 }
 
 /**
@@ -351,7 +351,7 @@ export function buildRunOutputs(runDirs: string[], outDir: string, options: RunO
   if (settings.png) writeFileAtomic(join(outDir, 'overlay_triangle.png'), pngOf(svg, settings));
   if (settings.pdf) writeFileAtomic(join(outDir, 'overlay_triangle.pdf'), svgToPdf(svg));
   writeFileAtomic(join(outDir, 'overlay_summary.md'), marks.markdown(runs.map((run, k) => `## ${run.record.model.label}\n\n${summaryMarkdown(analyses[k].summary)}`).join('\n')));
-  writeModelsIndex(runs.map((run, k) => modelColumn(run, analyses[k], resolve(outDir))), outDir, marks.title(runs[0].record.title), runs[0].record.tool.version);
+  writeModelsIndex(runs.map((run, k) => modelColumn(run, analyses[k], resolve(outDir))), outDir, runs.map((run) => run.record));
   return analyses;
 }
 

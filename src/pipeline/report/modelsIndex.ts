@@ -4,6 +4,7 @@ import { akaikeInformationCriterion, bayesianInformationCriterion } from '../../
 import { modelsIndexHtml, modelsLatex, writeFileAtomic, type ModelColumn } from '../../output/index.js';
 import type { RunAnalysis } from './analyzeRun.js';
 import type { RunOnDisk } from '../run/runFiles.js';
+import { blindingMarksOfRuns } from '../blinding/blindingMarks.js';
 import { plainConfiguration } from '../../config/index.js';
 import { RUN_FILES } from '../../output/index.js';
 
@@ -39,19 +40,21 @@ export function modelColumn(run: RunOnDisk, analysis: RunAnalysis, indexDir: str
 
 /**
  * Writes the index page (index.html) and the LaTeX table with models as
- * columns (models.tex) of several runs into `indexDir`.
+ * columns (models.tex) of several runs into `indexDir`. When any of the runs
+ * is blinded, both say so (blindingMarksOfRuns): the page's title, and the
+ * table's first comment line and last row, as table.tex does.
  * Cost: O(parameters x models) plus the writes.
  * @param columns the models' columns, in order.
  * @param indexDir where to write.
- * @param title the configuration's title.
- * @param version candela's version.
+ * @param records the runs' records (the first one's title and tool version head the page; blinding from all).
  * @returns nothing.
  * @throws Error from the file system.
- * @example writeModelsIndex(columns, 'out/kestrel', 'Kestrel', '0.1.0')
+ * @example writeModelsIndex(columns, 'out/kestrel', runs.map((run) => run.record))
  */
-export function writeModelsIndex(columns: readonly ModelColumn[], indexDir: string, title: string, version: string): void {
-  writeFileAtomic(join(indexDir, MODELS_INDEX_FILES.html), modelsIndexHtml({ title, version, models: columns }));
-  writeFileAtomic(join(indexDir, MODELS_INDEX_FILES.latex), modelsLatex(columns));
+export function writeModelsIndex(columns: readonly ModelColumn[], indexDir: string, records: ReadonlyArray<RunOnDisk['record']>): void {
+  const marks = blindingMarksOfRuns(records);
+  writeFileAtomic(join(indexDir, MODELS_INDEX_FILES.html), modelsIndexHtml({ title: marks.title(records[0].title), version: records[0].tool.version, models: columns }));
+  writeFileAtomic(join(indexDir, MODELS_INDEX_FILES.latex), marks.latex(modelsLatex(columns)));
 }
 
 /**

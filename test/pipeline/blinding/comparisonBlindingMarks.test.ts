@@ -7,6 +7,7 @@ import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { compareRuns, runFit } from '../../../src/pipeline/index.js';
 import { comparisonBlindingMarks } from '../../../src/pipeline/blinding/comparisonBlindingMarks.js';
+import { writeFinalModelsIndex } from '../../../src/pipeline/fit/finalModelsIndex.js';
 import { pantheonBinnedConfig } from '../../support/pantheonBinnedConfig.js';
 
 const scratch = resolve('.candela-tmp/blinding-compare');
@@ -52,6 +53,17 @@ describe('compareRuns with blinded runs', () => {
     // The models index beside the two run folders (written by the fit) says so in its title.
     expect(readFileSync(join(scratch, 'blind', 'index.html'), 'utf8')).toContain('blinded compare (BLINDED)');
     expect(readFileSync(join(scratch, 'plain', 'index.html'), 'utf8')).not.toContain('BLINDED');
+    // The models table too, as table.tex: a first comment line and a last row naming the blinded parameters.
+    const modelsTex = readFileSync(join(scratch, 'blind', 'models.tex'), 'utf8');
+    expect(modelsTex.startsWith('% BLINDED')).toBe(true);
+    expect(modelsTex).toMatch(/\\textbf\{BLINDED\}: omega\\_m, w0 shown as true value \+ a secret offset/);
+    expect(readFileSync(join(scratch, 'plain', 'models.tex'), 'utf8')).not.toContain('BLINDED');
+    // The page written once after models fitted side by side carries the same marks.
+    const again = join(scratch, 'blind-final');
+    mkdirSync(again, { recursive: true });
+    expect(writeFinalModelsIndex(['flat_lcdm', 'flat_wcdm'].map((label) => join(scratch, 'blind', label)), again)).toBe(2);
+    expect(readFileSync(join(again, 'index.html'), 'utf8')).toContain('blinded compare (BLINDED)');
+    expect(readFileSync(join(again, 'models.tex'), 'utf8').startsWith('% BLINDED')).toBe(true);
   });
 
   it('withholds the Savage-Dickey ratio, the DIC and the dark-energy figures, with the reason', () => {
