@@ -165,6 +165,7 @@ export { readChainRecordDraws } from './run/chainRecordFile.js';
 export { recordShapeOf } from './run/chainRecordFile.js';
 export type { StoredDraws } from './run/storedDraws.js';
 export { drawsInMemory } from './run/storedDraws.js';
+export { asStoredDraws } from './run/storedDraws.js';
 export { drawsFromChainRecord } from './run/storedDraws.js';
 export { shiftedDraws } from './run/storedDraws.js';
 export { forEachStoredBlock } from './run/storedDraws.js';

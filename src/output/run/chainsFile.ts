@@ -1,6 +1,6 @@
 import { CandelaError } from '../../errors.js';
 import { writeFileAtomicBy } from '../writeFileAtomic.js';
-import { drawsInMemory, STORED_DRAWS_BLOCK_STEPS, type StoredDraws } from './storedDraws.js';
+import { asStoredDraws, STORED_DRAWS_BLOCK_STEPS, type StoredDraws } from './storedDraws.js';
 
 export { readChainsFile } from './readChainsFile.js';
 
@@ -104,7 +104,7 @@ export function chainHeader(columns: ChainColumns, weighted = false): string[] {
  * @example writeChainsFile('out/chains.csv', { parameters: ['omega_m'], derived: [] }, [draws], 0, weights)
  */
 export function writeChainsFile(path: string, columns: ChainColumns, draws: StoredDraws | readonly EnsembleDraws[], burnInSteps: number, weights?: Float64Array, selection?: { first_step: number; every_steps: number; steps: number }): void {
-  const source = isStoredDraws(draws) ? draws : drawsInMemory(draws);
+  const source = asStoredDraws(draws);
   const rowCount = source.ensembles * (selection ? selection.steps : source.steps) * source.walkers;
   if (weights && weights.length !== rowCount) {
     throw new CandelaError({ code: 'run.bad_weights', file: path, message: 'one posterior weight per stored sample is needed', expected: `${rowCount} weights`, found: String(weights.length) });
@@ -145,8 +145,4 @@ export function writeChainsFile(path: string, columns: ChainColumns, draws: Stor
     }
     if (buffer.length) write(`${buffer.join('\n')}\n`);
   });
-}
-
-function isStoredDraws(draws: StoredDraws | readonly EnsembleDraws[]): draws is StoredDraws {
-  return typeof (draws as StoredDraws).block === 'function';
 }

@@ -53,6 +53,15 @@ export function drawsInMemory(ensembles: readonly EnsembleDraws[]): StoredDraws 
 }
 
 /**
+ * Stored draws as a source: a source as it is, one EnsembleDraws per ensemble in memory (drawsInMemory).
+ * Cost: O(1). @throws nothing.
+ * @example asStoredDraws([draws]).ensembles // 1
+ */
+export function asStoredDraws(draws: StoredDraws | readonly EnsembleDraws[]): StoredDraws {
+  return 'block' in draws ? draws : drawsInMemory(draws);
+}
+
+/**
  * The first `steps` steps of the chain record of `runDir` (chain-record.bin,
  * see chainRecordFile.ts) as stored draws, read from disk block by block:
  * memory is one block of every ensemble (at most STORED_DRAWS_BLOCK_STEPS

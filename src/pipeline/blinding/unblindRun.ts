@@ -2,11 +2,10 @@ import { existsSync, readFileSync, rmSync, unlinkSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { loadConfigFile } from '../../config/index.js';
 import { CandelaError } from '../../errors.js';
-import { blindingRunIdentity, drawsFromChainRecord, RUN_FILES, runJsonText, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
+import { bestStoredDraw, blindingRunIdentity, drawsFromChainRecord, RUN_FILES, runJsonText, unsealBlindingKey, writeChainsFile, writeFileAtomic } from '../../output/index.js';
 import { BLOB_FIRST_DERIVED, buildModel } from '../run/buildModel.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import { readRunRecord, type StoredRunRecord } from '../run/runFiles.js';
-import { locateBestSample } from '../run/runRecord.js';
 import { writeResolvedConfig } from '../run/writeResolvedConfig.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
@@ -68,8 +67,8 @@ export function unblindRun(runDir: string, now: Date = new Date()): UnblindOutco
   const names = record.parameters.sampled.map((entry) => entry.name);
   const selection = record.chains_csv;
   writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: names, derived: record.parameters.derived }, ensembles, burnInSteps, undefined, selection);
-  writeHubbleFiles(runDir, model, ensembles, burnInSteps, record.run.seed);
-  const { theta } = locateBestSample(ensembles, burnInSteps); // the fit's search: its best fit bit for bit
+  const { theta } = bestStoredDraw(ensembles, burnInSteps); // the fit's search: its best fit bit for bit
+  writeHubbleFiles(runDir, model, ensembles, burnInSteps, theta, record.run.seed);
   const trueBest = Object.fromEntries(names.map((name, d) => [name, theta[d]]));
   const restored = { ...record.best_fit.parameters };
   for (const name of section.parameters) restored[name] = trueBest[name];

@@ -6,7 +6,7 @@ import { runJsonText, writeFileAtomic } from '../../output/index.js';
 import { createInProcessEvaluator, EnsembleSampler, type EnsembleSnapshot, type SamplerSnapshot } from '../../sampler/index.js';
 import { buildModel } from '../run/buildModel.js';
 import { buildRunOutputs } from '../report/buildRunOutputs.js';
-import { acceptedMoveCounts, chainsSelection, ensemblesSideBySide, forEachStoredBlock, writeChainRecordFrom, writeChainsFile, type ChainsSelection } from '../../output/index.js';
+import { acceptedMoveCounts, bestStoredDraw, chainsSelection, ensemblesSideBySide, forEachStoredBlock, writeChainRecordFrom, writeChainsFile, type ChainsSelection } from '../../output/index.js';
 import { writeHubbleFiles } from '../report/hubbleFiles.js';
 import { loadSupernovae } from '../run/loadSupernovae.js';
 import { readPartsForMerge, type PartOnDisk, type PartRecord } from './mergeChecks.js';
@@ -151,7 +151,8 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   const wallSeconds = Math.max(...parts.map((part) => part.wallSeconds));
   const evaluations = parts.reduce((sum, part) => sum + part.evaluations, 0);
   const workers = Math.max(...parts.map((part) => part.record.run.worker_threads));
-  const base = createRunRecord({ config, modelIndex, model, data, check, stopReason: 'max_steps', wallSeconds, evaluations, steps, workers, draws: ensembles });
+  const best = bestStoredDraw(ensembles, check.burnInSteps);
+  const base = createRunRecord({ config, modelIndex, model, data, check, stopReason: 'max_steps', wallSeconds, evaluations, steps, workers, best });
   const recorded = JSON.stringify(first.record.inputs.map((input) => input.sha256));
   if (JSON.stringify(base.inputs.map((input) => input.sha256)) !== recorded) {
     throw new CandelaError({ code: 'merge.inputs_changed', file: join(first.dir, RUN_FILES.run), message: 'an input file (configuration or data) changed since the parts ran: its SHA-256 differs from the parts\' records', fix: 'restore the files the parts ran with, or rerun the parts' });
@@ -185,7 +186,7 @@ export async function mergeParts(request: MergeRequest): Promise<{ runDir: strin
   writeChainsFile(join(request.outDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: model.derivedNames }, ensembles, check.burnInSteps, undefined, selection);
   writeFileAtomic(join(request.outDir, RUN_FILES.run), runJsonText(record));
   writeResolvedConfig(request.outDir, config);
-  writeHubbleFiles(request.outDir, model, ensembles, check.burnInSteps, String(config.seed));
+  writeHubbleFiles(request.outDir, model, ensembles, check.burnInSteps, best.theta, String(config.seed));
   buildRunOutputs([request.outDir], request.outDir);
   return { runDir: request.outDir, record, verdict };
 }

@@ -56,7 +56,7 @@ function bestSample(draws: EnsembleDraws, weights: Float64Array): { row: number;
   };
 }
 
-/** Equally weighted draws for the Hubble band: the best sample first (writeHubbleFiles takes the highest row as the best fit), then a systematic resample. */
+/** Equally weighted draws for the Hubble band: the best sample first (kept among the rows the seeded picks draw from, as the files were first written), then a systematic resample. */
 function equallyWeighted(draws: EnsembleDraws, weights: Float64Array, bestRow: number, count: number, seed: string): EnsembleDraws {
   const picks = [bestRow, ...resampleRowsByWeight(weights, count, deriveSeed(seed, 'nested-hubble-draws'))];
   const { dimension, blobCount } = draws;
@@ -131,7 +131,7 @@ export async function fitNestedModel(config: CandelaConfig, index: number, model
   writeFileAtomic(join(runDir, RUN_FILES.run), runJsonText(record));
   writeResolvedConfig(runDir, config);
   const hubbleDraws = Math.max(MINIMUM_HUBBLE_DRAWS, Math.round(result.effectiveSampleSize));
-  writeHubbleFiles(runDir, model, [equallyWeighted(draws, weights, best.row, hubbleDraws, seed)], 0, seed);
+  writeHubbleFiles(runDir, model, [equallyWeighted(draws, weights, best.row, hubbleDraws, seed)], 0, best.sample.theta, seed);
   buildRunOutputs([runDir], runDir);
   say(`model ${model.label}: ln Z = ${result.logZ.toFixed(3)} +- ${result.logZError.toFixed(3)} after ${result.iterations} iterations (${result.likelihoodCalls} likelihood calls, ${result.stopReason === 'evidence_settled' ? 'unexplored ln Z below its bound' : 'iteration cap reached'}) in ${wallSeconds.toFixed(1)} s; outputs in ${runDir}`);
   const warnings: Issue[] = [...data.warnings, ...(model.supernovae?.warnings ?? []).map((message) => ({ code: 'likelihood.approximation', severity: 'warning' as const, message }))];

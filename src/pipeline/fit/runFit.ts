@@ -9,7 +9,7 @@ import {
   type BatchEvaluator, type LogProbabilityModel, type WorkerModelSpec,
 } from '../../sampler/index.js';
 import { runJsonText, writeFileAtomic } from '../../output/index.js';
-import { appendChainRecord, drawsFromChainRecord, readCheckpointState, recordShapeOf, shiftedDraws, writeCheckpoint } from '../../output/index.js';
+import { appendChainRecord, bestStoredDraw, drawsFromChainRecord, readCheckpointState, recordShapeOf, shiftedDraws, writeCheckpoint } from '../../output/index.js';
 import { chainsSelection, type ChainsCsvOption, type ChainsSelection } from '../../output/index.js';
 import { buildModel, type BuiltModel } from '../run/buildModel.js';
 import { writeChainsFile } from '../../output/index.js';
@@ -352,7 +352,9 @@ async function fitOneModel(
     // A blinded run's chains.csv shows the blinded parameters shifted and leaves the derived quantities out (docs/blinding.md).
     const shownDraws = blinding ? shiftedDraws(ensembles, model.parameterNames.map((name) => blinding.offsets[name] ?? 0)) : ensembles;
     writeChainsFile(join(runDir, RUN_FILES.chains), { parameters: model.parameterNames, derived: blinding ? [] : model.derivedNames }, shownDraws, check.burnInSteps, undefined, selection);
-    const fullRecord = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, draws: ensembles });
+    // One pass over the record for the best draw after the burn-in: run.json's best fit and the Hubble files share it.
+    const best = bestStoredDraw(ensembles, check.burnInSteps);
+    const fullRecord = createRunRecord({ config, modelIndex: index, model, data, check, stopReason, wallSeconds, evaluations, steps: sampler.stepCount, workers, best });
     const stored: RunRecord & { chains_csv?: ChainsSelection } = selection.keep === 'all' ? fullRecord : { ...fullRecord, chains_csv: selection };
     const unblindedRecord: RunRecord & { part?: PartFacts; chains_csv?: ChainsSelection } = part ? {
       ...stored,
@@ -367,7 +369,7 @@ async function fitOneModel(
       say(`model ${model.label}${partNote}: interrupted after ${sampler.stepCount} steps, fewer than the ${MINIMUM_STEPS_FOR_OUTPUTS} the summaries need; wrote the checkpoint, chains.csv and run.json in ${runDir}`);
       return { model: model.label, runDir, record, warnings, summarized: false };
     }
-    writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, seed, { blinded: blinding !== null });
+    writeHubbleFiles(runDir, model, ensembles, check.burnInSteps, best.theta, seed, { blinded: blinding !== null });
     // A signal asks to stop soon: the figures and report.html are left to `candela report` (or to the resumed run),
     // also when it comes while they are being drawn after the sampling finished.
     const interrupted = stopReason === 'interrupted';

@@ -4,7 +4,7 @@ import { CMB_TEMPERATURE_K, DEFAULT_EFFECTIVE_NEUTRINO_SPECIES, distanceModulusB
 import { createRandomStream, deriveSeed, logSpacedGrid } from '../../math/index.js';
 import { hubbleDiagramCsv, hubbleModelCsv, writeFileAtomic } from '../../output/index.js';
 import type { BuiltModel } from '../run/buildModel.js';
-import { bestStoredDraw, drawsAfterBurnIn, drawsInMemory, type EnsembleDraws, type StoredDraws } from '../../output/index.js';
+import { asStoredDraws, drawsAfterBurnIn, type EnsembleDraws, type StoredDraws } from '../../output/index.js';
 import { arrayExtent } from '../../math/index.js';
 import { RUN_FILES } from '../../output/index.js';
 
@@ -14,7 +14,8 @@ const BAND_DRAWS = 200;
 const CURVE_POINTS = 120;
 
 /**
- * Writes the two Hubble-diagram files of a run:
+ * Writes the two Hubble-diagram files of a run, at the best fit `bestTheta`
+ * (the best stored draw after the burn-in, the one run.json records):
  * - hubble_diagram.csv: per supernova at the best-fit sample (id, sample, z,
  *   mu_obs, sigma_mu, mu_model, residual, calibrator), with mu_obs = standardized
  *   magnitude minus the best-fit absolute magnitude;
@@ -27,15 +28,12 @@ const CURVE_POINTS = 120;
  * writes only those. `blinded`: only hubble_diagram.csv, with mu_obs and
  * mu_model left empty (docs/blinding.md).
  */
-export function writeHubbleFiles(runDir: string, model: BuiltModel, stored: StoredDraws | EnsembleDraws[], burnInSteps: number, seed: string, options: { blinded?: boolean } = {}): void {
+export function writeHubbleFiles(runDir: string, model: BuiltModel, stored: StoredDraws | EnsembleDraws[], burnInSteps: number, bestTheta: Float64Array, seed: string, options: { blinded?: boolean } = {}): void {
   const { posterior, supernovae } = model;
-  // The draws are read from the source a block at a time (the best fit) and one step at a time (the seeded picks),
-  // never whole: a chain of any length gives these files in bounded memory.
-  const source = 'block' in stored ? stored : drawsInMemory(stored);
-  // Seeded picks among the draws after the burn-in, counted ensemble after ensemble (the order the draws are stored in).
-  const { count: rowCount, at: pointAt } = drawsAfterBurnIn(source, burnInSteps);
-  const best = bestStoredDraw(source, burnInSteps);
-  const bestValues = posterior.values(best.theta);
+  // The draws are read from the source one step at a time (the seeded picks), never whole: a chain of any length
+  // gives these files in bounded memory. Picks among the draws after the burn-in, counted ensemble after ensemble.
+  const { count: rowCount, at: pointAt } = drawsAfterBurnIn(asStoredDraws(stored), burnInSteps);
+  const bestValues = posterior.values(bestTheta);
   if (model.probes.length > 0 && !options.blinded) {
     const probeRandom = createRandomStream(deriveSeed(seed, 'probe-band'));
     const probeDraws = Array.from({ length: Math.min(BAND_DRAWS, rowCount) }, () => {

@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { configToPlainObject, type CandelaConfig } from '../../config/index.js';
-import { bestStoredDraw, drawsInMemory, type EnsembleDraws, type StoredDraws } from '../../output/index.js';
 import { VERSION } from './version.js';
 import type { BuiltModel } from './buildModel.js';
 import { probeInputFiles } from './loadProbes.js';
@@ -145,15 +144,14 @@ export function commonRunSections(input: { config: CandelaConfig; modelIndex: nu
   };
 }
 
-/** Assembles run.json for a finished (or interrupted) ensemble run; `draws` are its stored steps, one entry per ensemble (for the best fit). */
+/** Assembles run.json for a finished (or interrupted) ensemble run; `best` is its best stored draw after the burn-in (bestStoredDraw). */
 export function createRunRecord(input: {
   config: CandelaConfig; modelIndex: number; model: BuiltModel; data: LoadedSupernovae; check: ConvergenceCheck;
-  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; draws: StoredDraws | readonly EnsembleDraws[];
+  stopReason: StopReason; wallSeconds: number; evaluations: number; steps: number; workers: number; best: BestSample;
 }): RunRecord {
-  const { config, check, draws } = input;
-  const best = locateBestSample(draws, check.burnInSteps);
+  const { config, check } = input;
   return {
-    ...commonRunSections({ ...input, best }),
+    ...commonRunSections(input),
     run: {
       seed: String(config.seed), steps: input.steps, burn_in_steps: check.burnInSteps,
       walkers: config.sampler.walkers, ensembles: config.sampler.ensembles,
@@ -161,11 +159,4 @@ export function createRunRecord(input: {
       worker_threads: input.workers, stop_reason: input.stopReason, target_ess: config.sampler.targetEss, max_rhat: config.sampler.maxRhat,
     },
   };
-}
-
-/** The stored sample with the highest log posterior after the burn-in (the first of equal values, in ensemble, step, walker order), streamed from the draws (bestStoredDraw). */
-export function locateBestSample(draws: StoredDraws | readonly EnsembleDraws[], burnInSteps: number): BestSample {
-  const source = 'block' in draws ? draws : drawsInMemory(draws);
-  const best = bestStoredDraw(source, burnInSteps);
-  return { theta: best.theta, logProb: best.logProb, logLikelihood: best.logLikelihood };
 }
